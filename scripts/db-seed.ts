@@ -1,0 +1,19 @@
+// npm run db:seed — demo accounts, materials and scenario (only with DEMO on).
+import { closeDb, getDb } from '../src/db/client.server';
+import { seedDemo } from '../src/db/seed.server';
+import { getConfig } from '../src/server/config';
+
+const config = getConfig();
+if (!config.DEMO) {
+  console.log('DEMO is off: nothing seeded. Create the first admin with `npm run db:seed` and DEMO=true, or insert one by hand.');
+  process.exit(0);
+}
+try {
+  const r = await seedDemo(getDb(), config.DEMO_PASSWORD);
+  console.log(`demo data seeded: ${r.users} accounts, ${r.materials} materials`);
+} catch (err) {
+  console.error(`seeding failed: ${err instanceof Error ? err.message : String(err)}`);
+  process.exitCode = 1;
+} finally {
+  await closeDb();
+}

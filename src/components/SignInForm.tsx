@@ -1,0 +1,41 @@
+import { useState, type FormEvent } from 'react';
+// @ts-expect-error auth-astro/client ships without types for this entry
+import { signIn } from 'auth-astro/client';
+
+interface Props { next: string; initialError?: string | null }
+
+/** E-mail and password sign-in. One generic message for every failure. */
+export default function SignInForm({ next, initialError = null }: Props) {
+  const [error, setError] = useState<string | null>(initialError);
+  const [busy, setBusy] = useState(false);
+
+  async function onSubmit(e: FormEvent<HTMLFormElement>) {
+    e.preventDefault();
+    const form = new FormData(e.currentTarget);
+    setBusy(true);
+    setError(null);
+    const res = await signIn('credentials', { email: form.get('email'), password: form.get('password'), redirect: false });
+    const url = typeof res === 'object' && res && 'url' in res ? String(res.url) : '';
+    if (!res || (res as { ok?: boolean }).ok === false || url.includes('error=')) {
+      setBusy(false);
+      setError('That e-mail and password do not match an active account, or there have been too many attempts. Wait a minute and try again.');
+      return;
+    }
+    window.location.href = next.startsWith('/') ? next : '/';
+  }
+
+  return (
+    <form onSubmit={onSubmit} className="space-y-4" noValidate>
+      <div>
+        <label htmlFor="email" className="label">E-mail</label>
+        <input id="email" name="email" type="email" autoComplete="username" required className="field" />
+      </div>
+      <div>
+        <label htmlFor="password" className="label">Password</label>
+        <input id="password" name="password" type="password" autoComplete="current-password" required className="field" />
+      </div>
+      {error && <p role="alert" className="error-text">{error}</p>}
+      <button type="submit" className="btn-primary w-full justify-center" disabled={busy}>{busy ? 'Signing in…' : 'Sign in'}</button>
+    </form>
+  );
+}

@@ -1,0 +1,46 @@
+// Every request passes here: origin check for cookie-authenticated writes, who the caller is,
+// and turning away anonymous callers (pages redirect to /signin, the API answers 401 JSON).
+// Each endpoint still checks the role itself (src/server/http.ts requireRole).
+import { defineMiddleware } from 'astro:middleware';
+import { AppError, errors } from './server/errors';
+import { errorResponse } from './server/http';
+import { resolveRequestUser } from './server/auth/request-user.server';
+
+const PUBLIC_PREFIXES = ['/signin', '/api/auth/', '/api/health', '/share/', '/api/share/', '/_astro/', '/favicon'];
+const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
+
+const isPublic = (path: string) => PUBLIC_PREFIXES.some((p) => path === p.replace(/\/$/, '') || path.startsWith(p));
+
+export const onRequest = defineMiddleware(async (ctx, next) => {
+  const { request, url } = ctx;
+  const path = url.pathname;
+  const isApi = path.startsWith('/api/');
+  ctx.locals.user = null;
+
+  // Same rule as Astro's own origin check, for every content type, but a request that carries
+  // a Bearer token is exempt: browsers never attach one on their own, so it cannot be forged
+  // cross-site, and a data-acquisition PC's `curl -F` sends no Origin header.
+  const bearer = /^bearer\s+/i.test(request.headers.get('authorization') ?? '');
+  if (!SAFE_METHODS.has(request.method) && !bearer && !path.startsWith('/api/auth/') && !path.startsWith('/api/share/') && !path.startsWith('/share/')) {
+    if (request.headers.get('origin') !== url.origin) return errorResponse(errors.crossOrigin());
+  }
+
+  if (path.startsWith('/api/auth/') || path.startsWith('/_astro/')) return next();
+
+  try {
+    ctx.locals.user = await resolveRequestUser(request);
+  } catch (err) {
+    if (err instanceof AppError) return errorResponse(err);
+    console.error('resolving the caller failed:', err);
+    if (isApi) return errorResponse(errors.unavailable('The database is not answering; try again shortly.'));
+    if (!isPublic(path)) return new Response('Hoopline cannot reach its database right now. Try again shortly.', { status: 503 });
+    return next();
+  }
+
+  if (!ctx.locals.user && !isPublic(path)) {
+    if (isApi) return errorResponse(errors.unauthenticated());
+    const back = encodeURIComponent(path + url.search);
+    return ctx.redirect(`/signin?next=${back}`, 302);
+  }
+  return next();
+});

@@ -1,0 +1,61 @@
+// An HTTP client for tests that signs in through Auth.js like a browser does and keeps cookies.
+import { inject } from 'vitest';
+
+export const baseUrl = () => inject('baseUrl');
+
+export class Client {
+  private cookies = new Map<string, string>();
+  constructor(private bearer: string | null = null) {}
+
+  static withToken(token: string) { return new Client(token); }
+
+  cookieHeader(): string {
+    return [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ');
+  }
+
+  private keep(res: Response) {
+    for (const c of res.headers.getSetCookie()) {
+      const [pair] = c.split(';');
+      const i = pair!.indexOf('=');
+      const name = pair!.slice(0, i);
+      const value = pair!.slice(i + 1);
+      if (/expires=Thu, 01 Jan 1970/i.test(c) || value === '') this.cookies.delete(name);
+      else this.cookies.set(name, value);
+    }
+  }
+
+  async fetch(path: string, init: RequestInit & { json?: unknown } = {}): Promise<Response> {
+    const headers = new Headers(init.headers);
+    if (this.cookies.size) headers.set('cookie', this.cookieHeader());
+    if (this.bearer) headers.set('authorization', `Bearer ${this.bearer}`);
+    let body = init.body;
+    if (init.json !== undefined) { headers.set('content-type', 'application/json'); body = JSON.stringify(init.json); }
+    const method = (init.method ?? 'GET').toUpperCase();
+    if (!['GET', 'HEAD'].includes(method) && !this.bearer && !headers.has('origin')) headers.set('origin', baseUrl());
+    const res = await fetch(baseUrl() + path, { ...init, headers, body, redirect: 'manual' });
+    this.keep(res);
+    return res;
+  }
+
+  async json<T = any>(path: string, init: RequestInit & { json?: unknown } = {}): Promise<{ status: number; body: T }> {
+    const res = await this.fetch(path, init);
+    const text = await res.text();
+    let body: any = text;
+    try { body = JSON.parse(text); } catch { /* not JSON */ }
+    return { status: res.status, body };
+  }
+
+  /** Sign in with the credentials provider; resolves to true when a session cookie was set. */
+  async signIn(email: string, password = inject('testPassword')): Promise<boolean> {
+    const csrf = await this.json<{ csrfToken: string }>('/api/auth/csrf');
+    const form = new URLSearchParams({ csrfToken: csrf.body.csrfToken, email, password, callbackUrl: baseUrl() + '/' });
+    await this.fetch('/api/auth/callback/credentials', { method: 'POST', body: form, headers: { 'content-type': 'application/x-www-form-urlencoded' } });
+    return [...this.cookies.keys()].some((k) => k.includes('session-token'));
+  }
+}
+
+export async function signedIn(email: string): Promise<Client> {
+  const c = new Client();
+  if (!(await c.signIn(email))) throw new Error(`could not sign in as ${email}`);
+  return c;
+}

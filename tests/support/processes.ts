@@ -1,0 +1,39 @@
+// Helpers shared by the global setup and tests that start their own app or worker processes.
+import { randomBytes } from 'node:crypto';
+
+export const TEST_PASSWORD = 'test-password-only';
+
+/** The environment an app server or worker needs to reach the test services. */
+export function serverEnv(o: { dbUrl: string; s3Endpoint: string; bucket: string; smtpPort: number; mailDir: string; baseUrl: string }): Record<string, string> {
+  return {
+    DATABASE_URL: o.dbUrl,
+    S3_ENDPOINT: o.s3Endpoint,
+    S3_BUCKET: o.bucket,
+    S3_REGION: 'us-east-1',
+    S3_ACCESS_KEY_ID: 'S3RVER',
+    S3_SECRET_ACCESS_KEY: 'S3RVER',
+    S3_FORCE_PATH_STYLE: 'true',
+    SMTP_HOST: '127.0.0.1',
+    SMTP_PORT: String(o.smtpPort),
+    MAIL_DIR: o.mailDir,
+    PUBLIC_BASE_URL: o.baseUrl,
+    AUTH_SECRET: randomBytes(24).toString('hex'),
+    DEMO: 'false',
+    ASTRO_TELEMETRY_DISABLED: '1',
+    AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: 'true',
+  };
+}
+
+/** Poll a URL until it answers (any status) or the time runs out. */
+export async function waitForHttp(url: string, timeoutMs: number): Promise<void> {
+  const deadline = Date.now() + timeoutMs;
+  for (;;) {
+    try {
+      await fetch(url, { signal: AbortSignal.timeout(1000) });
+      return;
+    } catch {
+      if (Date.now() > deadline) throw new Error(`${url} did not answer within ${timeoutMs} ms`);
+      await new Promise((r) => setTimeout(r, 150));
+    }
+  }
+}
