@@ -71,7 +71,7 @@ fi
 HOST=$HOST PORT=$PORT node dist/server/entry.mjs > .data/server.log 2>&1 &
 pids+=($!)
 if [ -f src/server/jobs/worker-main.ts ]; then
-  node node_modules/tsx/dist/cli.mjs src/server/jobs/worker-main.ts > .data/worker.log 2>&1 &
+  node --import tsx src/server/jobs/worker-main.ts > .data/worker.log 2>&1 &
   pids+=($!)
 fi
 for _ in $(seq 1 100); do

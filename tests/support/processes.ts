@@ -19,6 +19,9 @@ export function serverEnv(o: { dbUrl: string; s3Endpoint: string; bucket: string
     PUBLIC_BASE_URL: o.baseUrl,
     AUTH_SECRET: randomBytes(24).toString('hex'),
     DEMO: 'false',
+    UPLOAD_MAX_BYTES: String(48 * 1024 * 1024),
+    WORKER_LEASE_SECONDS: '5',
+    WORKER_POLL_MS: '100',
     ASTRO_TELEMETRY_DISABLED: '1',
     AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: 'true',
   };
@@ -36,4 +39,23 @@ export async function waitForHttp(url: string, timeoutMs: number): Promise<void>
       await new Promise((r) => setTimeout(r, 150));
     }
   }
+}
+
+import { spawn, type ChildProcess } from 'node:child_process';
+
+/** Start a reduction worker process (the real `npm run worker` entry) against the test services. */
+export function startWorker(env: Record<string, string>, id: string, extra: Record<string, string> = {}): ChildProcess {
+  return spawn(process.execPath, ['--import', 'tsx', 'src/server/jobs/worker-main.ts'], {
+    env: { ...process.env, ...env, WORKER_ID: id, ...extra },
+    stdio: ['ignore', 'ignore', 'inherit'],
+  });
+}
+
+/** Stop a worker and wait for it to exit. */
+export async function stopProcess(child: ChildProcess, signal: NodeJS.Signals = 'SIGTERM'): Promise<void> {
+  if (child.exitCode !== null || child.signalCode !== null) return;
+  await new Promise<void>((resolve) => {
+    child.once('exit', () => resolve());
+    child.kill(signal);
+  });
 }

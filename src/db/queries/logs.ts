@@ -1,0 +1,13 @@
+import { and, asc, eq } from 'drizzle-orm';
+import type { Db } from '../client.server';
+import { logFiles, type NewLogFile } from '../schema';
+
+export const listLogs = (db: Db, testId: number) => db.select().from(logFiles).where(eq(logFiles.testId, testId)).orderBy(asc(logFiles.id));
+
+export const findLogBySha = (db: Db, testId: number, sha256: string) =>
+  db.query.logFiles.findFirst({ where: and(eq(logFiles.testId, testId), eq(logFiles.sha256, sha256)) });
+
+export async function insertLog(db: Db, l: NewLogFile) {
+  const [row] = await db.insert(logFiles).values(l).$returningId();
+  return row!.id;
+}

@@ -1,0 +1,20 @@
+import { getDb } from '../../../db/client.server';
+import { findMaterial } from '../../../db/queries/vessels';
+import { editMaterial, materialBody } from '../../../server/catalog.server';
+import { errors } from '../../../server/errors';
+import { endpoint, idParam, json, readJson, requireRole, roleSets } from '../../../server/http';
+
+export const GET = endpoint(async (ctx) => {
+  requireRole(ctx, ...roleSets.anyone);
+  const m = await findMaterial(getDb(), idParam(ctx.params.id, 'material'));
+  if (!m) throw errors.notFound('material');
+  return json(m);
+});
+
+export const PATCH = endpoint(async (ctx) => {
+  const user = requireRole(ctx, ...roleSets.engineer);
+  const id = idParam(ctx.params.id, 'material');
+  const patch = await readJson(ctx.request, materialBody.partial());
+  await editMaterial(user, id, patch);
+  return json(await findMaterial(getDb(), id));
+});

@@ -1,0 +1,41 @@
+import { z } from 'zod';
+import { getDb } from '../../../db/client.server';
+import { listLogs } from '../../../db/queries/logs';
+import { findReduction } from '../../../db/queries/reductions';
+import { findTestWithVessel, updateTest } from '../../../db/queries/tests';
+import { auditBy } from '../../../server/audit.server';
+import { errors } from '../../../server/errors';
+import { endpoint, idParam, json, readJson, requireRole, roleSets } from '../../../server/http';
+import { loadTest } from '../../../server/plans.server';
+
+/** GET /api/tests/{id} — the test's summary. */
+export const GET = endpoint(async (ctx) => {
+  requireRole(ctx, ...roleSets.anyone);
+  const id = idParam(ctx.params.id, 'test');
+  const db = getDb();
+  const row = await findTestWithVessel(db, id);
+  if (!row) throw errors.notFound('test');
+  const [logs, reduction] = await Promise.all([listLogs(db, id), row.test.currentReductionId ? findReduction(db, row.test.currentReductionId) : undefined]);
+  const { plan: _plan, ...test } = row.test;
+  return json({
+    ...test,
+    vessel: row.vessel,
+    material: row.material,
+    owner: row.owner,
+    logCount: logs.length,
+    currentReduction: reduction ? { id: reduction.id, status: reduction.status, engineVersion: reduction.engineVersion, finishedAt: reduction.finishedAt } : null,
+  });
+});
+
+const patchBody = z.object({ name: z.string().trim().min(1).max(200) });
+
+/** PATCH /api/tests/{id} {name} — engineer; 409 once released. */
+export const PATCH = endpoint(async (ctx) => {
+  const user = requireRole(ctx, ...roleSets.engineer);
+  const id = idParam(ctx.params.id, 'test');
+  const body = await readJson(ctx.request, patchBody);
+  await loadTest(id, true);
+  await updateTest(getDb(), id, { name: body.name });
+  await auditBy(user, 'test-renamed', id, { name: body.name });
+  return json({ id, name: body.name });
+});

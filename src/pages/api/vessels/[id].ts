@@ -1,0 +1,22 @@
+import { z } from 'zod';
+import { getDb } from '../../../db/client.server';
+import { findVessel } from '../../../db/queries/vessels';
+import { editVessel } from '../../../server/catalog.server';
+import { errors } from '../../../server/errors';
+import { endpoint, idParam, json, readJson, requireRole, roleSets } from '../../../server/http';
+
+export const GET = endpoint(async (ctx) => {
+  requireRole(ctx, ...roleSets.anyone);
+  const v = await findVessel(getDb(), idParam(ctx.params.id, 'vessel'));
+  if (!v) throw errors.notFound('vessel');
+  return json(v);
+});
+
+/** PATCH /api/vessels/{id} — engineer; the merged vessel is validated as a whole. */
+export const PATCH = endpoint(async (ctx) => {
+  const user = requireRole(ctx, ...roleSets.engineer);
+  const id = idParam(ctx.params.id, 'vessel');
+  const patch = await readJson(ctx.request, z.record(z.string(), z.unknown()));
+  await editVessel(user, id, patch);
+  return json(await findVessel(getDb(), id));
+});

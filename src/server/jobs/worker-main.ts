@@ -1,0 +1,40 @@
+// `npm run worker`: a reduction worker process. Several may run, on one machine or several;
+// they share the MariaDB queue (FOR UPDATE SKIP LOCKED + leases). SIGINT/SIGTERM: finish or
+// give back the current job, then exit.
+import { hostname } from 'node:os';
+import { closeDb, getDb } from '../../db/client.server';
+import { releaseReduction } from '../../db/queries/reductions';
+import { getConfig } from '../config';
+import { runNextReduction } from './reduction-job.server';
+import { reductionNotices } from './notices.server';
+
+const config = getConfig();
+const workerId = process.env.WORKER_ID || `${hostname()}-${process.pid}`;
+let stopping = false;
+let current: number | null = null;
+
+async function stop() {
+  if (stopping) return;
+  stopping = true;
+  console.log(`[${workerId}] stopping`);
+  if (current !== null) await releaseReduction(getDb(), current, workerId).catch(() => undefined);
+  await closeDb();
+  process.exit(0);
+}
+process.on('SIGINT', stop);
+process.on('SIGTERM', stop);
+
+console.log(`[${workerId}] reduction worker started (lease ${config.WORKER_LEASE_SECONDS} s, poll ${config.WORKER_POLL_MS} ms)`);
+while (!stopping) {
+  try {
+    const handled = await runNextReduction(workerId, { ...reductionNotices, onClaimed: (id) => { current = id; } });
+    current = null;
+    if (handled !== null) {
+      console.log(`[${workerId}] handled reduction ${handled}`);
+      continue;
+    }
+  } catch (err) {
+    console.error(`[${workerId}] queue error (will retry):`, err instanceof Error ? err.message : err);
+  }
+  await new Promise((r) => setTimeout(r, config.WORKER_POLL_MS));
+}

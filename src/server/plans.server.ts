@@ -1,0 +1,104 @@
+// Tests and their plans: validate a plan with the engine's schema, create or match its
+// material and vessel, keep the gauge rows in step, and refuse changes to a released test.
+import { getDb } from '../db/client.server';
+import { findTest, insertTest, replaceGauges, updateTest } from '../db/queries/tests';
+import { insertMaterial, insertVessel, matchMaterial, matchVessel } from '../db/queries/vessels';
+import type { Test } from '../db/schema';
+import { parsePlan, type Plan } from '../lib/reduction/plan';
+import { inToMm, psiToMPa } from '../lib/reduction/units';
+import { auditBy } from './audit.server';
+import { AppError, errors } from './errors';
+import type { RequestUser } from './http';
+
+/** Validate a plan; an invalid plan answers 422 with every problem listed by field. */
+export function validatePlan(raw: unknown): Plan {
+  try {
+    return parsePlan(raw);
+  } catch (err) {
+    const e = err as { name?: string; message: string; details?: unknown };
+    if (e.name === 'InputError') throw new AppError(422, 'invalid-plan', e.message, e.details);
+    throw err;
+  }
+}
+
+/** The plan's material and vessel in SI (the database's units). */
+export function planToSI(plan: Plan) {
+  const len = (v: number) => (plan.units === 'US' ? inToMm(v) : v);
+  const stress = (v: number) => (plan.units === 'US' ? psiToMPa(v) : v);
+  return {
+    material: { name: plan.material.name?.trim() || 'Unnamed material', elasticModulusMPa: stress(plan.material.elasticModulus), poissonRatio: plan.material.poissonRatio, yieldStrengthMPa: stress(plan.material.yieldStrength) },
+    vessel: {
+      shape: plan.vessel.shape,
+      ends: plan.vessel.ends,
+      insideDiameterMm: len(plan.vessel.insideDiameter),
+      wallThicknessMm: len(plan.vessel.wallThickness),
+      lengthMm: plan.vessel.length === undefined ? null : len(plan.vessel.length),
+      features: plan.vessel.features.map((f) => ({ ...f, axialPosition: len(f.axialPosition), size: f.size === undefined ? undefined : len(f.size) })),
+    },
+  };
+}
+
+/** The vessel and material a plan describes: matched by values, created when new. */
+async function resolveVessel(plan: Plan, user: RequestUser): Promise<number> {
+  const db = getDb();
+  const si = planToSI(plan);
+  const material = await matchMaterial(db, si.material);
+  const materialId = material?.id ?? (await insertMaterial(db, si.material));
+  const match = await matchVessel(db, { ...si.vessel, materialId });
+  if (match) return match.id;
+  const stamp = Date.now().toString(36).toUpperCase();
+  return insertVessel(db, {
+    tag: plan.vessel.name?.trim() ? `${plan.vessel.name.trim().slice(0, 40)}-${stamp}` : `V-${stamp}`,
+    name: plan.vessel.name?.trim() || `Vessel from plan (${plan.vessel.shape}, ID ${plan.vessel.insideDiameter} ${plan.units === 'US' ? 'in' : 'mm'})`,
+    ...si.vessel,
+    materialId,
+    units: plan.units,
+    createdBy: user.id,
+  });
+}
+
+function gaugeRows(plan: Plan) {
+  return plan.gauges.map((g) => ({
+    gaugeId: g.id,
+    kind: g.kind,
+    channels: g.channels,
+    angleDeg: g.angleDeg,
+    gaugeFactor: g.gaugeFactor,
+    instrumentGaugeFactor: g.instrumentGaugeFactor,
+    transverseSensitivity: g.transverseSensitivity,
+    distanceToDiscontinuity: g.distanceToDiscontinuity ?? null,
+    axialPosition: g.axialPosition ?? null,
+    clockDeg: g.clockDeg ?? null,
+  }));
+}
+
+/** POST /api/tests: a new test in `draft` from a name and a plan. */
+export async function createTestFromPlan(user: RequestUser, name: string, rawPlan: unknown, vesselId?: number): Promise<number> {
+  const plan = validatePlan(rawPlan);
+  const db = getDb();
+  const vid = vesselId ?? (await resolveVessel(plan, user));
+  const id = await insertTest(db, { name, vesselId: vid, plan: rawPlan, ownerId: user.id });
+  await replaceGauges(db, id, gaugeRows(plan));
+  await auditBy(user, 'test-created', id, { name, vesselId: vid, gauges: plan.gauges.length });
+  return id;
+}
+
+/** The test, or 404; with `forWrite`, 409 when it is released. */
+export async function loadTest(id: number, forWrite = false): Promise<Test> {
+  const test = await findTest(getDb(), id);
+  if (!test) throw errors.notFound('test');
+  if (forWrite && test.status === 'released') throw errors.released();
+  return test;
+}
+
+/** PUT /api/tests/{id}/plan: replace the plan. Results of a plan that changed need a new reduction. */
+export async function replacePlan(user: RequestUser, testId: number, rawPlan: unknown): Promise<void> {
+  const test = await loadTest(testId, true);
+  const plan = validatePlan(rawPlan);
+  const db = getDb();
+  const vesselId = await resolveVessel(plan, user);
+  const status = test.status === 'reduced' || test.status === 'reviewed' ? 'logging' : test.status;
+  await updateTest(db, testId, { plan: rawPlan, vesselId, status });
+  await replaceGauges(db, testId, gaugeRows(plan));
+  await auditBy(user, 'plan-changed', testId, { gauges: plan.gauges.length, statusBefore: test.status, statusAfter: status });
+}

@@ -1,0 +1,217 @@
+// Receives a log upload as a stream (multipart field `file`, or a raw text/csv body): checks
+// the header from the first 64 KB before anything is stored, then streams the bytes to object
+// storage while hashing, counting and keeping only the last few KB. Nothing is written to the
+// database until the object is complete, and a refused upload leaves no object behind.
+import busboy from 'busboy';
+import { createHash, randomUUID } from 'node:crypto';
+import { PassThrough, Readable, Transform, type TransformCallback } from 'node:stream';
+import { getDb } from '../db/client.server';
+import { findLogBySha, insertLog } from '../db/queries/logs';
+import { updateTest } from '../db/queries/tests';
+import type { LogFile, Test } from '../db/schema';
+import { inspectLogHead } from '../lib/reduction';
+import type { Plan } from '../lib/reduction/plan';
+import { auditBy } from './audit.server';
+import { getConfig } from './config';
+import { AppError, errors } from './errors';
+import type { RequestUser } from './http';
+import { deleteObject, putObjectStream } from './storage.server';
+
+const HEAD_BYTES = 64 * 1024;
+const TAIL_BYTES = 8 * 1024;
+
+interface IncomingFile { stream: Readable; filename: string }
+
+/** The file's byte stream: the multipart field `file`, or the raw body. */
+async function openIncomingFile(request: Request): Promise<IncomingFile> {
+  if (!request.body) throw errors.invalid('The request has no body: send the log as multipart field `file` or as a text/csv body.');
+  const type = request.headers.get('content-type') ?? '';
+  const body = Readable.fromWeb(request.body as import('node:stream/web').ReadableStream);
+  if (!type.toLowerCase().startsWith('multipart/form-data')) {
+    const name = request.headers.get('x-filename') ?? 'log.csv';
+    return { stream: body, filename: name.slice(0, 255) };
+  }
+  return new Promise((resolve, reject) => {
+    let bb: busboy.Busboy;
+    try {
+      bb = busboy({ headers: { 'content-type': type }, limits: { files: 1, fields: 20 } });
+    } catch {
+      reject(errors.invalid('The multipart body could not be read (no boundary in Content-Type).'));
+      return;
+    }
+    let found = false;
+    bb.on('file', (field, stream, info) => {
+      if (field !== 'file' || found) { stream.resume(); return; }
+      found = true;
+      resolve({ stream, filename: (info.filename || 'log.csv').slice(0, 255) });
+    });
+    bb.on('error', () => reject(errors.invalid('The multipart body is malformed.')));
+    bb.on('close', () => { if (!found) reject(errors.invalid('The multipart body has no field named `file`.')); });
+    body.pipe(bb);
+  });
+}
+
+/** Read until `HEAD_BYTES` are buffered or the stream ends; returns the head and whether it ended. */
+async function readHead(stream: Readable, limit: number): Promise<{ head: Buffer; ended: boolean }> {
+  const parts: Buffer[] = [];
+  let size = 0;
+  for (;;) {
+    const chunk: Buffer | null = stream.read();
+    if (chunk) {
+      parts.push(chunk);
+      size += chunk.length;
+      if (size > limit) throw errors.tooLarge(limit);
+      if (size >= HEAD_BYTES) return { head: Buffer.concat(parts), ended: false };
+      continue;
+    }
+    if (stream.readableEnded) return { head: Buffer.concat(parts), ended: true };
+    const more = await new Promise<boolean>((resolve, reject) => {
+      const onReadable = () => { cleanup(); resolve(true); };
+      const onEnd = () => { cleanup(); resolve(false); };
+      const onError = (e: Error) => { cleanup(); reject(e); };
+      const cleanup = () => { stream.off('readable', onReadable); stream.off('end', onEnd); stream.off('error', onError); };
+      stream.once('readable', onReadable);
+      stream.once('end', onEnd);
+      stream.once('error', onError);
+    });
+    if (!more) return { head: Buffer.concat(parts), ended: true };
+  }
+}
+
+/** Hashes, counts bytes and non-empty lines, keeps the tail; errors past the size limit. */
+class LogMeter extends Transform {
+  readonly hash = createHash('sha256');
+  bytes = 0;
+  lines = 0;
+  private lineHasContent = false;
+  tail = Buffer.alloc(0);
+  constructor(private readonly limit: number) { super(); }
+  override _transform(chunk: Buffer, _enc: BufferEncoding, done: TransformCallback) {
+    this.bytes += chunk.length;
+    if (this.bytes > this.limit) { done(errors.tooLarge(this.limit)); return; }
+    this.hash.update(chunk);
+    for (let i = 0; i < chunk.length; i++) {
+      const b = chunk[i]!;
+      if (b === 10) { if (this.lineHasContent) this.lines++; this.lineHasContent = false; }
+      else if (b !== 13 && b !== 32 && b !== 9) this.lineHasContent = true;
+    }
+    this.tail = Buffer.concat([this.tail, chunk]).subarray(-TAIL_BYTES);
+    done(null, chunk);
+  }
+  override _flush(done: TransformCallback) {
+    if (this.lineHasContent) this.lines++;
+    done();
+  }
+}
+
+/** Time value of a data line (seconds, or epoch seconds for ISO timestamps), or null. */
+function timeOf(line: string | undefined, column: number, delimiter: string, decimalComma: boolean): number | null {
+  if (!line || column < 0) return null;
+  const cell = line.split(delimiter)[column]?.trim().replace(/^"|"$/g, '');
+  if (!cell) return null;
+  const n = Number(decimalComma ? cell.replace(',', '.') : cell);
+  if (Number.isFinite(n)) return n;
+  const t = Date.parse(cell);
+  return Number.isFinite(t) ? t / 1000 : null;
+}
+
+export interface UploadOutcome { log: LogFile; created: boolean }
+
+/** POST /api/tests/{id}/logs. Throws AppError 400/413/422; 503 when storage fails. */
+export async function receiveLogUpload(request: Request, test: Test, plan: Plan, user: RequestUser): Promise<UploadOutcome> {
+  const limit = getConfig().UPLOAD_MAX_BYTES;
+  const declared = Number(request.headers.get('content-length') ?? NaN);
+  if (Number.isFinite(declared) && declared > limit + 64 * 1024) throw errors.tooLarge(limit);
+
+  const incoming = await openIncomingFile(request);
+  const { stream } = incoming;
+  let head: Buffer;
+  let ended: boolean;
+  try {
+    ({ head, ended } = await readHead(stream, limit));
+  } catch (err) {
+    stream.resume();
+    throw err;
+  }
+  const headText = head.toString('utf8');
+  let info: ReturnType<typeof inspectLogHead>;
+  try {
+    if (head.length === 0) throw new AppError(422, 'empty-file', 'The file is empty.');
+    if (head.includes(0)) throw new AppError(422, 'not-delimited-text', 'The file is not delimited text (it holds binary bytes). Upload the CSV export of the data-acquisition unit.');
+    info = inspectLogHead(plan, headText);
+    if (info.duplicateColumns.length) throw new AppError(422, 'duplicate-column', `Column ${info.duplicateColumns.map((c) => `'${c}'`).join(', ')} appears more than once in the header (line ${info.headerLine}).`, { line: info.headerLine, columns: info.duplicateColumns });
+    if (info.missingColumns.length) throw new AppError(422, 'missing-column', `The header (line ${info.headerLine}) lacks column${info.missingColumns.length > 1 ? 's' : ''} ${info.missingColumns.map((c) => `'${c}'`).join(', ')} that the plan maps. Fix the plan's column names or the log.`, { line: info.headerLine, missingColumns: info.missingColumns, columns: info.columns });
+  } catch (err) {
+    stream.resume();
+    if ((err as { name?: string }).name === 'InputError') {
+      const e = err as { code: string; message: string; details?: unknown };
+      throw new AppError(422, e.code, e.message, e.details);
+    }
+    throw err;
+  }
+
+  const meter = new LogMeter(limit);
+  const body = new PassThrough();
+  body.pipe(meter);
+  body.write(head);
+  if (ended) body.end();
+  else stream.pipe(body);
+  stream.on('error', (e) => meter.destroy(e));
+
+  const key = `tests/${test.id}/logs/${randomUUID()}.csv`;
+  try {
+    await putObjectStream(key, meter, 'text/csv');
+  } catch (err) {
+    stream.resume();
+    await deleteObject(key).catch(() => undefined);
+    if (err instanceof AppError) throw err;
+    if (meter.bytes > limit) throw errors.tooLarge(limit);
+    console.error('log upload to object storage failed:', err);
+    throw errors.unavailable('Object storage did not take the file; nothing was stored. Try again shortly.');
+  }
+
+  const sha256 = meter.hash.digest('hex');
+  const db = getDb();
+  const existing = await findLogBySha(db, test.id, sha256);
+  if (existing) {
+    await deleteObject(key).catch(() => undefined);
+    return { log: existing, created: false };
+  }
+  const timeIndex = plan.columns.time ? info.columns.indexOf(plan.columns.time) : -1;
+  const headLines = headText.split(/\r?\n/);
+  const firstData = headLines.slice(info.headerLine).find((l) => l.trim().length > 0);
+  const tailLines = meter.tail.toString('utf8').split(/\r?\n/).filter((l) => l.trim().length > 0);
+  const columnMap = {
+    delimiter: info.delimiter,
+    decimalComma: info.decimalComma,
+    headerLine: info.headerLine,
+    columns: info.columns,
+    pressureUnit: info.pressureUnit,
+    preview: info.previewRows.slice(0, 10),
+    mapping: { pressure: plan.columns.pressure, time: plan.columns.time ?? null, channels: plan.gauges.flatMap((g) => g.channels) },
+  };
+  let id: number;
+  try {
+    id = await insertLog(db, {
+      testId: test.id,
+      objectKey: key,
+      filename: incoming.filename,
+      sha256,
+      sizeBytes: meter.bytes,
+      rows: Math.max(0, meter.lines - info.headerLine),
+      timeStart: timeOf(firstData, timeIndex, info.delimiter, info.decimalComma),
+      timeEnd: timeOf(tailLines.at(-1), timeIndex, info.delimiter, info.decimalComma),
+      columnMap,
+      uploadedBy: user.id,
+    });
+  } catch (err) {
+    await deleteObject(key).catch(() => undefined);
+    const again = await findLogBySha(db, test.id, sha256);
+    if (again) return { log: again, created: false };
+    throw err;
+  }
+  await updateTest(db, test.id, { status: test.status === 'released' ? 'released' : 'logging' });
+  await auditBy(user, 'log-uploaded', test.id, { logId: id, filename: incoming.filename, sha256, bytes: meter.bytes });
+  const log = (await findLogBySha(db, test.id, sha256))!;
+  return { log, created: true };
+}
