@@ -125,6 +125,8 @@ export interface ReductionResult {
     peakPressure: number;
     pressureUnitInLog: string | null;
     usedHolds: boolean;
+    /** ISO 8601 time of the first sample, when the time column holds timestamps (added by the engine) */
+    startTime?: string;
   };
 }
 

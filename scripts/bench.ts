@@ -1,0 +1,149 @@
+// Benchmark of the reduction CLI against a papaparse-only parse of the same file (issue 3).
+//   npm run bench            (logs are generated once into bench-out/, which git ignores)
+// Generates a 900 Hz nine-hold test (time, pressure, 18 gauge channels) of about 1 M rows and a
+// 250 k-row one, then runs, each in its own child process: the CLI (node --import tsx
+// scripts/reduce.ts) and papaparse with header + dynamicTyping streaming the file and counting
+// rows. Wall time is measured around the child; peak RSS from /usr/bin/time -v when available,
+// else from the child's own process.resourceUsage().maxRSS.
+import { spawnSync } from 'node:child_process';
+import { createWriteStream, existsSync, mkdirSync, readFileSync, statSync, writeFileSync } from 'node:fs';
+import { once } from 'node:events';
+import { join, resolve } from 'node:path';
+import { performance } from 'node:perf_hooks';
+import { parsePlan, type PlanInput } from '../src/lib/reduction/index';
+import { syntheticLogChunks } from '../src/lib/reduction/testing/synthetic-log';
+
+const root = resolve(import.meta.dirname, '..');
+const outDir = join(root, 'bench-out');
+mkdirSync(outDir, { recursive: true });
+
+const planInput: PlanInput = {
+  units: 'SI',
+  vessel: { shape: 'cylinder', ends: 'closed', insideDiameter: 1800, wallThickness: 16, length: 6000 },
+  material: { elasticModulus: 200000, poissonRatio: 0.3, yieldStrength: 260 },
+  testPressure: 3.4,
+  columns: { time: 'time_s', pressure: 'P [MPa]' },
+  gauges: [
+    ...Array.from({ length: 6 }, (_, i) => ({ id: `U${i + 1}`, kind: 'uniaxial' as const, channels: [`SG${i + 1}`], angleDeg: i % 2 ? 0 : 90, distanceToDiscontinuity: 1500 })),
+    ...Array.from({ length: 4 }, (_, i) => ({
+      id: `R${i + 1}`,
+      kind: 'rosette-rectangular' as const,
+      channels: [`SG${7 + 3 * i}`, `SG${8 + 3 * i}`, `SG${9 + 3 * i}`],
+      angleDeg: 0,
+      transverseSensitivity: 0.01,
+      distanceToDiscontinuity: 1500,
+    })),
+  ],
+};
+const plan = parsePlan(planInput);
+const planPath = join(outDir, 'bench-plan.json');
+writeFileSync(planPath, JSON.stringify(planInput, null, 2));
+
+const RATE = 900;
+async function ensureLog(name: string, targetRows: number): Promise<string> {
+  const path = join(outDir, name);
+  const metaPath = path + '.meta.json';
+  if (existsSync(path) && existsSync(metaPath) && JSON.parse(readFileSync(metaPath, 'utf8')).targetRows === targetRows) return path;
+  // nine holds and eight ramps, hold:ramp ≈ 2:1, sized to the row count at 900 Hz
+  const duration = targetRows / RATE;
+  const ramp = duration / (9 * 2 + 8);
+  const hold = 2 * ramp;
+  process.stderr.write(`generating ${name} (${targetRows} rows)… `);
+  const t0 = performance.now();
+  const ws = createWriteStream(path);
+  for (const chunk of syntheticLogChunks(plan, { rateHz: RATE, holdSeconds: hold, rampSeconds: ramp, seed: 7, strainNoise: 2, chunkRows: 5000, format: { digits: 2 } })) {
+    if (!ws.write(chunk)) await once(ws, 'drain');
+  }
+  ws.end();
+  await once(ws, 'finish');
+  writeFileSync(metaPath, JSON.stringify({ targetRows }));
+  process.stderr.write(`${((performance.now() - t0) / 1000).toFixed(1)} s\n`);
+  return path;
+}
+
+const papaScript = join(outDir, 'papaparse-only.cjs');
+writeFileSync(
+  papaScript,
+  `// papaparse with header + dynamicTyping, streaming the file, counting rows
+const fs = require('node:fs');
+const Papa = require(${JSON.stringify(join(root, 'node_modules/papaparse'))});
+let rows = 0;
+Papa.parse(fs.createReadStream(process.argv[2]), {
+  header: true, dynamicTyping: true, skipEmptyLines: true,
+  chunk: (r) => { rows += r.data.length; },
+  complete: () => { process.stdout.write(JSON.stringify({ rows, maxRSSkB: process.resourceUsage().maxRSS }) + '\\n'); },
+});
+`,
+);
+
+const haveTime = existsSync('/usr/bin/time');
+interface Run {
+  wallS: number;
+  rssMB: number | null;
+  ok: boolean;
+  out: string;
+}
+function run(cmd: string[]): Run {
+  const args = haveTime ? ['-v', ...cmd] : cmd;
+  const t0 = performance.now();
+  const r = spawnSync(haveTime ? '/usr/bin/time' : cmd[0]!, haveTime ? args : cmd.slice(1), { cwd: root, maxBuffer: 1 << 28, encoding: 'utf8' });
+  const wallS = (performance.now() - t0) / 1000;
+  let rssMB: number | null = null;
+  const m = /Maximum resident set size \(kbytes\): (\d+)/.exec(r.stderr ?? '');
+  if (m) rssMB = Number(m[1]) / 1024;
+  else {
+    const j = /"maxRSSkB":(\d+)/.exec(r.stdout ?? '');
+    if (j) rssMB = Number(j[1]) / 1024;
+  }
+  return { wallS, rssMB, ok: r.status === 0, out: r.status === 0 ? r.stdout : (r.stderr ?? '').split('\n').filter((l) => !/^\s/.test(l) && l).slice(-3).join(' | ') };
+}
+
+const cliCmd = (log: string) => [process.execPath, '--import', 'tsx', 'scripts/reduce.ts', planPath, log, '--compact'];
+
+async function main() {
+  const small = await ensureLog('hydrotest-250k.csv', 250_000);
+  const big = await ensureLog('hydrotest-1m.csv', 1_000_000);
+  const rows: { name: string; sizeMB: number; cli: Run; papa: Run; verdict: string; holds: number; dataRows: number }[] = [];
+  for (const [name, path] of [['250 k rows', small], ['1 M rows', big]] as const) {
+    const papa = run([process.execPath, papaScript, path]);
+    const cli = run(cliCmd(path));
+    let verdict = '?', holds = 0, dataRows = 0;
+    if (cli.ok) {
+      const res = JSON.parse(cli.out);
+      verdict = res.verdict;
+      holds = res.holds.length;
+      dataRows = res.log.rows;
+    }
+    rows.push({ name, sizeMB: statSync(path).size / 2 ** 20, cli, papa, verdict, holds, dataRows });
+  }
+  const pad = (s: string, n: number) => s.padEnd(n);
+  const f = (x: number | null, d = 2) => (x === null ? 'n/a' : x.toFixed(d));
+  const lines: string[] = [];
+  lines.push(`Hoopline reduction benchmark — node ${process.version}, ${haveTime ? 'peak RSS from /usr/bin/time -v' : 'peak RSS from process.resourceUsage()'}`);
+  lines.push('');
+  lines.push(pad('log', 12) + pad('size MB', 9) + pad('rows', 10) + pad('CLI s', 8) + pad('papa s', 8) + pad('ratio', 7) + pad('CLI RSS MB', 12) + pad('papa RSS MB', 13) + 'result');
+  for (const r of rows) {
+    const ratio = r.cli.wallS / r.papa.wallS;
+    lines.push(
+      pad(r.name, 12) + pad(f(r.sizeMB, 1), 9) + pad(String(r.dataRows), 10) + pad(f(r.cli.wallS), 8) + pad(f(r.papa.wallS), 8) + pad(f(ratio), 7) + pad(f(r.cli.rssMB, 0), 12) + pad(f(r.papa.rssMB, 0), 13) +
+        (r.cli.ok ? `${r.verdict}, ${r.holds} holds` : `CLI failed: ${r.cli.out}`),
+    );
+  }
+  const [s, b] = rows as [(typeof rows)[0], (typeof rows)[0]];
+  const ratioBig = b.cli.wallS / b.papa.wallS;
+  const growth = b.cli.rssMB !== null && s.cli.rssMB !== null ? b.cli.rssMB - s.cli.rssMB : null;
+  const ok = (c: boolean) => (c ? 'met' : 'NOT met');
+  lines.push('');
+  lines.push('targets (1 M rows):');
+  lines.push(`  wall time ratio CLI / papaparse ≤ 1.0 ........ ${f(ratioBig)}  ${ok(ratioBig <= 1)}`);
+  lines.push(`  stretch ratio ≤ 0.6 ........................... ${f(ratioBig)}  ${ok(ratioBig <= 0.6)}`);
+  lines.push(`  peak RSS ≤ 300 MB ............................. ${f(b.cli.rssMB, 0)} MB  ${ok((b.cli.rssMB ?? Infinity) <= 300)}`);
+  lines.push(`  memory flat, 250 k → 1 M rows (≤ 25 MB growth) . ${growth === null ? 'n/a' : `${growth >= 0 ? '+' : ''}${growth.toFixed(0)} MB`}  ${ok(growth !== null && growth <= 25)}`);
+  lines.push(`  all runs succeeded ............................ ${ok(rows.every((r) => r.cli.ok && r.papa.ok))}`);
+  process.stdout.write(lines.join('\n') + '\n');
+}
+
+main().catch((e) => {
+  process.stderr.write(`bench failed: ${e instanceof Error ? e.message : String(e)}\n`);
+  process.exitCode = 1;
+});

@@ -1,0 +1,241 @@
+// Streaming hold detection. A hold is a run of samples whose pressure stays within ±band of the
+// run's mean for at least the minimum duration and does not drift by more than the band over its
+// settled part (which tells a hold from a slow ramp). Memory per run is bounded: the run's sums are
+// kept in at most MAX_BLOCKS blocks whose size doubles as the run grows, so the settled part (the
+// run without its first settleFraction) is known at the end to within 1/32 of the run.
+import type { HoldBranch } from './types';
+
+export interface HoldSettings {
+  /** half-width of the band, plan pressure unit */
+  bandAbs: number;
+  /** seconds (or samples when time is the sample index) */
+  minDuration: number;
+  minSamples: number;
+  settleFraction: number;
+  /** an excursion out of the band shorter than this many samples and gapSeconds does not end a hold */
+  maxGapSamples?: number;
+  gapSeconds?: number;
+}
+
+/** A detected hold with the sums of every slot over its settled part. */
+export interface RawHold {
+  start: number;
+  end: number;
+  settledStart: number;
+  pressure: number;
+  /** samples in the settled part */
+  samples: number;
+  slotSum: Float64Array;
+  slotCount: Float64Array;
+}
+
+const MAX_BLOCKS = 64;
+
+interface Block {
+  n: number;
+  startIndex: number;
+  t0: number;
+  t1: number;
+  sumT: number;
+  sumP: number;
+  sumTT: number;
+  sumTP: number;
+  slotSum: Float64Array;
+  slotCount: Float64Array;
+}
+
+export class HoldDetector {
+  private readonly s: Required<HoldSettings>;
+  private readonly nSlots: number;
+  private readonly blocks: Block[] = [];
+  private nb = 0;
+  private blockSize = 1;
+  private runN = 0;
+  private runMean = 0;
+  private runT0 = 0;
+  private lastInT = 0;
+  private pending = 0;
+  private readonly out: RawHold[] = [];
+
+  constructor(nSlots: number, settings: HoldSettings) {
+    this.nSlots = nSlots;
+    this.s = { maxGapSamples: 3, gapSeconds: 0.5, ...settings };
+    for (let i = 0; i < MAX_BLOCKS; i++)
+      this.blocks.push({ n: 0, startIndex: 0, t0: 0, t1: 0, sumT: 0, sumP: 0, sumTT: 0, sumTP: 0, slotSum: new Float64Array(nSlots), slotCount: new Float64Array(nSlots) });
+  }
+
+  /** One sample: time, pressure (finite) and the slot values (NaN = missing). */
+  push(t: number, p: number, slots: Float64Array): void {
+    if (this.runN === 0) return this.startRun(t, p, slots);
+    if (Math.abs(p - this.runMean) <= this.s.bandAbs) {
+      this.pending = 0;
+      this.add(t, p, slots);
+    } else {
+      this.pending++;
+      if (this.pending > this.s.maxGapSamples && t - this.lastInT > this.s.gapSeconds) {
+        this.closeRun();
+        this.startRun(t, p, slots);
+      }
+    }
+  }
+
+  /** Close the last run and return every hold found, in time order. */
+  finish(): RawHold[] {
+    if (this.runN > 0) this.closeRun(true);
+    this.runN = 0;
+    return this.out;
+  }
+
+  private startRun(t: number, p: number, slots: Float64Array) {
+    this.runN = 0;
+    this.runMean = p;
+    this.runT0 = t;
+    this.pending = 0;
+    this.nb = 0;
+    this.blockSize = 1;
+    this.add(t, p, slots);
+  }
+
+  private resetBlock(b: Block, startIndex: number, t: number) {
+    b.n = 0;
+    b.startIndex = startIndex;
+    b.t0 = t;
+    b.t1 = t;
+    b.sumT = b.sumP = b.sumTT = b.sumTP = 0;
+    b.slotSum.fill(0);
+    b.slotCount.fill(0);
+  }
+
+  private add(t: number, p: number, slots: Float64Array) {
+    let b = this.nb > 0 ? this.blocks[this.nb - 1]! : undefined;
+    if (!b || b.n >= this.blockSize) {
+      if (this.nb === MAX_BLOCKS) {
+        this.compact();
+      }
+      b = this.blocks[this.nb++]!;
+      this.resetBlock(b, this.runN, t);
+    }
+    this.runN++;
+    this.runMean += (p - this.runMean) / this.runN;
+    this.lastInT = t;
+    const tr = t - this.runT0;
+    b.n++;
+    b.t1 = t;
+    b.sumT += tr;
+    b.sumP += p;
+    b.sumTT += tr * tr;
+    b.sumTP += tr * p;
+    const ss = b.slotSum, sc = b.slotCount;
+    for (let k = 0; k < this.nSlots; k++) {
+      const v = slots[k]!;
+      if (v === v) {
+        ss[k] += v;
+        sc[k]++;
+      }
+    }
+  }
+
+  /** Merge blocks pairwise (64 → 32) and double the block size. */
+  private compact() {
+    const bl = this.blocks;
+    for (let i = 0; i < MAX_BLOCKS / 2; i++) {
+      const a = bl[2 * i]!, c = bl[2 * i + 1]!, dst = bl[i]!;
+      if (dst !== a) {
+        dst.n = a.n; dst.startIndex = a.startIndex; dst.t0 = a.t0; dst.t1 = a.t1;
+        dst.sumT = a.sumT; dst.sumP = a.sumP; dst.sumTT = a.sumTT; dst.sumTP = a.sumTP;
+        dst.slotSum.set(a.slotSum);
+        dst.slotCount.set(a.slotCount);
+      }
+      dst.n += c.n; dst.t1 = c.t1;
+      dst.sumT += c.sumT; dst.sumP += c.sumP; dst.sumTT += c.sumTT; dst.sumTP += c.sumTP;
+      for (let k = 0; k < this.nSlots; k++) {
+        dst.slotSum[k] += c.slotSum[k]!;
+        dst.slotCount[k] += c.slotCount[k]!;
+      }
+    }
+    this.nb = MAX_BLOCKS / 2;
+    this.blockSize *= 2;
+  }
+
+  /** atEnd: the run was cut by the end of the log, so a ramp may look short: a stricter drift limit. */
+  private closeRun(atEnd = false) {
+    const { runN } = this;
+    const duration = this.lastInT - this.runT0;
+    if (runN < this.s.minSamples || duration < this.s.minDuration || this.nb === 0) return;
+    const settleIndex = Math.ceil(this.s.settleFraction * runN);
+    let first = 0;
+    while (first < this.nb - 1 && this.blocks[first]!.startIndex < settleIndex) first++;
+    let n = 0, sumT = 0, sumP = 0, sumTT = 0, sumTP = 0;
+    const slotSum = new Float64Array(this.nSlots);
+    const slotCount = new Float64Array(this.nSlots);
+    for (let i = first; i < this.nb; i++) {
+      const b = this.blocks[i]!;
+      n += b.n; sumT += b.sumT; sumP += b.sumP; sumTT += b.sumTT; sumTP += b.sumTP;
+      for (let k = 0; k < this.nSlots; k++) {
+        slotSum[k] += b.slotSum[k]!;
+        slotCount[k] += b.slotCount[k]!;
+      }
+    }
+    if (n < 2) return;
+    const settledStart = this.blocks[first]!.t0;
+    const denom = n * sumTT - sumT * sumT;
+    const slope = denom > 0 ? (n * sumTP - sumT * sumP) / denom : 0;
+    const drift = Math.abs(slope) * (this.lastInT - settledStart);
+    if (drift > (atEnd ? 0.25 : 1) * this.s.bandAbs) return; // a ramp, not a hold
+    this.out.push({ start: this.runT0, end: this.lastInT, settledStart, pressure: sumP / n, samples: n, slotSum, slotCount });
+  }
+}
+
+export interface ClassifiedHold extends RawHold {
+  index: number;
+  branch: HoldBranch;
+}
+
+/**
+ * Merge neighbouring holds at the same level, then name the branches: the highest hold splits
+ * loading from unloading; holds at zero before it are `zero`, a last hold at zero is `return`.
+ */
+export function classifyHolds(raw: readonly RawHold[], bandAbs: number, zeroBand: number): { holds: ClassifiedHold[]; peakIndex: number } {
+  const merged: RawHold[] = [];
+  for (const h of raw) {
+    const prev = merged[merged.length - 1];
+    if (prev && Math.abs(prev.pressure - h.pressure) <= bandAbs) {
+      const n = prev.samples + h.samples;
+      const slotSum = prev.slotSum.slice();
+      const slotCount = prev.slotCount.slice();
+      for (let k = 0; k < slotSum.length; k++) {
+        slotSum[k] += h.slotSum[k]!;
+        slotCount[k] += h.slotCount[k]!;
+      }
+      merged[merged.length - 1] = {
+        start: prev.start,
+        end: h.end,
+        settledStart: prev.settledStart,
+        pressure: (prev.pressure * prev.samples + h.pressure * h.samples) / n,
+        samples: n,
+        slotSum,
+        slotCount,
+      };
+    } else merged.push(h);
+  }
+  let peakIndex = -1;
+  merged.forEach((h, i) => {
+    if (peakIndex < 0 || h.pressure > merged[peakIndex]!.pressure) peakIndex = i;
+  });
+  const holds = merged.map((h, i): ClassifiedHold => {
+    const atZero = Math.abs(h.pressure) <= zeroBand;
+    let branch: HoldBranch;
+    if (i <= peakIndex) branch = atZero && i !== peakIndex ? 'zero' : 'loading';
+    else branch = atZero && i === merged.length - 1 ? 'return' : 'unloading';
+    return { ...h, index: i, branch };
+  });
+  return { holds, peakIndex };
+}
+
+/** Detect and classify holds in arrays of time and pressure (for tests and small logs). */
+export function detectHolds(t: readonly number[], p: readonly number[], settings: HoldSettings, zeroBand = 2 * settings.bandAbs): ClassifiedHold[] {
+  const det = new HoldDetector(0, settings);
+  const none = new Float64Array(0);
+  for (let i = 0; i < Math.min(t.length, p.length); i++) if (Number.isFinite(p[i]!)) det.push(t[i]!, p[i]!, none);
+  return classifyHolds(det.finish(), settings.bandAbs, zeroBand).holds;
+}

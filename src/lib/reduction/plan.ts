@@ -1,0 +1,218 @@
+// The test plan (DESIGN 4.1) as a zod schema: the plan editor validates with it in the browser,
+// the API and the CLI parse plan files with parsePlan. Only zod may be imported here.
+import { z } from 'zod';
+import { InputError, type InputIssue } from './errors';
+
+type IssueLike = { input?: unknown };
+/** Error function: a missing field says "is required", a wrong type says what it must be. */
+const expect = (what: string) => ({
+  error: (iss: IssueLike) => (iss.input === undefined ? 'is required' : `must be ${what}`),
+});
+const quote = (v: unknown) => (typeof v === 'string' ? `'${v}'` : JSON.stringify(v));
+const oneOf = (values: readonly string[]) => ({
+  error: (iss: IssueLike) =>
+    iss.input === undefined
+      ? 'is required'
+      : `must be one of ${values.join(', ')} (got ${quote(iss.input)})`,
+});
+
+const num = () => z.number(expect('a number'));
+const positive = () => num().gt(0, 'must be greater than 0');
+const nonNegative = () => num().gte(0, 'must not be negative');
+const fraction = (max = 1) => num().gte(0, 'must not be negative').lte(max, `must be at most ${max}`);
+const text = () => z.string(expect('a text')).trim().min(1, 'must not be empty');
+
+export const SHAPES = ['cylinder', 'sphere'] as const;
+export const ENDS = ['closed', 'open'] as const;
+export const GAUGE_KINDS = ['uniaxial', 'rosette-rectangular', 'rosette-delta'] as const;
+export const FEATURE_KINDS = ['head', 'nozzle', 'support', 'thickness-change'] as const;
+export const MODELS = ['lame', 'membrane'] as const;
+
+export const featureSchema = z.object({
+  id: z.string().optional(),
+  name: z.string().optional(),
+  kind: z.enum(FEATURE_KINDS, oneOf(FEATURE_KINDS)),
+  /** from the reference end, plan length unit */
+  axialPosition: num(),
+  /** 0–360 around the circumference; absent = the feature runs all the way round */
+  clockDeg: num().gte(0, 'must be between 0 and 360').lte(360, 'must be between 0 and 360').optional(),
+  /** nozzle bore or pad diameter, plan length unit */
+  size: nonNegative().optional(),
+});
+
+export const vesselSchema = z.object({
+  name: z.string().optional(),
+  shape: z.enum(SHAPES, oneOf(SHAPES)),
+  ends: z.enum(ENDS, oneOf(ENDS)).default('closed'),
+  insideDiameter: positive(),
+  wallThickness: positive(),
+  length: positive().optional(),
+  features: z.array(featureSchema, expect('a list')).default([]),
+});
+
+export const materialSchema = z.object({
+  name: z.string().optional(),
+  elasticModulus: positive(),
+  poissonRatio: num()
+    .gte(0, "must be between 0 and 0.5 (Poisson's ratio)")
+    .lte(0.5, "must be between 0 and 0.5 (Poisson's ratio)"),
+  yieldStrength: positive(),
+});
+
+/** Acceptance thresholds (DESIGN 3.3); every one has the default stated there. */
+export const tolerancesSchema = z.object({
+  slopeBand: num().gt(0, 'must be greater than 0').lte(1, 'must be at most 1 (a fraction: 0.10 for ±10 %)').default(0.1),
+  minRSquared: fraction().default(0.995),
+  hysteresis: fraction().default(0.05),
+  zeroShiftMicrostrain: nonNegative().default(20),
+  zeroShiftFraction: fraction().default(0.02),
+  noResponseMicrostrain: nonNegative().default(10),
+  yieldFraction: num().gt(0, 'must be greater than 0').lte(2, 'must be at most 2').default(0.9),
+});
+
+/**
+ * Hold detection. Defaults fit logs from 1 Hz to 1 kHz: a hold is a span where pressure stays
+ * within ±band·testPressure of its running mean for at least minDurationSeconds (and minSamples),
+ * without drifting more than the band; its first settleFraction is dropped before averaging.
+ */
+export const holdDetectionSchema = z.object({
+  band: num().gt(0, 'must be greater than 0').lte(0.25, 'must be at most 0.25 (a fraction of test pressure)').default(0.02),
+  minDurationSeconds: nonNegative().default(10),
+  minSamples: z.number(expect('a whole number')).int('must be a whole number').gte(2, 'must be at least 2').default(5),
+  settleFraction: num().gte(0, 'must not be negative').lte(0.9, 'must be at most 0.9').default(0.3),
+});
+
+export const gaugeSchema = z.object({
+  id: text(),
+  label: z.string().optional(),
+  notes: z.string().optional(),
+  kind: z.enum(GAUGE_KINDS, oneOf(GAUGE_KINDS)),
+  /** column names in the log header: one for a uniaxial gauge, A, B, C for a rosette */
+  channels: z.array(text(), expect('a list of column names')).min(1, 'must name at least one column'),
+  /** from the vessel axis: 0 axial, 90 hoop; for a rosette, grid A's direction */
+  angleDeg: num().gte(-360, 'must be between −360 and 360').lte(360, 'must be between −360 and 360'),
+  gaugeFactor: positive().default(2.0),
+  /** gauge factor set on the instrument; defaults to the gauge's own */
+  instrumentGaugeFactor: positive().optional(),
+  /** Kt as a fraction (0.02 for 2 %) */
+  transverseSensitivity: num()
+    .gte(-0.1, 'must be between −0.1 and 0.1 (a fraction: 0.02 for 2 %)')
+    .lte(0.1, 'must be between −0.1 and 0.1 (a fraction: 0.02 for 2 %)')
+    .default(0),
+  distanceToDiscontinuity: nonNegative().optional(),
+  axialPosition: num().optional(),
+  clockDeg: num().gte(0, 'must be between 0 and 360').lte(360, 'must be between 0 and 360').optional(),
+});
+
+const CHANNELS_BY_KIND: Record<(typeof GAUGE_KINDS)[number], number> = {
+  uniaxial: 1,
+  'rosette-rectangular': 3,
+  'rosette-delta': 3,
+};
+
+export const planSchema = z
+  .object({
+    name: z.string().optional(),
+    notes: z.string().optional(),
+    units: z.enum(['SI', 'US'], oneOf(['SI', 'US'])),
+    vessel: vesselSchema,
+    material: materialSchema,
+    model: z.enum(MODELS, oneOf(MODELS)).default('lame'),
+    /** plan pressure unit: MPa (SI) or psi (US) */
+    testPressure: positive(),
+    columns: z.object({ pressure: text(), time: text().optional() }),
+    tolerances: tolerancesSchema.prefault({}),
+    holdDetection: holdDetectionSchema.prefault({}),
+    gauges: z.array(gaugeSchema, expect('a list of gauges')).min(1, 'must list at least one gauge'),
+  })
+  .superRefine((plan, ctx) => {
+    const issue = (path: (string | number)[], message: string) =>
+      ctx.addIssue({ code: 'custom', path, message });
+    const { vessel, material } = plan;
+    // Plausibility of E catches GPa (or Msi) typed where MPa (psi) is expected.
+    if (plan.units === 'SI' && material.elasticModulus < 500)
+      issue(['material', 'elasticModulus'], `${material.elasticModulus} MPa is implausibly low: enter MPa (200 GPa = 200000)`);
+    if (plan.units === 'US' && material.elasticModulus < 70000)
+      issue(['material', 'elasticModulus'], `${material.elasticModulus} psi is implausibly low: enter psi (29.5 Msi = 29500000)`);
+    if (material.yieldStrength >= material.elasticModulus)
+      issue(['material', 'yieldStrength'], 'must be smaller than the elastic modulus (same unit)');
+    if (vessel.shape === 'cylinder' && vessel.length === undefined)
+      issue(['vessel', 'length'], 'is required for a cylinder');
+    const ids = new Map<string, number>();
+    const channels = new Map<string, string>();
+    const reserved = new Set([plan.columns.pressure, plan.columns.time].filter(Boolean) as string[]);
+    plan.gauges.forEach((g, i) => {
+      if (ids.has(g.id)) issue(['gauges', i, 'id'], `duplicate gauge id '${g.id}' (also gauges[${ids.get(g.id)}])`);
+      else ids.set(g.id, i);
+      if (g.id.includes('/')) issue(['gauges', i, 'id'], "must not contain '/' (used for rosette grids, e.g. R1/A)");
+      const want = CHANNELS_BY_KIND[g.kind];
+      if (g.channels.length !== want)
+        issue(
+          ['gauges', i, 'channels'],
+          want === 1
+            ? `a uniaxial gauge needs exactly 1 channel, got ${g.channels.length}`
+            : `a ${g.kind} needs exactly 3 channels (grids A, B, C), got ${g.channels.length}`,
+        );
+      g.channels.forEach((c, k) => {
+        if (reserved.has(c)) issue(['gauges', i, 'channels', k], `'${c}' is the pressure or time column`);
+        else if (channels.has(c)) issue(['gauges', i, 'channels', k], `channel '${c}' is already used by gauge ${channels.get(c)}`);
+        else channels.set(c, g.id);
+      });
+      if (g.axialPosition !== undefined && vessel.length !== undefined && vessel.shape === 'cylinder' &&
+        (g.axialPosition < 0 || g.axialPosition > vessel.length))
+        issue(['gauges', i, 'axialPosition'], `must be between 0 and the vessel length ${vessel.length}`);
+    });
+  })
+  .transform((plan) => ({
+    ...plan,
+    gauges: plan.gauges.map((g) => ({ ...g, instrumentGaugeFactor: g.instrumentGaugeFactor ?? g.gaugeFactor })),
+  }));
+
+export type Plan = z.infer<typeof planSchema>;
+export type PlanInput = z.input<typeof planSchema>;
+export type PlanGauge = Plan['gauges'][number];
+export type PlanFeature = Plan['vessel']['features'][number];
+
+/** `['gauges', 1, 'channels']` → `gauges[1].channels` */
+export function formatPath(path: readonly PropertyKey[]): string {
+  let s = '';
+  for (const p of path) {
+    if (typeof p === 'number') s += `[${p}]`;
+    else s += (s ? '.' : '') + String(p);
+  }
+  return s || 'plan';
+}
+
+/** Every problem of a plan as {path, message}; empty when the plan is valid. For the editor. */
+export function listPlanIssues(input: unknown): InputIssue[] {
+  const r = planSchema.safeParse(input);
+  if (r.success) return [];
+  return r.error.issues.map((i) => ({ path: formatPath(i.path), message: i.message }));
+}
+
+/**
+ * Validate a plan (an object, or its JSON text) and fill in defaults. Throws InputError
+ * `invalid-plan` whose message names the first field, e.g. "vessel.wallThickness: must be greater than 0".
+ */
+export function parsePlan(input: unknown): Plan {
+  let value = input;
+  if (typeof input === 'string') {
+    try {
+      value = JSON.parse(input);
+    } catch (e) {
+      throw new InputError('invalid-plan', `plan: not valid JSON (${(e as Error).message})`, {
+        path: 'plan',
+        issues: [{ path: 'plan', message: 'not valid JSON' }],
+      });
+    }
+  }
+  const r = planSchema.safeParse(value);
+  if (r.success) return r.data;
+  const issues = r.error.issues.map((i) => ({
+    path: formatPath(i.path),
+    message: i.path.length === 0 && i.code === 'invalid_type' ? 'must be a JSON object' : i.message,
+  }));
+  const first = issues[0]!;
+  const more = issues.length > 1 ? ` (and ${issues.length - 1} more problem${issues.length > 2 ? 's' : ''})` : '';
+  throw new InputError('invalid-plan', `${first.path}: ${first.message}${more}`, { path: first.path, issues });
+}
