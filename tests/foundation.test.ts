@@ -1,7 +1,6 @@
 // Foundation: schema, sign-in, roles, API tokens, object storage, mail, health.
 import { describe, expect, it } from 'vitest';
 import { inject } from 'vitest';
-import { readdirSync, readFileSync } from 'node:fs';
 import path from 'node:path';
 import { spawn } from 'node:child_process';
 import { runRootSql, startMariaDB, stopMariaDB } from '../fake-services/mariadb.mjs';
@@ -119,10 +118,10 @@ describe('local services', () => {
     const { sendMail } = await import('../src/server/mail.server');
     const subject = `Hoopline check ${Date.now()}`;
     await sendMail('inspector@example.com', subject, 'Hello from the tests.');
-    const dir = inject('mailDir');
-    const found = readdirSync(dir).filter((f) => f.endsWith('.eml')).map((f) => readFileSync(path.join(dir, f), 'utf8')).find((m) => m.includes(subject));
-    expect(found).toBeDefined();
-    expect(found).toContain('inspector@example.com');
+    const { waitForMail } = await import('./support/mail');
+    const found = await waitForMail(inject('mailDir'), (m) => m.subject === subject, 5000);
+    expect(found.to).toContain('inspector@example.com');
+    expect(found.text).toContain('Hello from the tests.');
   });
 
   it('health answers 200 when all is up and 503 when the database is stopped', async () => {

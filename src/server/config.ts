@@ -33,6 +33,7 @@ export const configSchema = z.object({
   UPLOAD_MAX_BYTES: z.coerce.number().int().positive().default(512 * 1024 * 1024),
   WORKER_LEASE_SECONDS: z.coerce.number().int().min(5).default(60),
   WORKER_POLL_MS: z.coerce.number().int().min(50).default(1000),
+  MAIL_RETRY_SECONDS: z.coerce.number().min(0.1).default(30),
 });
 
 export type Config = z.infer<typeof configSchema>;

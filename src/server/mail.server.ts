@@ -24,3 +24,9 @@ export function getMailer(): Transporter {
 export async function sendMail(to: string, subject: string, text: string): Promise<void> {
   await getMailer().sendMail({ from: getConfig().MAIL_FROM, to, subject, text });
 }
+
+/** Forget the transport (tests point the mailer at another SMTP server). */
+export function resetMailerForTests(): void {
+  transport?.close();
+  transport = null;
+}

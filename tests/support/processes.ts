@@ -22,6 +22,7 @@ export function serverEnv(o: { dbUrl: string; s3Endpoint: string; bucket: string
     UPLOAD_MAX_BYTES: String(48 * 1024 * 1024),
     WORKER_LEASE_SECONDS: '5',
     WORKER_POLL_MS: '100',
+    MAIL_RETRY_SECONDS: '0.5',
     ASTRO_TELEMETRY_DISABLED: '1',
     AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: 'true',
   };

@@ -1,5 +1,29 @@
-// E-mail notices after a reduction (issue: review and release). Placeholder hooks object that
-// the worker passes to runNextReduction; filled in with the outbox.
+// E-mail notices after a reduction: the engineer who owns the test hears when it finishes or
+// fails. The worker also drains the outbox, so mail queued while SMTP was down goes out later.
+import { getDb } from '../../db/client.server';
+import { findTest } from '../../db/queries/tests';
+import { findUserById } from '../../db/queries/users';
+import { getConfig } from '../config';
+import { queueMail } from '../outbox.server';
 import type { JobHooks } from './reduction-job.server';
 
-export const reductionNotices: JobHooks = {};
+export const reductionNotices: JobHooks = {
+  async onFinished(job, outcome, detail) {
+    const db = getDb();
+    const test = await findTest(db, job.testId);
+    const owner = test?.ownerId ? await findUserById(db, test.ownerId) : undefined;
+    if (!test || !owner || owner.disabled) return;
+    const link = `${getConfig().PUBLIC_BASE_URL.replace(/\/$/, '')}/tests/${test.id}/review`;
+    if (outcome === 'done') {
+      const flagged = detail.result?.gauges.filter((g) => g.outcome === 'flagged').map((g) => g.id) ?? [];
+      await queueMail(
+        owner.email,
+        `Hoopline: reduction of "${test.name}" finished — ${detail.result?.verdict ?? 'done'}`,
+        `The reduction ${job.id} of "${test.name}" has finished.\nVerdict before dispositions: ${detail.result?.verdict}.\n${flagged.length ? `Flagged gauges: ${flagged.join(', ')}.` : 'No gauge is flagged.'}\n\nReview it: ${link}\n\n— Hoopline`,
+        test.id,
+      );
+    } else {
+      await queueMail(owner.email, `Hoopline: reduction of "${test.name}" failed`, `The reduction ${job.id} of "${test.name}" failed:\n${detail.error}\n\nSee: ${link}\n\n— Hoopline`, test.id);
+    }
+  },
+};

@@ -7,6 +7,7 @@ import { releaseReduction } from '../../db/queries/reductions';
 import { getConfig } from '../config';
 import { runNextReduction } from './reduction-job.server';
 import { reductionNotices } from './notices.server';
+import { deliverDueMail } from '../outbox.server';
 
 const config = getConfig();
 const workerId = process.env.WORKER_ID || `${hostname()}-${process.pid}`;
@@ -25,7 +26,12 @@ process.on('SIGINT', stop);
 process.on('SIGTERM', stop);
 
 console.log(`[${workerId}] reduction worker started (lease ${config.WORKER_LEASE_SECONDS} s, poll ${config.WORKER_POLL_MS} ms)`);
+let lastMailAt = 0;
 while (!stopping) {
+  if (Date.now() - lastMailAt >= config.WORKER_POLL_MS) {
+    lastMailAt = Date.now();
+    await deliverDueMail().catch((err) => console.error(`[${workerId}] outbox:`, err instanceof Error ? err.message : err));
+  }
   try {
     const handled = await runNextReduction(workerId, { ...reductionNotices, onClaimed: (id) => { current = id; } });
     current = null;

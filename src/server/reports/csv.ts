@@ -1,0 +1,143 @@
+// The pass/flag summary as CSV: a header block of `# key,value` lines, then one row per gauge,
+// then the rosettes. Sections are separated by a blank line and a `# section,<name>` line, so a
+// reader that skips `#` comment lines gets two plain tables.
+import Papa from 'papaparse';
+import {
+  REPORT_CAUTION,
+  buildGaugeColumns,
+  buildRosetteColumns,
+  countOutcomes,
+  formatFixed,
+  formatIsoUtc,
+  formatPercent,
+  formatPlain,
+  isSignatureStale,
+  neutraliseFormula,
+  precisionFor,
+  MODEL_LABELS,
+} from './format';
+import { assertReportInputConsistent, unitLabels, type ReportInput } from './report-input';
+
+/** RFC 4180 line ends; spreadsheet programs accept them everywhere. */
+const NEWLINE = '\r\n';
+/** Byte-order mark: without it several spreadsheet programs read UTF-8 as a legacy code page and garble µ. */
+const BOM = '\uFEFF';
+
+export const CSV_CONTENT_TYPE = 'text/csv; charset=utf-8';
+
+type HeaderEntry = [key: string, value: string];
+
+/**
+ * Render the summary CSV. The string starts with a BOM: encode it as UTF-8 unchanged
+ * (e.g. `new Response(csv, { headers: { 'content-type': CSV_CONTENT_TYPE } })`).
+ */
+export function renderSummaryCsv(input: ReportInput): string {
+  assertReportInputConsistent(input);
+  const header = buildHeaderEntries(input).map(([key, value]) => [`# ${key}`, value]);
+
+  const gaugeColumns = buildGaugeColumns(input);
+  const gaugeRows = input.result.gauges.map((g) =>
+    gaugeColumns.map((c) => (c.freeText ? neutraliseFormula(c.value(g)) : c.value(g))),
+  );
+  const rosetteColumns = buildRosetteColumns(input);
+  const rosetteRows = input.result.rosettes.map((r) => rosetteColumns.map((c) => c.value(r)));
+
+  const blocks = [
+    unparse([['# Hoopline hydrotest strain summary'], ...header]),
+    unparse([['# section', 'gauges'], gaugeColumns.map((c) => c.csv), ...gaugeRows]),
+    unparse([['# section', 'rosettes'], rosetteColumns.map((c) => c.csv), ...rosetteRows]),
+  ];
+  return BOM + blocks.join(NEWLINE + NEWLINE) + NEWLINE;
+}
+
+function unparse(rows: string[][]): string {
+  return Papa.unparse(rows, { newline: NEWLINE, quotes: false, header: false });
+}
+
+/** The header block as key/value pairs, keys plain ASCII with units in the name. */
+function buildHeaderEntries(input: ReportInput): HeaderEntry[] {
+  const u = unitLabels(input.units);
+  const p = precisionFor(input.units);
+  const slope = `ue_per_${u.pressure}`;
+  const { predicted } = input.result;
+  const used = predicted[input.model];
+  const text = (s: string) => neutraliseFormula(s);
+  const t = input.tolerances;
+  const counts = countOutcomes(input);
+
+  const entries: HeaderEntry[] = [
+    ['encoding', 'UTF-8 with byte-order mark so spreadsheet programs show µ and ε correctly'],
+    ['record', input.draft ? 'DRAFT' : 'RELEASED'],
+  ];
+  if (input.draft) entries.push(['DRAFT', 'not released: results, dispositions and signatures may still change']);
+  entries.push(
+    ['caution', REPORT_CAUTION],
+    ['generated_at', formatIsoUtc(input.generatedAt)],
+    ['test_id', String(input.test.id)],
+    ['test_name', text(input.test.name)],
+    ['test_status', input.test.status],
+    ['vessel_tag', text(input.vessel.tag)],
+    ['vessel_name', text(input.vessel.name)],
+    ['vessel_shape', input.vessel.shape],
+    ['vessel_ends', input.vessel.shape === 'sphere' ? '' : input.vessel.ends],
+    [`vessel_inside_diameter_${u.length}`, formatPlain(input.vessel.insideDiameter)],
+    [`vessel_wall_thickness_${u.length}`, formatPlain(input.vessel.wallThickness)],
+    [`vessel_length_${u.length}`, formatPlain(input.vessel.length)],
+    ['material_name', text(input.material.name)],
+    [`material_elastic_modulus_${u.stress}`, formatPlain(input.material.elasticModulus)],
+    ['material_poisson_ratio', formatPlain(input.material.poissonRatio)],
+    [`material_yield_strength_${u.stress}`, formatPlain(input.material.yieldStrength)],
+    ['units', input.units],
+    ['model', input.model],
+    ['model_description', MODEL_LABELS[input.model]],
+    [`test_pressure_${u.pressure}`, formatPlain(input.testPressure)],
+    [`predicted_hoop_${slope}_lame`, formatFixed(predicted.lame.hoopStrainPerPressure, p.slope)],
+    [`predicted_axial_${slope}_lame`, formatFixed(predicted.lame.axialStrainPerPressure, p.slope)],
+    [`predicted_hoop_${slope}_membrane`, formatFixed(predicted.membrane.hoopStrainPerPressure, p.slope)],
+    [`predicted_axial_${slope}_membrane`, formatFixed(predicted.membrane.axialStrainPerPressure, p.slope)],
+    ['membrane_over_lame_pct', formatPercent(predicted.membraneOverLame, 2)],
+    [`edge_zone_distance_${u.length}`, formatFixed(predicted.edgeZoneDistance, p.length)],
+    [`hoop_stress_at_test_pressure_${u.stress}`, formatFixed(used.hoopStress, p.stress)],
+    [`axial_stress_at_test_pressure_${u.stress}`, formatFixed(used.axialStress, p.stress)],
+    ['stress_over_yield_at_test_pressure', formatFixed(used.yieldFraction, 3)],
+    ['tolerance_slope_band_pct', formatPercent(t.slopeBand, 1)],
+    ['tolerance_min_r_squared', formatPlain(t.minRSquared)],
+    ['tolerance_hysteresis_pct', formatPercent(t.hysteresis, 1)],
+    ['tolerance_zero_shift_ue', formatPlain(t.zeroShiftMicrostrain)],
+    ['tolerance_zero_shift_pct_of_peak', formatPercent(t.zeroShiftFraction, 1)],
+    ['tolerance_no_response_ue', formatPlain(t.noResponseMicrostrain)],
+    ['tolerance_near_yield_pct', formatPercent(t.yieldFraction, 1)],
+    ['engine_version', input.engineVersion],
+    ['reduction_id', String(input.reductionId)],
+    ['log_count', String(input.logs.length)],
+  );
+  input.logs.forEach((log, i) => {
+    entries.push(
+      [`log_${i + 1}_filename`, text(log.filename)],
+      [`log_${i + 1}_sha256`, log.sha256],
+      [`log_${i + 1}_rows`, log.rows === null ? '' : String(log.rows)],
+    );
+  });
+  entries.push(
+    ['verdict', input.verdict],
+    ['gauges_in_band', String(counts['in-band'])],
+    ['gauges_flagged', String(counts.flagged)],
+    ['gauges_excluded', String(counts.excluded)],
+    ['gauges_not_compared', String(counts['not-compared'])],
+    ['signature_count', String(input.signatures.length)],
+  );
+  input.signatures.forEach((s, i) => {
+    const k = `signature_${i + 1}`;
+    entries.push(
+      [`${k}_kind`, s.kind],
+      [`${k}_name`, text(s.name)],
+      [`${k}_email`, text(s.email)],
+      [`${k}_at`, formatIsoUtc(s.at)],
+      [`${k}_reduction_id`, String(s.reductionId)],
+    );
+    if (isSignatureStale(input, s.reductionId))
+      entries.push([`${k}_note`, `signed reduction ${s.reductionId}, not this reduction ${input.reductionId}`]);
+  });
+  input.result.warnings.forEach((w, i) => entries.push([`warning_${i + 1}`, text(w)]));
+  return entries;
+}

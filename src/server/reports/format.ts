@@ -1,0 +1,183 @@
+// Formatting shared by the CSV and PDF renderers, so both show the same numbers with the same
+// precision, and the column list that both tables are built from.
+import type { FlagCode, GaugeOutcome, GaugeResult, RosetteResult, ShellModel, TestVerdict } from '../../lib/reduction/types';
+import { outcomeOf, unitLabels, type ReportInput, type UnitSystem } from './report-input';
+
+/** Decimal places per quantity; US slopes (µε/psi) are ~145× smaller than SI ones (µε/MPa). */
+export interface Precision {
+  slope: number;
+  stress: number;
+  length: number;
+  distance: number;
+}
+
+export function precisionFor(units: UnitSystem): Precision {
+  return units === 'SI' ? { slope: 2, stress: 1, length: 2, distance: 0 } : { slope: 4, stress: 0, length: 4, distance: 2 };
+}
+
+/** Fixed decimals, '' for null or non-finite, and never "-0.00". */
+export function formatFixed(value: number | null | undefined, decimals: number): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return '';
+  const text = value.toFixed(decimals);
+  return /^-0(\.0+)?$/.test(text) ? text.slice(1) : text;
+}
+
+/** A fraction (0.05) as a percentage number (5.00), fixed decimals. */
+export function formatPercent(fraction: number | null | undefined, decimals = 2): string {
+  if (fraction === null || fraction === undefined || !Number.isFinite(fraction)) return '';
+  return formatFixed(fraction * 100, decimals);
+}
+
+/** A plan value as typed (3.4, 1800), without binary-float noise such as 0.30000000000000004. */
+export function formatPlain(value: number | null | undefined): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return '';
+  return String(Number(value.toPrecision(12)));
+}
+
+/** ISO 8601 in UTC to the second, e.g. 2026-12-01T14:05:00Z. */
+export function formatIsoUtc(at: Date): string {
+  return at.toISOString().replace(/\.\d{3}Z$/, 'Z');
+}
+
+/** Human date and time in UTC for the PDF, e.g. 2026-12-01 14:05 UTC. */
+export function formatDateTimeUtc(at: Date): string {
+  return `${at.toISOString().slice(0, 16).replace('T', ' ')} UTC`;
+}
+
+export const OUTCOME_LABELS: Record<GaugeOutcome, string> = {
+  'in-band': 'in band',
+  flagged: 'flagged',
+  excluded: 'excluded',
+  'not-compared': 'not compared',
+};
+
+export const VERDICT_LABELS: Record<TestVerdict, string> = {
+  conforms: 'Conforms',
+  flagged: 'Flagged',
+  incomplete: 'Incomplete',
+};
+
+export const VERDICT_EXPLANATIONS: Record<TestVerdict, string> = {
+  conforms: 'Every compared gauge is within tolerance, or its flag has been dispositioned by an engineer.',
+  flagged: 'At least one gauge is flagged and has no disposition yet.',
+  incomplete: 'The log has not yet reached test pressure (within 5 %) and returned to zero; results are provisional.',
+};
+
+export const MODEL_LABELS: Record<ShellModel, string> = {
+  lame: 'Lamé thick wall, outer surface',
+  membrane: 'membrane thin wall, mean radius',
+};
+
+export const FLAG_LABELS: Record<FlagCode, string> = {
+  'outside-band': 'slope outside band',
+  nonlinear: 'nonlinear loading',
+  hysteresis: 'hysteresis',
+  'zero-shift': 'zero shift',
+  'no-response': 'no response',
+  'reversed-sign': 'reversed sign',
+  'edge-zone': 'edge zone, not compared',
+  'near-yield': 'near yield',
+};
+
+/** The caution every export carries (DESIGN: reports carry it on every page). */
+export const REPORT_CAUTION =
+  'Caution: a hydrotest stores energy. This comparison supports, and does not replace, the judgement of the ' +
+  'responsible engineer and the authorised inspector; the governing code and the jurisdiction decide.';
+
+/** Spreadsheets run a cell that starts with = + - @ as a formula: quote free text so it stays text. */
+export function neutraliseFormula(text: string): string {
+  return /^[=+\-@\t\r]/.test(text) ? `'${text}` : text;
+}
+
+export interface GaugeColumn {
+  /** plain ASCII CSV header with units, e.g. predicted_slope_ue_per_MPa */
+  csv: string;
+  /** the cell text, already at the column's precision ('' when absent) */
+  value: (g: GaugeResult) => string;
+  /** free text typed by a person (quoted against formula injection in the CSV) */
+  freeText?: boolean;
+}
+
+/** The gauge table's columns in order; the PDF picks from the same list by csv name. */
+export function buildGaugeColumns(input: ReportInput): GaugeColumn[] {
+  const u = unitLabels(input.units);
+  const p = precisionFor(input.units);
+  const slope = `ue_per_${u.pressure}`;
+  const disposition = (g: GaugeResult) => input.dispositions[g.id];
+  return [
+    { csv: 'gauge_id', value: (g) => g.id },
+    { csv: 'channel', value: (g) => g.channel },
+    { csv: 'angle_deg', value: (g) => formatFixed(g.angleDeg, 1) },
+    { csv: `predicted_slope_${slope}`, value: (g) => formatFixed(g.predictedSlope, p.slope) },
+    { csv: `measured_slope_${slope}`, value: (g) => formatFixed(g.measuredSlope, p.slope) },
+    { csv: 'ratio', value: (g) => formatFixed(g.ratio, 4) },
+    { csv: 'deviation_pct', value: (g) => formatPercent(g.deviation, 2) },
+    { csv: `slope_ci95_low_${slope}`, value: (g) => formatFixed(g.slopeCI95?.[0], p.slope) },
+    { csv: `slope_ci95_high_${slope}`, value: (g) => formatFixed(g.slopeCI95?.[1], p.slope) },
+    { csv: 'r_squared', value: (g) => formatFixed(g.rSquared, 5) },
+    { csv: `unloading_slope_${slope}`, value: (g) => formatFixed(g.unloadingSlope, p.slope) },
+    { csv: 'hysteresis_pct', value: (g) => formatPercent(g.hysteresis, 2) },
+    { csv: 'zero_shift_ue', value: (g) => formatFixed(g.zeroShift, 1) },
+    { csv: 'peak_strain_ue', value: (g) => formatFixed(g.peakStrain, 1) },
+    { csv: `effective_thickness_${u.length}`, value: (g) => formatFixed(g.effectiveThickness, p.length) },
+    { csv: `distance_to_discontinuity_${u.length}`, value: (g) => formatFixed(g.distanceToDiscontinuity, p.distance) },
+    { csv: 'flags', value: (g) => g.flags.join(';') },
+    { csv: 'outcome', value: (g) => outcomeOf(input, g.id) },
+    { csv: 'disposition', value: (g) => disposition(g)?.outcome ?? '' },
+    { csv: 'disposition_reason', value: (g) => disposition(g)?.reason ?? '', freeText: true },
+    { csv: 'disposed_by', value: (g) => disposition(g)?.by ?? '', freeText: true },
+    { csv: 'disposed_at', value: (g) => (disposition(g) ? formatIsoUtc(disposition(g)!.at) : '') },
+  ];
+}
+
+export interface RosetteColumn {
+  csv: string;
+  value: (r: RosetteResult) => string;
+}
+
+/** The rosette table's columns: per unit pressure strains, stresses at test pressure. */
+export function buildRosetteColumns(input: ReportInput): RosetteColumn[] {
+  const u = unitLabels(input.units);
+  const p = precisionFor(input.units);
+  const slope = `ue_per_${u.pressure}`;
+  return [
+    { csv: 'rosette_id', value: (r) => r.id },
+    { csv: 'kind', value: (r) => r.kind },
+    { csv: 'angle_deg', value: (r) => formatFixed(r.angleDeg, 1) },
+    { csv: `eps1_${slope}`, value: (r) => formatFixed(r.principalStrains[0], p.slope) },
+    { csv: `eps2_${slope}`, value: (r) => formatFixed(r.principalStrains[1], p.slope) },
+    { csv: `predicted_eps1_${slope}`, value: (r) => formatFixed(r.predictedPrincipalStrains[0], p.slope) },
+    { csv: `predicted_eps2_${slope}`, value: (r) => formatFixed(r.predictedPrincipalStrains[1], p.slope) },
+    { csv: 'principal_angle_from_axis_deg', value: (r) => formatFixed(r.principalAngleDeg, 1) },
+    { csv: `sigma1_at_test_pressure_${u.stress}`, value: (r) => formatFixed(r.principalStresses[0], p.stress) },
+    { csv: `sigma2_at_test_pressure_${u.stress}`, value: (r) => formatFixed(r.principalStresses[1], p.stress) },
+    { csv: `von_mises_at_test_pressure_${u.stress}`, value: (r) => formatFixed(r.vonMises, p.stress) },
+    { csv: 'von_mises_over_yield', value: (r) => formatFixed(r.yieldFraction, 3) },
+    { csv: 'flags', value: (r) => r.flags.join(';') },
+  ];
+}
+
+/** How many gauges ended in each outcome, in a fixed order. */
+export function countOutcomes(input: ReportInput): Record<GaugeOutcome, number> {
+  const counts: Record<GaugeOutcome, number> = { 'in-band': 0, flagged: 0, excluded: 0, 'not-compared': 0 };
+  for (const g of input.result.gauges) counts[outcomeOf(input, g.id)] += 1;
+  return counts;
+}
+
+/** A signature is only good for the reduction it names: say so when that is not this one. */
+export function isSignatureStale(input: ReportInput, reductionId: number): boolean {
+  return reductionId !== input.reductionId;
+}
+
+/** A download name such as hoopline-test-12-north-tank-r34.pdf (ASCII, no spaces). */
+export function buildExportFilename(input: ReportInput, extension: 'csv' | 'pdf'): string {
+  const slug = input.test.name
+    .normalize('NFKD')
+    .replace(/[^\x00-\x7f]/g, '')
+    .toLowerCase()
+    .replace(/[^a-z0-9]+/g, '-')
+    .replace(/^-+|-+$/g, '')
+    .slice(0, 40);
+  const parts = ['hoopline-test', String(input.test.id), slug, `r${input.reductionId}`, input.draft ? 'draft' : ''];
+  return `${parts.filter(Boolean).join('-')}.${extension}`;
+}

@@ -1,0 +1,64 @@
+// Inspector share links: 256 random bits in the URL, only the hash stored; default 14 days,
+// at most 90; revocable; every use is counted and audited.
+import { z } from 'zod';
+import { getDb } from '../db/client.server';
+import { findShareLink, findShareLinkByHash, insertShareLink, revokeShareLink, touchShareLink } from '../db/queries/review';
+import type { ShareLink } from '../db/schema';
+import { audit, auditBy } from './audit.server';
+import { hashToken, newToken } from './auth/tokens.server';
+import { getConfig } from './config';
+import { errors } from './errors';
+import type { RequestUser } from './http';
+import { queueMail } from './outbox.server';
+import { loadTest } from './plans.server';
+
+export const shareLinkBody = z.object({
+  email: z.email('must be an e-mail address').max(254).optional(),
+  expiresInDays: z.number().int().min(1, 'at least 1 day').max(90, 'at most 90 days').default(14),
+});
+
+export async function createShareLink(user: RequestUser, testId: number, body: z.infer<typeof shareLinkBody>) {
+  const test = await loadTest(testId);
+  const token = newToken();
+  const expiresAt = new Date(Date.now() + body.expiresInDays * 86_400_000);
+  const id = await insertShareLink(getDb(), { testId, tokenHash: hashToken(token), email: body.email ?? null, createdBy: user.id, expiresAt });
+  const url = `${getConfig().PUBLIC_BASE_URL.replace(/\/$/, '')}/share/${token}`;
+  await auditBy(user, 'share-link-created', testId, { shareLinkId: id, email: body.email ?? null, expiresAt: expiresAt.toISOString() });
+  if (body.email) {
+    await queueMail(
+      body.email,
+      `Hydrotest record "${test.name}" shared with you`,
+      [
+        `${user.name} has shared the hydrotest strain record "${test.name}" with you through Hoopline.`,
+        '',
+        `Open it (read-only, no account needed): ${url}`,
+        `The link works until ${expiresAt.toUTCString()} unless it is revoked earlier.`,
+        '',
+        'The comparison supports, and does not replace, the judgement of the responsible engineer and the authorised inspector; the governing code and the jurisdiction decide.',
+      ].join('\n'),
+      testId,
+    );
+  }
+  return { id, url, expiresAt };
+}
+
+export async function revokeLink(user: RequestUser, id: number) {
+  const db = getDb();
+  const link = await findShareLink(db, id);
+  if (!link) throw errors.notFound('share link');
+  if (!(await revokeShareLink(db, id))) throw errors.conflict('already-revoked', 'This link was revoked already.');
+  await auditBy(user, 'share-link-revoked', link.testId, { shareLinkId: id });
+}
+
+/** The live link behind a token: 404 unknown, 410 expired or revoked. Counts and audits the use. */
+export async function useShareLink(token: string | undefined, what: string): Promise<ShareLink> {
+  if (!token || token.length < 20 || token.length > 100) throw errors.notFound('share link');
+  const db = getDb();
+  const link = await findShareLinkByHash(db, hashToken(token));
+  if (!link) throw errors.notFound('share link');
+  if (link.revokedAt) throw errors.gone('This link has been revoked. Ask the QA manager who sent it for a new one.');
+  if (link.expiresAt.getTime() <= Date.now()) throw errors.gone('This link has expired. Ask the QA manager who sent it for a new one.');
+  await touchShareLink(db, link.id);
+  await audit({ actor: `share link #${link.id}${link.email ? ` (${link.email})` : ''}`, action: 'share-link-used', testId: link.testId, details: { shareLinkId: link.id, what } });
+  return link;
+}

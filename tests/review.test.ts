@@ -1,0 +1,259 @@
+// Review and release as the four roles over HTTP: dispositions, signatures, the lock, exports,
+// inspector share links with e-mail, the audit trail, and mail that survives an SMTP outage.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { inject } from 'vitest';
+import { eq } from 'drizzle-orm';
+import type { ChildProcess } from 'node:child_process';
+import path from 'node:path';
+import { Client, signedIn } from './support/http';
+import { makeHydrotestCsv } from './support/hydrotest-log';
+import { readMails, waitForMail } from './support/mail';
+import { startWorker, stopProcess } from './support/processes';
+
+const plan = {
+  units: 'SI',
+  vessel: { shape: 'cylinder', ends: 'closed', insideDiameter: 1000, wallThickness: 10, length: 4000 },
+  material: { name: 'review-test steel', elasticModulus: 200_000, poissonRatio: 0.3, yieldStrength: 260 },
+  testPressure: 2,
+  columns: { time: 'time_s', pressure: 'P [MPa]' },
+  gauges: [
+    { id: 'H1', kind: 'uniaxial', channels: ['SG1'], angleDeg: 90, distanceToDiscontinuity: 1500 },
+    { id: 'A1', kind: 'uniaxial', channels: ['SG2'], angleDeg: 0, distanceToDiscontinuity: 1500 },
+    { id: 'H2', kind: 'uniaxial', channels: ['SG3'], angleDeg: 90, distanceToDiscontinuity: 1500 },
+  ],
+};
+const log = makeHydrotestCsv({
+  insideDiameter: 1000, wallThickness: 10, E: 200_000, nu: 0.3, testPressure: 2,
+  channels: [{ name: 'SG1', angleDeg: 90 }, { name: 'SG2', angleDeg: 0 }, { name: 'SG3', angleDeg: 90, scale: 0.85 }],
+});
+
+let technician: Client, engineer: Client, qa: Client, admin: Client;
+let worker: ChildProcess;
+let testId: number;
+const mailDir = () => inject('mailDir');
+
+async function db() {
+  const { getDb } = await import('../src/db/client.server');
+  return getDb();
+}
+
+function upload(c: Client, id: number, body: string) {
+  const form = new FormData();
+  form.append('file', new Blob([body], { type: 'text/csv' }), 'hold-log.csv');
+  return c.json(`/api/tests/${id}/logs`, { method: 'POST', body: form });
+}
+
+async function waitDone(id: number) {
+  for (let i = 0; i < 600; i++) {
+    const r = await engineer.json(`/api/reductions/${id}`);
+    if (r.body.status === 'done' || r.body.status === 'failed') return r.body;
+    await new Promise((res) => setTimeout(res, 100));
+  }
+  throw new Error('reduction did not finish');
+}
+
+beforeAll(async () => {
+  worker = startWorker(inject('env'), 'w-review');
+  [technician, engineer, qa, admin] = await Promise.all(['technician', 'engineer', 'qa', 'admin'].map((r) => signedIn(`${r}@example.com`)));
+});
+afterAll(async () => { await stopProcess(worker); });
+
+describe('the whole journey', () => {
+  it('engineer creates the test; technician uploads and reduces; the owner hears the result', async () => {
+    testId = (await engineer.json('/api/tests', { method: 'POST', json: { name: 'Review journey', plan } })).body.id;
+    expect((await upload(technician, testId, log)).status).toBe(201);
+    const q = await technician.json(`/api/tests/${testId}/reductions`, { method: 'POST', json: {} });
+    const done = await waitDone(q.body.id);
+    expect(done.status).toBe('done');
+    expect(done.result.verdict).toBe('flagged');
+    const mail = await waitForMail(mailDir(), (m) => m.to.includes('engineer@example.com') && m.subject.includes('Review journey') && m.subject.includes('finished'));
+    expect(mail.text).toContain(`/tests/${testId}/review`);
+  });
+
+  it('a draft export says DRAFT and has one row per gauge', async () => {
+    const res = await qa.fetch(`/api/tests/${testId}/export.csv`);
+    expect(res.status).toBe(200);
+    const csv = await res.text();
+    expect(csv).toContain('DRAFT');
+    for (const g of ['H1', 'A1', 'H2']) expect(csv.split('\n').filter((l) => l.startsWith(`${g},`) || l.startsWith(`"${g}",`))).toHaveLength(1);
+  });
+
+  it('refuses a review while a flagged gauge has no disposition, and dispositions from the wrong role', async () => {
+    const early = await engineer.json(`/api/tests/${testId}/review`, { method: 'POST', json: {} });
+    expect(early.status).toBe(409);
+    expect(early.body.error.details.gaugeIds).toEqual(['H2']);
+    expect((await technician.json(`/api/tests/${testId}/dispositions`, { method: 'POST', json: { gaugeId: 'H2', outcome: 'accepted', reason: 'x y z' } })).status).toBe(403);
+    expect((await engineer.json(`/api/tests/${testId}/dispositions`, { method: 'POST', json: { gaugeId: 'H2', outcome: 'accepted', reason: '' } })).status).toBe(400);
+    expect((await engineer.json(`/api/tests/${testId}/dispositions`, { method: 'POST', json: { gaugeId: 'H9', outcome: 'accepted', reason: 'no such gauge' } })).status).toBe(422);
+  });
+
+  it('keeps every disposition and counts the latest; the verdict follows', async () => {
+    const retest = await engineer.json(`/api/tests/${testId}/dispositions`, { method: 'POST', json: { gaugeId: 'H2', outcome: 'retest', reason: 'check the bridge completion first' } });
+    expect(retest.status).toBe(201);
+    expect(retest.body.verdict).toBe('flagged');
+    const accepted = await engineer.json(`/api/tests/${testId}/dispositions`, { method: 'POST', json: { gaugeId: 'H2', outcome: 'accepted', reason: 'gauge sits on a locally thicker plate, measured 11.7 mm by UT' } });
+    expect(accepted.body.verdict).toBe('conforms');
+    const list = await qa.json(`/api/tests/${testId}/dispositions`);
+    expect(list.body.history).toHaveLength(2);
+    expect(list.body.latest).toHaveLength(1);
+    expect(list.body.latest[0].outcome).toBe('accepted');
+  });
+
+  it('lets only the engineer sign the review, and only QA release it', async () => {
+    expect((await technician.json(`/api/tests/${testId}/review`, { method: 'POST', json: {} })).status).toBe(403);
+    expect((await admin.json(`/api/tests/${testId}/review`, { method: 'POST', json: {} })).status).toBe(403);
+    expect((await qa.json(`/api/tests/${testId}/release`, { method: 'POST', json: {} })).status).toBe(409);
+    const signed = await engineer.json(`/api/tests/${testId}/review`, { method: 'POST', json: {} });
+    expect(signed.status).toBe(201);
+    expect((await engineer.json(`/api/tests/${testId}`)).body.status).toBe('reviewed');
+    const notice = await waitForMail(mailDir(), (m) => m.to.includes('qa@example.com') && m.subject.includes('waits for release'));
+    expect(notice.text).toContain(`/tests/${testId}/review`);
+    expect((await engineer.json(`/api/tests/${testId}/release`, { method: 'POST', json: {} })).status).toBe(403);
+    expect((await admin.json(`/api/tests/${testId}/release`, { method: 'POST', json: {} })).status).toBe(403);
+  });
+
+  it('does not let the signer of the review release it, even with the QA role', async () => {
+    const users = (await admin.json('/api/admin/users')).body.items;
+    const eng = users.find((u: { email: string }) => u.email === 'engineer@example.com');
+    expect((await admin.json(`/api/admin/users/${eng.id}`, { method: 'PATCH', json: { role: 'qa' } })).status).toBe(200);
+    const own = await engineer.json(`/api/tests/${testId}/release`, { method: 'POST', json: {} });
+    expect(own.status).toBe(403);
+    expect(own.body.error.code).toBe('own-review');
+    expect((await admin.json(`/api/admin/users/${eng.id}`, { method: 'PATCH', json: { role: 'engineer' } })).status).toBe(200);
+  });
+
+  it('releases, after which every write answers 409', async () => {
+    const rel = await qa.json(`/api/tests/${testId}/release`, { method: 'POST', json: {} });
+    expect(rel.status).toBe(201);
+    expect((await qa.json(`/api/tests/${testId}`)).body.status).toBe('released');
+    expect((await engineer.json(`/api/tests/${testId}/dispositions`, { method: 'POST', json: { gaugeId: 'H1', outcome: 'excluded', reason: 'too late' } })).status).toBe(409);
+    expect((await upload(technician, testId, log + '\n')).status).toBe(409);
+    expect((await engineer.json(`/api/tests/${testId}/plan`, { method: 'PUT', json: plan })).status).toBe(409);
+    expect((await technician.json(`/api/tests/${testId}/reductions`, { method: 'POST', json: {} })).status).toBe(409);
+    expect((await technician.json(`/api/tests/${testId}/notes`, { method: 'POST', json: { body: 'late note' } })).status).toBe(409);
+    expect((await qa.json(`/api/tests/${testId}/release`, { method: 'POST', json: {} })).status).toBe(409);
+  });
+
+  it('exports the released record: CSV without DRAFT, a real PDF with its font embedded and text inside', async () => {
+    const csv = await (await technician.fetch(`/api/tests/${testId}/export.csv`)).text();
+    expect(csv).not.toContain('DRAFT');
+    expect(csv).toContain('gauge sits on a locally thicker plate');
+    const res = await qa.fetch(`/api/tests/${testId}/export.pdf`);
+    expect(res.status).toBe(200);
+    expect(res.headers.get('content-type')).toBe('application/pdf');
+    const bytes = Buffer.from(await res.arrayBuffer());
+    expect(bytes.subarray(0, 5).toString()).toBe('%PDF-');
+    expect(bytes.toString('latin1')).toMatch(/\/FontFile[23]?\b/);
+    const { extractPdfText } = await import('./support/pdf-text');
+    const text = await extractPdfText(bytes);
+    expect(text).toContain('Review journey');
+    expect(text).toContain('H2');
+    expect(text).not.toContain('DRAFT');
+  });
+
+  it('shares the record by e-mail with an inspector who needs no account', async () => {
+    expect((await engineer.json(`/api/tests/${testId}/share-links`, { method: 'POST', json: { email: 'inspector@example.com' } })).status).toBe(403);
+    const made = await qa.json(`/api/tests/${testId}/share-links`, { method: 'POST', json: { email: 'inspector@example.com', expiresInDays: 7 } });
+    expect(made.status).toBe(201);
+    const url: string = made.body.url;
+    expect(url).toMatch(/\/share\/[A-Za-z0-9_-]{43}$/);
+    const mail = await waitForMail(mailDir(), (m) => m.to.includes('inspector@example.com') && m.subject.includes('Review journey'));
+    expect(mail.text).toContain(url);
+    const token = url.split('/share/')[1]!;
+    const inspector = new Client();
+    const page = await inspector.fetch(`/share/${token}`);
+    expect(page.status).toBe(200);
+    expect(await page.text()).toContain('Review journey');
+    const rec = await inspector.json(`/api/share/${token}`);
+    expect(rec.status).toBe(200);
+    expect(rec.body.result.gauges).toHaveLength(3);
+    expect((await inspector.fetch(`/api/share/${token}/export.csv`)).status).toBe(200);
+    expect((await inspector.fetch(`/api/share/${token}/export.pdf`)).status).toBe(200);
+    expect((await inspector.json(`/api/share/${token}/series?points=100`)).status).toBe(200);
+    // the link reads one test only and writes nothing
+    expect((await inspector.json(`/api/share/${token}`, { method: 'POST', json: {} })).status).toBe(405);
+    expect((await inspector.json(`/api/share/${token}/export.csv`, { method: 'DELETE' })).status).toBe(405);
+    expect((await inspector.fetch(`/share/${token}`, { method: 'POST', body: 'x' })).status).toBe(405);
+    expect((await inspector.json(`/api/tests/${testId}`)).status).toBe(401);
+    const links = await qa.json(`/api/tests/${testId}/share-links`);
+    const mine = links.body.items.find((l: { id: number }) => l.id === made.body.id);
+    expect(mine.useCount).toBeGreaterThanOrEqual(5);
+    expect(mine.lastUsedAt).not.toBeNull();
+  });
+
+  it('answers 410 once a link is revoked or expired', async () => {
+    const a = await qa.json(`/api/tests/${testId}/share-links`, { method: 'POST', json: {} });
+    const tokenA = a.body.url.split('/share/')[1];
+    expect((await new Client().json(`/api/share/${tokenA}`)).status).toBe(200);
+    expect((await qa.json(`/api/share-links/${a.body.id}`, { method: 'DELETE' })).status).toBe(200);
+    expect((await new Client().json(`/api/share/${tokenA}`)).status).toBe(410);
+    expect((await new Client().fetch(`/share/${tokenA}`)).status).toBe(410);
+
+    const b = await qa.json(`/api/tests/${testId}/share-links`, { method: 'POST', json: { expiresInDays: 1 } });
+    const { shareLinks } = await import('../src/db/schema');
+    await (await db()).update(shareLinks).set({ expiresAt: new Date(Date.now() - 1000) }).where(eq(shareLinks.id, b.body.id));
+    expect((await new Client().json(`/api/share/${b.body.url.split('/share/')[1]}`)).status).toBe(410);
+    expect((await new Client().json('/api/share/not-a-real-token-at-all-000000000')).status).toBe(404);
+    expect((await qa.json(`/api/tests/${testId}/share-links`, { method: 'POST', json: { expiresInDays: 91 } })).status).toBe(400);
+  });
+
+  it('shows QA and admin the audit trail, newest first, and nobody else', async () => {
+    const trail = await qa.json(`/api/tests/${testId}/audit?limit=200`);
+    expect(trail.status).toBe(200);
+    const actions = trail.body.items.map((e: { action: string }) => e.action);
+    for (const a of ['test-created', 'log-uploaded', 'reduction-queued', 'reduction-done', 'gauge-dispositioned', 'review-signed', 'test-released', 'share-link-created', 'share-link-used', 'share-link-revoked'])
+      expect(actions).toContain(a);
+    const times = trail.body.items.map((e: { at: string }) => new Date(e.at).getTime());
+    expect([...times].sort((x, y) => y - x)).toEqual(times);
+    expect((await admin.json(`/api/tests/${testId}/audit`)).status).toBe(200);
+    expect((await engineer.json(`/api/tests/${testId}/audit`)).status).toBe(403);
+    expect((await technician.json(`/api/tests/${testId}/audit`)).status).toBe(403);
+  });
+});
+
+describe('the outbox', () => {
+  it('keeps a message while the SMTP server is down and delivers it when it is back', async () => {
+    await stopProcess(worker); // it drains the outbox too, to the test's own SMTP fake
+    const { freePort } = await import('./global-setup');
+    const { startSmtp } = await import('../fake-services/smtp.mjs');
+    const { resetConfigForTests } = await import('../src/server/config');
+    const { resetMailerForTests } = await import('../src/server/mail.server');
+    const { queueMail, deliverDueMail } = await import('../src/server/outbox.server');
+    const { outbox } = await import('../src/db/schema');
+    const port = await freePort();
+    const saved = process.env.SMTP_PORT;
+    process.env.SMTP_PORT = String(port);
+    resetConfigForTests();
+    resetMailerForTests();
+    try {
+      const id = await queueMail('someone@example.com', 'Outage check', 'This must not be lost.');
+      await new Promise((r) => setTimeout(r, 300));
+      await deliverDueMail();
+      const [pending] = await (await db()).select().from(outbox).where(eq(outbox.id, id));
+      expect(pending!.status).toBe('pending');
+      expect(pending!.attempts).toBeGreaterThanOrEqual(1);
+      expect(pending!.lastError).toBeTruthy();
+
+      const dir = path.join(inject('dataDir'), 'mail-after-outage');
+      const smtp = await startSmtp({ directory: dir, port });
+      try {
+        const deadline = Date.now() + 10_000;
+        let sent = false;
+        while (!sent && Date.now() < deadline) {
+          await deliverDueMail();
+          const [row] = await (await db()).select().from(outbox).where(eq(outbox.id, id));
+          sent = row!.status === 'sent';
+          if (!sent) await new Promise((r) => setTimeout(r, 200));
+        }
+        expect(sent).toBe(true);
+        expect((await readMails(dir)).some((m) => m.subject === 'Outage check' && m.to.includes('someone@example.com'))).toBe(true);
+      } finally {
+        await smtp.close();
+      }
+    } finally {
+      process.env.SMTP_PORT = saved;
+      resetConfigForTests();
+      resetMailerForTests();
+    }
+  });
+});
