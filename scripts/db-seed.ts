@@ -1,6 +1,7 @@
 // npm run db:seed — demo accounts, materials and scenario (only with DEMO on).
 import { closeDb, getDb } from '../src/db/client.server';
 import { seedDemo } from '../src/db/seed.server';
+import { seedDemoScenario } from '../src/server/demo-seed.server';
 import { getConfig } from '../src/server/config';
 
 const config = getConfig();
@@ -10,7 +11,8 @@ if (!config.DEMO) {
 }
 try {
   const r = await seedDemo(getDb(), config.DEMO_PASSWORD);
-  console.log(`demo data seeded: ${r.users} accounts, ${r.materials} materials`);
+  const scenario = await seedDemoScenario();
+  console.log(`demo data seeded: ${r.users} accounts, ${r.materials} materials${scenario.length ? `, tests: ${scenario.join('; ')}` : ''}`);
 } catch (err) {
   console.error(`seeding failed: ${err instanceof Error ? err.message : String(err)}`);
   process.exitCode = 1;

@@ -1,0 +1,82 @@
+// The demo scenario (invented): air receiver AR-102 of the Larchmere pilot plant, hydrotested
+// at 1.95 MPa (1.3 × MAWP 1.5 MPa). One test is logged and queued for reduction — the worker
+// reduces it on start — with one axial gauge reading 12 % low (a poor bond) and one hoop gauge
+// beside the nozzle (edge zone); a second test is still in planning.
+import { eq } from 'drizzle-orm';
+import { getDb } from '../db/client.server';
+import { insertLog } from '../db/queries/logs';
+import { queueReduction } from '../db/queries/reductions';
+import { insertNote, replaceGauges, updateTest } from '../db/queries/tests';
+import { findUserByEmail } from '../db/queries/users';
+import { tests, vessels } from '../db/schema';
+import { demoVessel } from '../db/seed.server';
+import { inspectLogHead, parsePlan, type PlanInput } from '../lib/reduction';
+import { syntheticLog } from '../lib/reduction/testing/synthetic-log';
+import { createHash } from 'node:crypto';
+import { audit } from './audit.server';
+import { putObject } from './storage.server';
+
+export const demoPlan: PlanInput & { remarks?: string } = {
+  units: 'SI',
+  vessel: {
+    name: 'AR-102',
+    shape: 'cylinder', ends: 'closed', insideDiameter: 1200, wallThickness: 12, length: 4200,
+    features: [
+      { kind: 'nozzle', name: 'N1 inlet', axialPosition: 2100, clockDeg: 0, size: 150 },
+      { kind: 'support', name: 'Saddle W', axialPosition: 700, size: 300 },
+      { kind: 'support', name: 'Saddle E', axialPosition: 3500, size: 300 },
+    ],
+  },
+  material: { name: 'Carbon steel, generic', elasticModulus: 203000, poissonRatio: 0.3, yieldStrength: 260 },
+  model: 'lame',
+  testPressure: 1.95,
+  columns: { time: 'time_s', pressure: 'P [MPa]' },
+  gauges: [
+    { id: 'H1', kind: 'uniaxial', channels: ['CH01'], angleDeg: 90, axialPosition: 1500, clockDeg: 90 },
+    { id: 'H2', kind: 'uniaxial', channels: ['CH02'], angleDeg: 90, axialPosition: 2800, clockDeg: 270 },
+    { id: 'A1', kind: 'uniaxial', channels: ['CH03'], angleDeg: 0, axialPosition: 1500, clockDeg: 100 },
+    { id: 'A2', kind: 'uniaxial', channels: ['CH04'], angleDeg: 0, axialPosition: 2800, clockDeg: 260 },
+    { id: 'H3', kind: 'uniaxial', channels: ['CH05'], angleDeg: 90, axialPosition: 2100, clockDeg: 12 },
+    { id: 'R1', kind: 'rosette-rectangular', channels: ['CH06', 'CH07', 'CH08'], angleDeg: 0, axialPosition: 2400, clockDeg: 180, transverseSensitivity: 0.01 },
+  ],
+};
+
+const LOGGED = 'AR-102 hydrotest at 1.95 MPa (demo)';
+const PLANNED = 'AR-102 re-test after nozzle repair (demo, planning)';
+
+/** Create the demo tests once; later runs leave them as they are. */
+export async function seedDemoScenario(): Promise<string[]> {
+  const db = getDb();
+  const done: string[] = [];
+  const engineer = await findUserByEmail(db, 'engineer@example.com');
+  const technician = await findUserByEmail(db, 'technician@example.com');
+  const vessel = await db.query.vessels.findFirst({ where: eq(vessels.tag, demoVessel.tag) });
+  if (!engineer || !technician || !vessel) return done;
+  const plan = parsePlan(demoPlan);
+  const gaugeRows = plan.gauges.map((g) => ({ gaugeId: g.id, kind: g.kind, channels: g.channels, angleDeg: g.angleDeg, gaugeFactor: g.gaugeFactor, instrumentGaugeFactor: g.instrumentGaugeFactor, transverseSensitivity: g.transverseSensitivity, distanceToDiscontinuity: g.distanceToDiscontinuity ?? null, axialPosition: g.axialPosition ?? null, clockDeg: g.clockDeg ?? null }));
+
+  if (!(await db.query.tests.findFirst({ where: eq(tests.name, LOGGED) }))) {
+    const [row] = await db.insert(tests).values({ name: LOGGED, vesselId: vessel.id, plan: demoPlan, ownerId: engineer.id, status: 'logging' }).$returningId();
+    const testId = row!.id;
+    await replaceGauges(db, testId, gaugeRows);
+    const csv = syntheticLog(plan, { rateHz: 2, holdSeconds: 90, rampSeconds: 45, seed: 102, gauges: { A2: { scale: 0.88 }, H3: { scale: 1.22 } }, format: { preamble: ['unit,DAQ bay 2', 'operator,demo'] } });
+    const sha256 = createHash('sha256').update(csv).digest('hex');
+    const key = `tests/${testId}/logs/demo-${sha256.slice(0, 12)}.csv`;
+    await putObject(key, csv, 'text/csv');
+    const info = inspectLogHead(plan, csv.slice(0, 65536));
+    const lines = csv.trim().split(/\r?\n/);
+    const logId = await insertLog(db, { testId, objectKey: key, filename: 'ar102-hydrotest.csv', sha256, sizeBytes: Buffer.byteLength(csv), rows: lines.length - info.headerLine, timeStart: 0, timeEnd: Number(lines.at(-1)!.split(',')[0]), columnMap: { delimiter: info.delimiter, decimalComma: info.decimalComma, headerLine: info.headerLine, columns: info.columns, pressureUnit: info.pressureUnit, preview: info.previewRows.slice(0, 10) }, uploadedBy: technician.id });
+    await insertNote(db, { testId, userId: technician.id, kind: 'pressure-held', body: 'Held 1.95 MPa for 90 s; no leak at the N1 flange. Water and shell at 14 °C.' });
+    const reductionId = await queueReduction(db, { testId, plan: demoPlan, logIds: [logId], queuedBy: technician.id });
+    await updateTest(db, testId, {});
+    await audit({ userId: technician.id, actor: technician.email, action: 'log-uploaded', testId, details: { logId, demo: true } });
+    await audit({ userId: technician.id, actor: technician.email, action: 'reduction-queued', testId, details: { reductionId, demo: true } });
+    done.push(LOGGED);
+  }
+  if (!(await db.query.tests.findFirst({ where: eq(tests.name, PLANNED) }))) {
+    const [row] = await db.insert(tests).values({ name: PLANNED, vesselId: vessel.id, plan: { ...demoPlan, testPressure: 1.95 }, ownerId: engineer.id, status: 'draft' }).$returningId();
+    await replaceGauges(db, row!.id, gaugeRows);
+    done.push(PLANNED);
+  }
+  return done;
+}
