@@ -1,4 +1,4 @@
-import { useState, type FormEvent } from 'react';
+import { useEffect, useState, type FormEvent } from 'react';
 // @ts-expect-error auth-astro/client ships without types for this entry
 import { signIn } from 'auth-astro/client';
 
@@ -8,6 +8,10 @@ interface Props { next: string; initialError?: string | null }
 export default function SignInForm({ next, initialError = null }: Props) {
   const [error, setError] = useState<string | null>(initialError);
   const [busy, setBusy] = useState(false);
+  // The button stays disabled until the island runs, so a submit can never fall back to the
+  // browser's default (which would put the password into the address bar).
+  const [ready, setReady] = useState(false);
+  useEffect(() => setReady(true), []);
 
   async function onSubmit(e: FormEvent<HTMLFormElement>) {
     e.preventDefault();
@@ -25,7 +29,7 @@ export default function SignInForm({ next, initialError = null }: Props) {
   }
 
   return (
-    <form onSubmit={onSubmit} className="space-y-4" noValidate>
+    <form onSubmit={onSubmit} method="post" className="space-y-4" noValidate>
       <div>
         <label htmlFor="email" className="label">E-mail</label>
         <input id="email" name="email" type="email" autoComplete="username" required className="field" />
@@ -35,7 +39,7 @@ export default function SignInForm({ next, initialError = null }: Props) {
         <input id="password" name="password" type="password" autoComplete="current-password" required className="field" />
       </div>
       {error && <p role="alert" className="error-text">{error}</p>}
-      <button type="submit" className="btn-primary w-full justify-center" disabled={busy}>{busy ? 'Signing in…' : 'Sign in'}</button>
+      <button type="submit" className="btn-primary w-full justify-center" disabled={busy || !ready}>{busy ? 'Signing in…' : 'Sign in'}</button>
     </form>
   );
 }

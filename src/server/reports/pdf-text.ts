@@ -1,16 +1,16 @@
-// Text for the PDF: the Inter font embedded from @fontsource/inter, with the Greek subset beside
-// the Latin one (the Latin file has µ ² ± ° – but no ε σ ν), and a few drawing primitives that
-// place single lines exactly, so layout never depends on pdfkit's automatic page breaks.
+// Text for the PDF: the Inter font embedded from @fontsource/inter. The package splits Inter into
+// subsets (the Latin file has µ ² ± ° – but no ε σ ν; a name like Łukasz needs latin-ext), so
+// each run of text goes to the subset that holds it. A few drawing primitives place single lines
+// exactly, so layout never depends on pdfkit's automatic page breaks.
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import path from 'node:path';
 import { decodeWoff } from './woff';
 
 export type Weight = 400 | 600 | 700;
-type Subset = 'latin' | 'greek';
-
-const WEIGHTS: Weight[] = [400, 600, 700];
-const SUBSETS: Subset[] = ['latin', 'greek'];
+/** In lookup order: the first subset that covers a character draws it. */
+const SUBSETS = ['latin', 'latin-ext', 'greek', 'greek-ext', 'cyrillic', 'cyrillic-ext', 'vietnamese'] as const;
+export type Subset = (typeof SUBSETS)[number];
 
 /**
  * Characters that no Inter subset in @fontsource/inter carries (checked glyph by glyph):
@@ -46,7 +46,8 @@ function locateFontFiles(): FontFiles {
       return [parseInt(lo!, 16), parseInt(hi ?? lo!, 16)];
     });
   };
-  fontFiles = { dir: path.join(root, 'files'), ranges: { latin: parse(unicode.latin, 'latin'), greek: parse(unicode.greek, 'greek') } };
+  const ranges = Object.fromEntries(SUBSETS.map((s) => [s, parse(unicode[s], s)])) as FontFiles['ranges'];
+  fontFiles = { dir: path.join(root, 'files'), ranges };
   return fontFiles;
 }
 
@@ -72,10 +73,18 @@ function fontName(subset: Subset, weight: Weight): string {
   return `Inter-${subset}-${weight}`;
 }
 
-/** Register every Inter face the report uses on a new document. */
-export function registerInterFonts(doc: PDFKit.PDFDocument): void {
-  for (const subset of SUBSETS)
-    for (const weight of WEIGHTS) doc.registerFont(fontName(subset, weight), loadInterFont(subset, weight));
+const registered = new WeakMap<PDFKit.PDFDocument, Set<string>>();
+
+/** Select a face, registering it on this document the first time (only used faces are embedded). */
+function useFont(doc: PDFKit.PDFDocument, subset: Subset, weight: Weight, size: number): void {
+  const name = fontName(subset, weight);
+  let names = registered.get(doc);
+  if (!names) registered.set(doc, (names = new Set()));
+  if (!names.has(name)) {
+    doc.registerFont(name, loadInterFont(subset, weight));
+    names.add(name);
+  }
+  doc.font(name).fontSize(size);
 }
 
 function subsetOf(codePoint: number): Subset | null {
@@ -92,11 +101,13 @@ export interface TextRun {
 /** Split text into runs by the Inter subset that holds each character (after substitutions). */
 export function splitTextRuns(text: string): TextRun[] {
   const runs: TextRun[] = [];
-  for (const raw of text) {
+  for (const raw of text.normalize('NFC')) {
     const chars = SUBSTITUTES[raw] ?? raw;
     for (const ch of chars) {
-      const subset = subsetOf(ch.codePointAt(0)!) ?? 'latin';
-      const shown = subsetOf(ch.codePointAt(0)!) ? ch : '?';
+      const covering = subsetOf(ch.codePointAt(0)!);
+      // Outside every subset (CJK, emoji): '?' (Inter has no U+FFFD glyph despite its range list).
+      const subset = covering ?? 'latin';
+      const shown = covering ? ch : '?';
       const last = runs[runs.length - 1];
       if (last && last.subset === subset) last.text += shown;
       else runs.push({ subset, text: shown });
@@ -117,7 +128,7 @@ type Doc = PDFKit.PDFDocument;
 export function measureText(doc: Doc, text: string, style: TextStyle): number {
   let width = 0;
   for (const run of splitTextRuns(text)) {
-    doc.font(fontName(run.subset, style.weight ?? 400)).fontSize(style.size);
+    useFont(doc, run.subset, style.weight ?? 400, style.size);
     width += doc.widthOfString(run.text);
   }
   return width;
@@ -137,7 +148,7 @@ export function drawTextLine(doc: Doc, text: string, x: number, y: number, optio
   if (options.align === 'center' && options.width !== undefined) left = x + (options.width - width) / 2;
   doc.fillColor(options.color ?? '#1a1f2b');
   for (const run of splitTextRuns(text)) {
-    doc.font(fontName(run.subset, options.weight ?? 400)).fontSize(options.size);
+    useFont(doc, run.subset, options.weight ?? 400, options.size);
     doc.text(run.text, left, y, { lineBreak: false });
     left += doc.widthOfString(run.text);
   }

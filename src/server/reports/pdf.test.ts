@@ -153,14 +153,27 @@ describe('Inter glyph coverage', () => {
   };
 
   it.each([400, 600, 700] as const)('weight %i has a glyph for every symbol the report writes', (weight) => {
-    const latin = fontkit.openSync(interFontPath('latin', weight));
-    const greek = fontkit.openSync(interFontPath('greek', weight));
-    const sample = 'µε/MPa σh σa ν R² ±10 % 90° 1–2 · × − ½ … ≤ ≥ √';
+    const sample = 'µε/MPa σh σa ν R² ±10 % 90° 1–2 · × − ½ … ≤ ≥ √ 水 Łó Зоя';
     for (const run of splitTextRuns(sample)) {
-      const font = run.subset === 'latin' ? latin : greek;
+      const font = fontkit.openSync(interFontPath(run.subset, weight));
       for (const ch of run.text) expect(font.hasGlyphForCodePoint(ch.codePointAt(0)!), `${ch} in ${run.subset} ${weight}`).toBe(true);
     }
   });
+
+  it('draws names in the subset that holds their letters, and marks what no subset holds', async () => {
+    expect(splitTextRuns('Łukasz')).toEqual([
+      { subset: 'latin-ext', text: 'Ł' },
+      { subset: 'latin', text: 'ukasz' },
+    ]);
+    expect(splitTextRuns('Ba\u0301rta')).toEqual([{ subset: 'latin', text: 'Bárta' }]);
+    expect(splitTextRuns('水')).toEqual([{ subset: 'latin', text: '?' }]);
+    const input = buildSiReportInput();
+    input.dispositions.H2!.by = 'Łukasz Wróbel';
+    input.signatures[0]!.name = 'Зоя Петрова';
+    const all = (await readPdfPages(await renderReportPdf(input))).map((p) => p.text).join(' ');
+    expect(all).toContain('Łukasz Wróbel');
+    expect(all).toContain('Зоя Петрова');
+  }, 60_000);
 
   it('sends Greek letters to the Greek subset and spells out what Inter lacks', () => {
     expect(splitTextRuns('µε')).toEqual([

@@ -23,7 +23,7 @@ import {
 import { drawFigureLegend, drawStrainPressureFigure } from './pdf-figure';
 import { PageFlow, drawTable, type TableCell, type TableColumn } from './pdf-layout';
 import { COLOR, CONTENT_BOTTOM, CONTENT_WIDTH, MARGIN, OUTCOME_COLOR, PAGE, VERDICT_COLOR } from './pdf-style';
-import { drawParagraph, drawTextLine, lineHeight, measureParagraph, measureText, registerInterFonts } from './pdf-text';
+import { drawParagraph, drawTextLine, lineHeight, measureParagraph, measureText } from './pdf-text';
 import { assertReportInputConsistent, outcomeOf, unitLabels, type ReportInput } from './report-input';
 
 export const PDF_CONTENT_TYPE = 'application/pdf';
@@ -58,7 +58,6 @@ export async function renderReportPdf(input: ReportInput, options: RenderPdfOpti
       ModDate: input.generatedAt,
     },
   });
-  registerInterFonts(doc);
   const done = collectBytes(doc);
 
   const flow = new PageFlow(doc);

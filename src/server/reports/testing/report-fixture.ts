@@ -156,11 +156,11 @@ function buildGauge(spec: GaugeSpec, s: Scenario, lame: ModelPrediction, holds: 
     const gap = h.branch === 'unloading' ? spec.hysteresisGap * 4 * f * (1 - f) + spec.zeroShift * (1 - f) : 0;
     return m * h.pressure + spec.noise * pattern[i] + gap;
   });
-  const points = holds.flatMap((h, i) =>
-    h.branch === 'zero' || h.branch === 'loading'
-      ? [{ pressure: h.pressure, strain: holdStrains[i]!, branch: 'loading' as const }]
-      : [{ pressure: h.pressure, strain: holdStrains[i]!, branch: 'unloading' as const }],
-  );
+  const points: GaugeResult['points'] = holds.map((h, i) => ({
+    pressure: h.pressure,
+    strain: holdStrains[i]!,
+    branch: h.branch === 'zero' || h.branch === 'loading' ? 'loading' : 'unloading',
+  }));
   const loading = fitLine(points.filter((p) => p.branch === 'loading'));
   const unloading = fitLine(points.filter((p) => p.branch === 'unloading').concat([points.find((p) => p.pressure === s.testPressure)!]));
   const peakStrain = Math.max(...holdStrains.map((v) => Math.abs(v ?? 0)));
