@@ -1,0 +1,135 @@
+// Server-render every review island with the fixture: it must not touch window, and it must carry
+// the labels, words and shapes a reader relies on (colour is never the only cue).
+import { createElement as h } from 'react';
+import { renderToString } from 'react-dom/server';
+import { describe, expect, it } from 'vitest';
+import type { FlagCode, GaugeOutcome } from '../../lib/reduction/types';
+import DeviationOverview from './DeviationOverview';
+import DevelopedShellMap from './DevelopedShellMap';
+import FlagChip from './FlagChip';
+import FlagGlossary from './FlagGlossary';
+import { FLAG_CODES, FLAG_GLOSSARY } from './flag-glossary';
+import GaugeTable from './GaugeTable';
+import OutcomeBadge from './OutcomeBadge';
+import RosetteCard from './RosetteCard';
+import SafetyCaution from './SafetyCaution';
+import StrainPressurePlot from './StrainPressurePlot';
+import TestPressureHelper from './TestPressureHelper';
+import TimeHistoryPlot from './TimeHistoryPlot';
+import VerdictBanner from './VerdictBanner';
+import { FIXTURE_CHANNELS, FIXTURE_GAUGES, FIXTURE_PLAN, FIXTURE_RESULT, FIXTURE_ROSETTE } from './fixtures';
+
+const text = (html: string) => html.replace(/<!-- -->/g, '').replace(/<[^>]+>/g, ' ').replace(/&#x27;/g, "'").replace(/&amp;/g, '&').replace(/\s+/g, ' ');
+const results = Object.fromEntries(FIXTURE_GAUGES.map((g) => [g.id, g]));
+
+describe('OutcomeBadge and FlagChip', () => {
+  it.each<[GaugeOutcome, string, string]>([
+    ['in-band', '●', 'In band'], ['flagged', '▲', 'Flagged'], ['excluded', '✕', 'Excluded'], ['not-compared', '◆', 'Not compared'],
+  ])('%s shows glyph %s and the word %s', (outcome, glyph, word) => {
+    const t = text(renderToString(h(OutcomeBadge, { outcome })));
+    expect(t).toContain(glyph);
+    expect(t).toContain(word);
+  });
+  it('gives a chip the plain explanation as its title', () => {
+    const html = renderToString(h(FlagChip, { code: 'reversed-sign' }));
+    expect(html).toContain(`title="${FLAG_GLOSSARY['reversed-sign'].meaning.replace(/'/g, '&#x27;')}"`);
+  });
+});
+
+describe('flag glossary', () => {
+  it('explains all eight flag codes of DESIGN 3.3 with causes and a next step', () => {
+    const all: FlagCode[] = ['outside-band', 'nonlinear', 'hysteresis', 'zero-shift', 'no-response', 'reversed-sign', 'edge-zone', 'near-yield'];
+    expect([...FLAG_CODES].sort()).toEqual([...all].sort());
+    for (const c of all) {
+      expect(FLAG_GLOSSARY[c].causes.length).toBeGreaterThan(0);
+      expect(FLAG_GLOSSARY[c].next.length).toBeGreaterThan(10);
+    }
+    expect(FLAG_GLOSSARY['reversed-sign'].causes.join(' ')).toMatch(/lead wires swapped/);
+    expect(FLAG_GLOSSARY['near-yield'].next).toMatch(/[Ss]top/);
+    const t = text(renderToString(h(FlagGlossary, {})));
+    for (const c of all) expect(t).toContain(c);
+  });
+});
+
+describe('charts render on the server without a window', () => {
+  it('StrainPressurePlot: caption with ratio, R², outcome and a legend', () => {
+    const t = text(renderToString(h(StrainPressurePlot, { gauge: results.D1!, testPressure: 3.4, slopeBand: 0.1, pressureUnit: 'MPa' })));
+    expect(t).toContain('Gauge D1');
+    expect(t).toContain('1.127');
+    expect(t).toContain('0.9944');
+    expect(t).toContain('Flagged');
+    expect(t).toMatch(/Loading holds.*Unloading holds.*Predicted.*Band ±10 %/);
+  });
+  it('TimeHistoryPlot: a loading state and a labelled checkbox per channel', () => {
+    const html = renderToString(h(TimeHistoryPlot, { seriesUrl: '/api/tests/12/series', channels: FIXTURE_CHANNELS, pressureUnit: 'MPa' }));
+    expect(text(html)).toContain('Loading time history');
+    expect(html.match(/type="checkbox"/g)).toHaveLength(FIXTURE_CHANNELS.length);
+    expect(text(html)).toContain('Reset zoom');
+  });
+});
+
+describe('overview, map, table', () => {
+  it('DeviationOverview: a focusable button per plotted gauge; the edge-zone gauge listed, not plotted', () => {
+    const html = renderToString(h(DeviationOverview, { gauges: FIXTURE_GAUGES, slopeBand: 0.1 }));
+    expect(html.match(/role="button" tabindex="0"/g)).toHaveLength(8);
+    expect(html).not.toContain('data-gauge="H3"');
+    expect(text(html)).toMatch(/Not plotted: H3 \(not compared, edge zone\)/);
+    expect(text(html)).toContain('Rosette grids');
+  });
+  it('DevelopedShellMap: every placed gauge, the unplaced one listed, features labelled', () => {
+    const html = renderToString(h(DevelopedShellMap, { plan: FIXTURE_PLAN, results, edgeZoneDistance: 301.33, lengthUnit: 'mm' }));
+    for (const id of ['H1', 'H2', 'A1', 'R1', 'A2', 'H3']) expect(html).toContain(`data-gauge="${id}"`);
+    const t = text(html);
+    expect(t).toMatch(/No position in the plan: D1/);
+    expect(t).toContain('nozzle N1');
+    expect(t).toContain('T1 thickness change');
+    expect(t).toContain('Edge zone');
+  });
+  it('DevelopedShellMap: a sphere gets a note instead', () => {
+    const html = renderToString(h(DevelopedShellMap, { plan: { ...FIXTURE_PLAN, vessel: { ...FIXTURE_PLAN.vessel, shape: 'sphere' } }, results, edgeZoneDistance: 300, lengthUnit: 'mm' }));
+    expect(text(html)).toContain('A sphere has no developed shell map');
+  });
+  it('GaugeTable: sortable headers, flags and outcomes, and the actions slot', () => {
+    const html = renderToString(h(GaugeTable, { gauges: FIXTURE_GAUGES, pressureUnit: 'MPa', renderActions: (g) => h('span', null, `act-${g.id}`) }));
+    expect(html.match(/<tr/g)).toHaveLength(FIXTURE_GAUGES.length + 1);
+    expect(html).not.toContain("aria-sort"); // plan order until a header is chosen
+    expect(html.match(/<th scope="col"[^>]*><button/g)).toHaveLength(10);
+    const sorted = renderToString(h(GaugeTable, { gauges: FIXTURE_GAUGES, pressureUnit: "MPa", initialSort: { key: "ratio", dir: "descending" } }));
+    expect(sorted).toContain('aria-sort="descending"');
+    expect(sorted.indexOf('data-gauge="H3"')).toBeLessThan(sorted.indexOf('data-gauge="H1"'));
+    expect(html).toContain('data-flag="reversed-sign"');
+    expect(text(html)).toContain('act-R1/C');
+    expect(text(html)).toContain('µε/MPa');
+  });
+});
+
+describe('rosette, verdict, cautions, test pressure', () => {
+  it('RosetteCard: principal strains, angle, von Mises against yield', () => {
+    const html = renderToString(h(RosetteCard, { rosette: FIXTURE_ROSETTE, pressureUnit: 'MPa', testPressure: 3.4 }));
+    const t = text(html);
+    expect(t).toMatch(/ε1 238\.8 237\.0 1\.008/); // measured, predicted (µε/MPa), ratio
+    expect(t).toContain('µε/MPa');
+    expect(t).toContain('89.7°');
+    expect(t).toContain('165.6 MPa');
+    expect(t).toContain('Yield strength (plan) 260.0 MPa'); // 165.57 / 0.6368
+    expect(html).toContain('role="meter"');
+    expect(t).toContain('near-yield 90 %');
+  });
+  it('VerdictBanner counts flagged gauges without a disposition', () => {
+    const t = text(renderToString(h(VerdictBanner, { verdict: FIXTURE_RESULT.verdict, undisposedFlaggedCount: 3 })));
+    expect(t).toContain('Verdict: Flagged');
+    expect(t).toContain('3 flagged gauges await a disposition');
+  });
+  it('SafetyCaution defers to the code, the engineer and the inspector', () => {
+    const t = text(renderToString(h(SafetyCaution, {})));
+    expect(t).toMatch(/stores energy/);
+    expect(t).toMatch(/governing code/);
+    expect(t).toMatch(/does not replace.*responsible engineer and the authorised inspector/);
+  });
+  it('TestPressureHelper shows every rule for MAWP 1.5 MPa (REFERENCES.md, Test pressure rules [derived])', () => {
+    const t = text(renderToString(h(TestPressureHelper, { pressureUnit: 'MPa', initialMawp: 1.5 })));
+    for (const v of ['1.950 MPa', '2.145 MPa', '2.250 MPa', '1.650 MPa']) expect(t).toContain(v);
+    expect(t.match(/Use this/g)).toHaveLength(5);
+    expect(t).toMatch(/governing code edition and the jurisdiction decide/);
+  });
+});
