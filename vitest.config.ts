@@ -24,7 +24,8 @@ export default defineConfig({
           setupFiles: ['tests/support/setup-env.ts'],
           testTimeout: 60_000,
           hookTimeout: 120_000,
-          fileParallelism: false,
+          // one file at a time: the files share one app server, database and worker queue
+          poolOptions: { forks: { singleFork: true } },
         },
       },
     ],

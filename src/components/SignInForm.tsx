@@ -1,5 +1,4 @@
 import { useEffect, useState, type FormEvent } from 'react';
-// @ts-expect-error auth-astro/client ships without types for this entry
 import { signIn } from 'auth-astro/client';
 
 interface Props { next: string; initialError?: string | null }
@@ -18,7 +17,9 @@ export default function SignInForm({ next, initialError = null }: Props) {
     const form = new FormData(e.currentTarget);
     setBusy(true);
     setError(null);
-    const res = await signIn('credentials', { email: form.get('email'), password: form.get('password'), redirect: false });
+    // the credentials travel as extra sign-in options, which the client's type does not list
+    const options = { email: form.get('email'), password: form.get('password'), redirect: false } as Parameters<typeof signIn>[1];
+    const res = await signIn('credentials', options);
     const url = typeof res === 'object' && res && 'url' in res ? String(res.url) : '';
     if (!res || (res as { ok?: boolean }).ok === false || url.includes('error=')) {
       setBusy(false);
