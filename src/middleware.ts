@@ -5,6 +5,7 @@ import { defineMiddleware } from 'astro:middleware';
 import { AppError, errors } from './server/errors';
 import { errorResponse } from './server/http';
 import { resolveRequestUser } from './server/auth/request-user.server';
+import { getConfig } from './server/config';
 
 const PUBLIC_PREFIXES = ['/signin', '/api/auth/', '/api/health', '/share/', '/api/share/', '/_astro/', '/favicon'];
 const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
@@ -22,7 +23,9 @@ export const onRequest = defineMiddleware(async (ctx, next) => {
   // cross-site, and a data-acquisition PC's `curl -F` sends no Origin header.
   const bearer = /^bearer\s+/i.test(request.headers.get('authorization') ?? '');
   if (!SAFE_METHODS.has(request.method) && !bearer && !path.startsWith('/api/auth/') && !path.startsWith('/api/share/') && !path.startsWith('/share/')) {
-    if (request.headers.get('origin') !== url.origin) return errorResponse(errors.crossOrigin());
+    // behind a TLS proxy the request URL is the inner one: the public address counts too
+    const origin = request.headers.get('origin');
+    if (origin !== url.origin && origin !== new URL(getConfig().PUBLIC_BASE_URL).origin) return errorResponse(errors.crossOrigin());
   }
 
   if (path.startsWith('/api/auth/') || path.startsWith('/_astro/')) return next();
