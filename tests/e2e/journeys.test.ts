@@ -1,0 +1,175 @@
+// The whole test in a real browser, as the four people do it: the engineer sets up the plan
+// (with a validation error shown and fixed), the technician uploads and reduces, the engineer
+// reviews, dispositions and signs, QA releases, exports and shares, and the inspector reads the
+// record through the link with no account. Every screen is saved under tests/e2e/screenshots/;
+// any console error, failed request or server error fails the journey.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { inject } from 'vitest';
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import type { ChildProcess } from 'node:child_process';
+import { openBrowser, signIn, type Session } from './browser';
+import { makeHydrotestCsv } from '../support/hydrotest-log';
+import { startWorker, stopProcess } from '../support/processes';
+
+const password = () => inject('testPassword');
+const files = mkdtempSync(path.join(tmpdir(), 'hoopline-e2e-'));
+const plan = {
+  units: 'SI',
+  vessel: { name: 'E2E-7', shape: 'cylinder', ends: 'closed', insideDiameter: 1000, wallThickness: 10, length: 4000, features: [{ kind: 'nozzle', axialPosition: 2000, clockDeg: 0, size: 120 }] },
+  material: { name: 'Carbon steel, e2e', elasticModulus: 200000, poissonRatio: 0.3, yieldStrength: 260 },
+  model: 'lame',
+  testPressure: 2,
+  columns: { time: 'time_s', pressure: 'P [MPa]' },
+  gauges: [
+    { id: 'H1', kind: 'uniaxial', channels: ['SG1'], angleDeg: 90, axialPosition: 1000, clockDeg: 90 },
+    { id: 'A1', kind: 'uniaxial', channels: ['SG2'], angleDeg: 0, axialPosition: 1000, clockDeg: 120 },
+    { id: 'A2', kind: 'uniaxial', channels: ['SG3'], angleDeg: 0, axialPosition: 3000, clockDeg: 240 },
+  ],
+};
+const planFile = path.join(files, 'e2e-plan.json');
+writeFileSync(planFile, JSON.stringify(plan, null, 2));
+const logFile = path.join(files, 'e2e-hydrotest.csv');
+writeFileSync(logFile, makeHydrotestCsv({ insideDiameter: 1000, wallThickness: 10, E: 200000, nu: 0.3, testPressure: 2, channels: [{ name: 'SG1', angleDeg: 90 }, { name: 'SG2', angleDeg: 0 }, { name: 'SG3', angleDeg: 0, scale: 0.88 }] }));
+
+let worker: ChildProcess;
+let testId = 0;
+let shareUrl = '';
+const sessions: Session[] = [];
+
+async function session(journey: string): Promise<Session> {
+  const s = await openBrowser(journey, inject('baseUrl'));
+  sessions.push(s);
+  return s;
+}
+
+function noProblems(s: Session) {
+  expect(s.problems, 'console errors, failed requests or server errors').toEqual([]);
+}
+
+beforeAll(() => { worker = startWorker(inject('env'), 'w-e2e'); });
+afterAll(async () => {
+  await Promise.all(sessions.map((s) => s.close()));
+  await stopProcess(worker);
+});
+
+describe('a hydrotest from plan to inspector link, in the browser', () => {
+  it('the engineer creates the test from a plan file, meets a validation error and fixes it', async () => {
+    const s = await session('1-engineer-plan');
+    const { page } = s;
+    await signIn(page, 'engineer@example.com', password());
+    await s.shoot('dashboard');
+    await page.getByRole('link', { name: 'New test' }).click();
+    await page.waitForURL('**/tests/new');
+    await page.locator('#plan-import').setInputFiles(planFile);
+    await page.getByLabel('Test name').fill('E2E hydrotest of vessel E2E-7');
+    await s.shoot('new-test-imported');
+    await page.getByRole('button', { name: /create test/i }).click();
+    await page.waitForURL(/\/tests\/\d+\/plan$/);
+    testId = Number(/\/tests\/(\d+)\//.exec(page.url())![1]);
+    expect(testId).toBeGreaterThan(0);
+    await s.shoot('plan-saved');
+
+    const wall = page.getByLabel(/^Wall thickness/);
+    await wall.fill('-3');
+    await expect.poll(async () => (await page.getByText(/must be greater than 0/).count()) > 0).toBe(true);
+    await expect.poll(async () => wall.getAttribute('aria-invalid')).toBe('true');
+    await s.shoot('plan-validation-error');
+    await wall.fill('10');
+    await expect.poll(async () => wall.getAttribute('aria-invalid')).not.toBe('true');
+    await page.getByRole('button', { name: /save plan/i }).click();
+    await expect.poll(async () => page.getByRole('status').filter({ hasText: /saved/i }).count()).toBeGreaterThan(0);
+    await s.shoot('plan-fixed-and-saved');
+    noProblems(s);
+  });
+
+  it('the technician uploads a log, sees the progress bar and the finished reduction', async () => {
+    const s = await session('2-technician-upload');
+    const { page } = s;
+    await signIn(page, 'technician@example.com', password());
+    await page.goto(`/tests/${testId}/logs`);
+    await s.shoot('logs-empty');
+    await page.locator('#log-file').setInputFiles(logFile);
+    await page.getByText(/Stored e2e-hydrotest\.csv/).waitFor();
+    await expect.poll(async () => page.getByRole('cell', { name: 'e2e-hydrotest.csv' }).count()).toBeGreaterThan(0);
+    await s.shoot('log-uploaded');
+    await page.getByRole('button', { name: 'Reduce all logs' }).click();
+    await page.getByRole('progressbar', { name: /Reduction \d+ progress/ }).waitFor();
+    await page.getByText(/Reduction \d+: done/).waitFor({ timeout: 60_000 });
+    await page.getByText(/Verdict before dispositions: flagged/).waitFor();
+    await s.shoot('reduction-done');
+    noProblems(s);
+  });
+
+  it('the engineer reviews the plots, dispositions the flagged gauge and signs the review', async () => {
+    const s = await session('3-engineer-review');
+    const { page } = s;
+    await signIn(page, 'engineer@example.com', password());
+    await page.goto(`/tests/${testId}/review`);
+    await page.getByText('Measured over predicted slope').waitFor();
+    await expect.poll(async () => page.locator('canvas').count()).toBeGreaterThanOrEqual(2);
+    await s.shoot('review-flagged');
+    await page.getByRole('button', { name: 'Sign engineering review' }).isDisabled().then((d) => expect(d).toBe(true));
+    await page.getByRole('button', { name: /Disposition…/ }).first().click();
+    await page.getByLabel(/Reason \(required\)/).fill('Bond of A2 inspected: edge lifted; axial strain taken from A1 and the rosette-free mirror gauge.');
+    await page.getByRole('radio', { name: /Exclude/ }).check();
+    await page.getByRole('button', { name: /Record disposition/ }).click();
+    await page.getByText('Verdict: Conforms', { exact: false }).waitFor();
+    await s.shoot('review-dispositioned');
+    page.once('dialog', (d) => void d.accept());
+    await page.getByRole('button', { name: 'Sign engineering review' }).click();
+    await page.getByText(/Reviewed.*by/).first().waitFor();
+    await s.shoot('review-signed');
+    noProblems(s);
+  });
+
+  it('QA releases the record, exports it and creates an e-mailed share link', async () => {
+    const s = await session('4-qa-release');
+    const { page } = s;
+    await signIn(page, 'qa@example.com', password());
+    await s.shoot('dashboard-needs-qa');
+    await page.goto(`/tests/${testId}/review`);
+    page.once('dialog', (d) => void d.accept());
+    await page.getByRole('button', { name: 'Release and lock' }).click();
+    await page.getByText(/Released.*the record is locked/).waitFor();
+    await s.shoot('released');
+    await page.goto(`/tests/${testId}/report`);
+    await s.shoot('report');
+    const pdfHref = await page.getByRole('link', { name: 'Open PDF report' }).getAttribute('href');
+    const pdf = await page.request.get(pdfHref!);
+    expect(pdf.status()).toBe(200);
+    expect((await pdf.body()).subarray(0, 5).toString()).toBe('%PDF-');
+    const download = page.waitForEvent('download');
+    await page.getByRole('link', { name: 'Download CSV summary' }).click();
+    expect((await download).suggestedFilename()).toMatch(/\.csv$/);
+    await page.getByLabel("Inspector's e-mail (optional)").fill('inspector@example.com');
+    await page.getByRole('button', { name: 'Create link' }).click();
+    const link = page.getByLabel('Share link');
+    await link.waitFor();
+    shareUrl = await link.inputValue();
+    expect(shareUrl).toMatch(/\/share\/[A-Za-z0-9_-]{43}$/);
+    await s.shoot('share-link-created');
+    noProblems(s);
+  });
+
+  it('the inspector opens the link with no account, sees the plots and finds no control that writes', async () => {
+    const s = await session('5-inspector');
+    const { page } = s;
+    await page.goto(new URL(shareUrl).pathname);
+    await page.getByRole('heading', { name: 'E2E hydrotest of vessel E2E-7' }).waitFor();
+    await expect.poll(async () => page.locator('canvas').count()).toBeGreaterThanOrEqual(2);
+    await s.shoot('shared-record');
+    for (const name of [/sign/i, /release/i, /record disposition/i, /create link/i, /reduce/i, /revoke/i, /save/i]) {
+      expect(await page.getByRole('button', { name }).count(), String(name)).toBe(0);
+    }
+    expect(await page.locator('textarea, input[type=file], input[type=radio]').count()).toBe(0);
+    noProblems(s);
+    const write = await page.evaluate(async (u) => (await fetch(u.replace('/share/', '/api/share/'), { method: 'POST', body: '{}' })).status, new URL(shareUrl).pathname);
+    expect(write).toBe(405);
+    // the account pages stay closed to the link's holder
+    await page.goto(`/tests/${testId}`);
+    expect(new URL(page.url()).pathname).toBe('/signin');
+    // (the 405 of the probe above is logged by the browser as a console error, on purpose)
+  });
+});
