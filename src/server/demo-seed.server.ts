@@ -14,6 +14,7 @@ import { inspectLogHead, parsePlan, type PlanInput } from '../lib/reduction';
 import { syntheticLog } from '../lib/reduction/testing/synthetic-log';
 import { createHash } from 'node:crypto';
 import { audit } from './audit.server';
+import { gaugeRows } from './plans.server';
 import { putObject } from './storage.server';
 
 export const demoPlan: PlanInput & { remarks?: string } = {
@@ -53,12 +54,12 @@ export async function seedDemoScenario(): Promise<string[]> {
   const vessel = await db.query.vessels.findFirst({ where: eq(vessels.tag, demoVessel.tag) });
   if (!engineer || !technician || !vessel) return done;
   const plan = parsePlan(demoPlan);
-  const gaugeRows = plan.gauges.map((g) => ({ gaugeId: g.id, kind: g.kind, channels: g.channels, angleDeg: g.angleDeg, gaugeFactor: g.gaugeFactor, instrumentGaugeFactor: g.instrumentGaugeFactor, transverseSensitivity: g.transverseSensitivity, distanceToDiscontinuity: g.distanceToDiscontinuity ?? null, axialPosition: g.axialPosition ?? null, clockDeg: g.clockDeg ?? null }));
+  const rows = gaugeRows(plan);
 
   if (!(await db.query.tests.findFirst({ where: eq(tests.name, LOGGED) }))) {
     const [row] = await db.insert(tests).values({ name: LOGGED, vesselId: vessel.id, plan: demoPlan, ownerId: engineer.id, status: 'logging' }).$returningId();
     const testId = row!.id;
-    await replaceGauges(db, testId, gaugeRows);
+    await replaceGauges(db, testId, rows);
     const csv = syntheticLog(plan, { rateHz: 2, holdSeconds: 90, rampSeconds: 45, seed: 102, gauges: { A2: { scale: 0.88 }, H3: { scale: 1.22 } }, format: { preamble: ['unit,DAQ bay 2', 'operator,demo'] } });
     const sha256 = createHash('sha256').update(csv).digest('hex');
     const key = `tests/${testId}/logs/demo-${sha256.slice(0, 12)}.csv`;
@@ -75,7 +76,7 @@ export async function seedDemoScenario(): Promise<string[]> {
   }
   if (!(await db.query.tests.findFirst({ where: eq(tests.name, PLANNED) }))) {
     const [row] = await db.insert(tests).values({ name: PLANNED, vesselId: vessel.id, plan: { ...demoPlan, testPressure: 1.95 }, ownerId: engineer.id, status: 'draft' }).$returningId();
-    await replaceGauges(db, row!.id, gaugeRows);
+    await replaceGauges(db, row!.id, rows);
     done.push(PLANNED);
   }
   return done;

@@ -57,7 +57,8 @@ async function resolveVessel(plan: Plan, user: RequestUser): Promise<number> {
   });
 }
 
-function gaugeRows(plan: Plan) {
+/** The gauge rows (the installation as planned) of a plan. */
+export function gaugeRows(plan: Plan) {
   return plan.gauges.map((g) => ({
     gaugeId: g.id,
     kind: g.kind,
