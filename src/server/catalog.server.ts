@@ -13,7 +13,7 @@ export const materialBody = z.object({
   yieldStrengthMPa: z.number().gt(0),
 });
 
-const feature = z.object({ kind: z.enum(['head', 'nozzle', 'support', 'thickness-change']), axialPosition: z.number(), clockDeg: z.number().min(0).max(360).optional(), size: z.number().min(0).optional() });
+const feature = z.object({ id: z.string().max(60).optional(), name: z.string().max(120).optional(), kind: z.enum(['head', 'nozzle', 'support', 'thickness-change']), axialPosition: z.number(), clockDeg: z.number().min(0).max(360).optional(), size: z.number().min(0).optional() });
 
 export const vesselBody = z.object({
   tag: z.string().trim().min(1).max(60),

@@ -1,0 +1,109 @@
+// Where a plan problem is shown: an issue path from listPlanIssues or the server's 422
+// (`gauges[2].channels[1]`) maps to the id of the input that edits it, or to the nearest section
+// that holds it. Pure; used by the editor and its tests.
+import type { PlanDraft, PlanPath } from './plan-draft';
+
+export interface PlanIssue { path: string; message: string }
+export interface PlacedIssue extends PlanIssue {
+  /** the input or section that shows it; null when only the summary can */
+  fieldId: string | null;
+  /** the field in words, for the summary */
+  label: string;
+}
+
+/** `gauges[2].channels[1]` → ['gauges', 2, 'channels', 1]; `plan` (the root) → []. */
+export function parseIssuePath(path: string): PlanPath {
+  if (path === '' || path === 'plan') return [];
+  const out: PlanPath = [];
+  for (const part of path.match(/[^.[\]]+/g) ?? []) out.push(/^\d+$/.test(part) ? Number(part) : part);
+  return out;
+}
+
+/** The DOM id of the input for a plan path: ['vessel', 'wallThickness'] → `plan-vessel-wallThickness`. */
+export function fieldIdForPath(path: PlanPath): string {
+  return ['plan', ...path].join('-');
+}
+
+const SECTION_FIELDS: Record<string, string[]> = {
+  vessel: ['name', 'shape', 'ends', 'insideDiameter', 'wallThickness', 'length'],
+  material: ['name', 'elasticModulus', 'poissonRatio', 'yieldStrength'],
+  columns: ['pressure', 'time'],
+  tolerances: ['slopeBand', 'minRSquared', 'hysteresis', 'zeroShiftMicrostrain', 'zeroShiftFraction', 'noResponseMicrostrain', 'yieldFraction'],
+};
+const FEATURE_FIELDS = ['kind', 'name', 'axialPosition', 'clockDeg', 'size'];
+const GAUGE_FIELDS = ['id', 'kind', 'angleDeg', 'gaugeFactor', 'instrumentGaugeFactor', 'transverseSensitivity', 'distanceToDiscontinuity', 'axialPosition', 'clockDeg'];
+
+const list = (v: unknown): unknown[] => (Array.isArray(v) ? v : []);
+
+/** Every id the editor renders for this plan: inputs and the sections that show whole-section problems. */
+export function listFieldIds(plan: PlanDraft): Set<string> {
+  const ids = new Set<string>(['plan-units', 'plan-model', 'plan-testPressure', 'plan-gauges', 'plan-vessel-features']);
+  for (const [section, fields] of Object.entries(SECTION_FIELDS)) {
+    ids.add(fieldIdForPath([section]));
+    for (const f of fields) ids.add(fieldIdForPath([section, f]));
+  }
+  const vessel = (plan.vessel ?? {}) as Record<string, unknown>;
+  list(vessel.features).forEach((_, i) => FEATURE_FIELDS.forEach((f) => ids.add(fieldIdForPath(['vessel', 'features', i, f]))));
+  list(plan.gauges).forEach((g, i) => {
+    GAUGE_FIELDS.forEach((f) => ids.add(fieldIdForPath(['gauges', i, f])));
+    const kind = (g as { kind?: unknown } | null)?.kind;
+    const n = kind === 'rosette-rectangular' || kind === 'rosette-delta' ? 3 : 1;
+    for (let k = 0; k < n; k++) ids.add(fieldIdForPath(['gauges', i, 'channels', k]));
+  });
+  return ids;
+}
+
+/**
+ * The id that shows an issue at `path`: the input itself, else its first element (a list such as
+ * a gauge's channels), else the nearest enclosing section; null for the plan as a whole.
+ */
+export function resolveFieldId(path: PlanPath, ids: Set<string>): string | null {
+  for (let n = path.length; n > 0; n--) {
+    const id = fieldIdForPath(path.slice(0, n));
+    if (ids.has(id)) return id;
+    if (n === path.length && ids.has(`${id}-0`)) return `${id}-0`;
+  }
+  return null;
+}
+
+const WORDS: Record<string, string> = {
+  units: 'Units', model: 'Model', testPressure: 'Test pressure', gauges: 'Gauges', vessel: 'Vessel', material: 'Material',
+  columns: 'Log columns', tolerances: 'Tolerances', holdDetection: 'Hold detection', features: 'Features',
+  name: 'name', shape: 'shape', ends: 'ends', insideDiameter: 'inside diameter', wallThickness: 'wall thickness', length: 'length',
+  elasticModulus: 'elastic modulus', poissonRatio: "Poisson's ratio", yieldStrength: 'yield strength',
+  pressure: 'pressure column', time: 'time column',
+  slopeBand: 'slope band', minRSquared: 'minimum R²', hysteresis: 'hysteresis limit', zeroShiftMicrostrain: 'zero shift (µε)',
+  zeroShiftFraction: 'zero shift (fraction of peak)', noResponseMicrostrain: 'no-response floor', yieldFraction: 'near-yield fraction',
+  id: 'id', kind: 'kind', channels: 'channels', angleDeg: 'angle', gaugeFactor: 'gauge factor', instrumentGaugeFactor: 'instrument gauge factor',
+  transverseSensitivity: 'transverse sensitivity', distanceToDiscontinuity: 'distance to discontinuity', axialPosition: 'axial position', clockDeg: 'clock position', size: 'size',
+};
+
+/** A path in words for the summary: `gauges[1].channels[2]` → "Gauge 2 (R1) channel C". */
+export function labelForPath(path: PlanPath, plan: PlanDraft): string {
+  if (path.length === 0) return 'Plan';
+  const [head, ...rest] = path;
+  if (head === 'gauges' && typeof rest[0] === 'number') {
+    const g = list(plan.gauges)[rest[0]] as { id?: unknown } | undefined;
+    const who = `Gauge ${rest[0] + 1}${typeof g?.id === 'string' && g.id ? ` (${g.id})` : ''}`;
+    if (rest[1] === 'channels' && typeof rest[2] === 'number') return `${who} channel ${'ABC'[rest[2]] ?? rest[2] + 1}`;
+    return rest.length > 1 ? `${who} ${WORDS[String(rest[1])] ?? rest[1]}` : who;
+  }
+  if (head === 'vessel' && rest[0] === 'features' && typeof rest[1] === 'number') {
+    return `Feature ${rest[1] + 1}${rest[2] !== undefined ? ' ' + (WORDS[String(rest[2])] ?? rest[2]) : ''}`;
+  }
+  const words = path.map((p) => (typeof p === 'number' ? String(p + 1) : WORDS[p] ?? p));
+  return words.join(' ').replace(/^./, (c) => c.toUpperCase());
+}
+
+/** Every issue with the field that shows it and a label; and the messages per field id. */
+export function placeIssues(issues: readonly PlanIssue[], plan: PlanDraft): { placed: PlacedIssue[]; byField: Map<string, string[]> } {
+  const ids = listFieldIds(plan);
+  const byField = new Map<string, string[]>();
+  const placed = issues.map((i) => {
+    const path = parseIssuePath(i.path);
+    const fieldId = resolveFieldId(path, ids);
+    if (fieldId) byField.set(fieldId, [...(byField.get(fieldId) ?? []), i.message]);
+    return { ...i, fieldId, label: labelForPath(path, plan) };
+  });
+  return { placed, byField };
+}
