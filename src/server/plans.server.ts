@@ -2,7 +2,7 @@
 // material and vessel, keep the gauge rows in step, and refuse changes to a released test.
 import { getDb } from '../db/client.server';
 import { findTest, insertTest, replaceGauges, updateTest } from '../db/queries/tests';
-import { insertMaterial, insertVessel, matchMaterial, matchVessel } from '../db/queries/vessels';
+import { findVesselByTag, insertMaterial, insertVessel, matchMaterial, matchVessel } from '../db/queries/vessels';
 import type { Test } from '../db/schema';
 import { parsePlan, type Plan } from '../lib/reduction/plan';
 import { inToMm, psiToMPa } from '../lib/reduction/units';
@@ -46,9 +46,11 @@ async function resolveVessel(plan: Plan, user: RequestUser): Promise<number> {
   const materialId = material?.id ?? (await insertMaterial(db, si.material));
   const match = await matchVessel(db, { ...si.vessel, materialId });
   if (match) return match.id;
+  const named = plan.vessel.name?.trim().slice(0, 40);
   const stamp = Date.now().toString(36).toUpperCase();
+  const tag = named && !(await findVesselByTag(db, named)) ? named : named ? `${named}-${stamp}` : `V-${stamp}`;
   return insertVessel(db, {
-    tag: plan.vessel.name?.trim() ? `${plan.vessel.name.trim().slice(0, 40)}-${stamp}` : `V-${stamp}`,
+    tag,
     name: plan.vessel.name?.trim() || `Vessel from plan (${plan.vessel.shape}, ID ${plan.vessel.insideDiameter} ${plan.units === 'US' ? 'in' : 'mm'})`,
     ...si.vessel,
     materialId,

@@ -95,8 +95,14 @@ describe('a hydrotest from plan to inspector link, in the browser', () => {
     await signIn(page, 'technician@example.com', password());
     await page.goto(`/tests/${testId}/logs`);
     await s.shoot('logs-empty');
+    await page.evaluate(() => {
+      const w = window as unknown as { sawUploadBar: boolean };
+      w.sawUploadBar = false;
+      new MutationObserver(() => { if (document.querySelector('[role=progressbar][aria-label="Upload progress"]')) w.sawUploadBar = true; }).observe(document.body, { childList: true, subtree: true });
+    });
     await page.locator('#log-file').setInputFiles(logFile);
     await page.getByText(/Stored e2e-hydrotest\.csv/).waitFor();
+    expect(await page.evaluate(() => (window as unknown as { sawUploadBar: boolean }).sawUploadBar)).toBe(true);
     await expect.poll(async () => page.getByRole('cell', { name: 'e2e-hydrotest.csv' }).count()).toBeGreaterThan(0);
     await s.shoot('log-uploaded');
     await page.getByRole('button', { name: 'Reduce all logs' }).click();

@@ -1,4 +1,5 @@
 import { useRef, useState, type DragEvent } from 'react';
+import ProgressBar from './ProgressBar';
 import { formatBytes, formatSeconds, uploadWithProgress, type UploadProgress } from './upload-progress';
 
 interface Props { testId: number; onUploaded: () => void }
@@ -51,7 +52,7 @@ export default function LogUploader({ testId, onUploaded }: Props) {
       {progress && (
         <div role="status" aria-live="polite">
           <div className="mb-1 flex justify-between text-sm"><span>Uploading {name}</span><span className="num">{pct} %</span></div>
-          <progress className="h-3 w-full accent-ink-800" max={100} value={pct} aria-label="Upload progress">{pct} %</progress>
+          <ProgressBar value={pct} label="Upload progress" />
           <p className="num mt-1 text-sm text-ink-700">{formatBytes(progress.sent)} of {formatBytes(progress.total)} · {formatBytes(progress.rateBytesPerSecond)}/s · {formatSeconds(progress.secondsLeft)} left</p>
         </div>
       )}

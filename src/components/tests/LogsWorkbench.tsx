@@ -3,6 +3,7 @@ import { api } from '../api';
 import LogList, { type LogRow } from './LogList';
 import LogUploader from './LogUploader';
 import ReductionPanel from './ReductionPanel';
+import { announceTestChanged } from './TestStatusSteps';
 
 interface Props { testId: number; canUpload: boolean; locked: boolean; initialLogs: LogRow[]; expected: { pressure: string; time?: string; channels: string[] } }
 
@@ -10,7 +11,7 @@ interface Props { testId: number; canUpload: boolean; locked: boolean; initialLo
 export default function LogsWorkbench({ testId, canUpload, locked, initialLogs, expected }: Props) {
   const [logs, setLogs] = useState<LogRow[]>(initialLogs);
   const [refreshKey, setRefreshKey] = useState(0);
-  const reload = () => api<{ items: LogRow[] }>(`/api/tests/${testId}/logs`).then((r) => { setLogs(r.items); setRefreshKey((k) => k + 1); });
+  const reload = () => api<{ items: LogRow[] }>(`/api/tests/${testId}/logs`).then((r) => { setLogs(r.items); setRefreshKey((k) => k + 1); announceTestChanged(testId); });
   useEffect(() => { setLogs(initialLogs); }, [initialLogs]);
   return (
     <div className="space-y-6">

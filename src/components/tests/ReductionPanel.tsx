@@ -1,5 +1,7 @@
 import { useEffect, useRef, useState } from 'react';
 import { api, formatDateTime } from '../api';
+import ProgressBar from './ProgressBar';
+import { announceTestChanged } from './TestStatusSteps';
 
 interface ReductionRow { id: number; status: 'queued' | 'running' | 'done' | 'failed'; progress: number; error: string | null; superseded: boolean; createdAt: string; finishedAt: string | null }
 interface Detail extends ReductionRow { result: { verdict: string; gauges: { outcome: string }[]; warnings: string[] } | null }
@@ -18,7 +20,7 @@ export default function ReductionPanel({ testId, canReduce, hasLogs, refreshKey 
     const d = await api<Detail>(`/api/reductions/${id}`);
     setWatching(d);
     if (d.status === 'queued' || d.status === 'running') timer.current = window.setTimeout(() => void watch(id), 700);
-    else void load();
+    else { void load(); announceTestChanged(testId); }
   }
 
   useEffect(() => {
@@ -45,7 +47,7 @@ export default function ReductionPanel({ testId, canReduce, hasLogs, refreshKey 
       {watching && (
         <div role="status" aria-live="polite" className="rounded-md border border-ink-800/15 bg-ink-50 p-3">
           <div className="mb-1 flex justify-between text-sm font-medium"><span>Reduction {watching.id}: {watching.status}</span><span className="num">{pct} %</span></div>
-          <progress className="h-3 w-full accent-ink-800" max={100} value={pct} aria-label={`Reduction ${watching.id} progress`}>{pct} %</progress>
+          <ProgressBar value={pct} label={`Reduction ${watching.id} progress`} />
           {watching.status === 'done' && watching.result && (
             <p className="mt-2 text-sm">Verdict before dispositions: <strong>{watching.result.verdict}</strong> · {watching.result.gauges.length} gauges and grids, {flagged} flagged. <a className="font-semibold underline" href={`/tests/${testId}/review`}>Open the review</a></p>
           )}

@@ -1,5 +1,6 @@
 import { useState } from 'react';
 import { api } from '../api';
+import { announceTestChanged } from '../tests/TestStatusSteps';
 import type { RecordView } from './record-types';
 
 interface Props { record: RecordView; role: string; userEmail: string; onChanged: () => void }
@@ -15,7 +16,7 @@ export default function SignOffBar({ record, role, userEmail, onChanged }: Props
   async function act(path: 'review' | 'release', question: string) {
     if (!window.confirm(question)) return;
     setBusy(true); setError(null);
-    try { await api(`/api/tests/${record.test.id}/${path}`, { method: 'POST', jsonBody: {} }); onChanged(); }
+    try { await api(`/api/tests/${record.test.id}/${path}`, { method: 'POST', jsonBody: {} }); onChanged(); announceTestChanged(record.test.id); }
     catch (e) { setError((e as Error).message); } finally { setBusy(false); }
   }
 
