@@ -32,6 +32,9 @@ export async function openBrowser(journey: string, baseUrl: string): Promise<Ses
     shoot: async (name) => {
       n += 1;
       await page.waitForLoadState('networkidle').catch(() => undefined);
+      // from the top, so sticky bars sit where a reader first sees them
+      await page.evaluate(() => window.scrollTo(0, 0));
+      await page.waitForTimeout(150);
       await page.screenshot({ path: path.join(SCREENSHOT_DIR, `${journey}-${String(n).padStart(2, '0')}-${name}.png`), fullPage: true });
     },
     close: async () => { await context.close(); rmSync(profile, { recursive: true, force: true }); },
