@@ -28,6 +28,17 @@ export interface ShellState {
   axialStress: number;
 }
 
+/** Hooke's law for biaxial stress with σr = 0 (the outer surface, or a thin wall). */
+function surfaceState(sh: number, sa: number, E: number, nu: number): ShellState {
+  return {
+    hoopStress: sh,
+    axialStress: sa,
+    hoopStrain: (sh - nu * sa) / E,
+    axialStrain: (sa - nu * sh) / E,
+    radialStrain: (-nu * (sh + sa)) / E,
+  };
+}
+
 /** Thin shell with radius r (Roark Table 13.1): σh = p r/t, σa = p r/2t (closed), sphere p r/2t. */
 export function membraneState(p: number, r: number, t: number, E: number, nu: number, shape: Shape, ends: Ends = 'closed'): ShellState {
   let sh: number, sa: number;
@@ -36,13 +47,7 @@ export function membraneState(p: number, r: number, t: number, E: number, nu: nu
     sh = (p * r) / t;
     sa = ends === 'closed' ? (p * r) / (2 * t) : 0;
   }
-  return {
-    hoopStress: sh,
-    axialStress: sa,
-    hoopStrain: (sh - nu * sa) / E,
-    axialStrain: (sa - nu * sh) / E,
-    radialStrain: (-nu * (sh + sa)) / E,
-  };
+  return surfaceState(sh, sa, E, nu);
 }
 
 /** Lamé thick shell at the outer surface r = b (σr = 0 there); a inner, b outer radius. */
@@ -56,13 +61,7 @@ export function lameOuterState(p: number, a: number, b: number, E: number, nu: n
     sh = 2 * A; // σθ(b) = A (1 + b²/b²)
     sa = ends === 'closed' ? A : 0;
   }
-  return {
-    hoopStress: sh,
-    axialStress: sa,
-    hoopStrain: (sh - nu * sa) / E,
-    axialStrain: (sa - nu * sh) / E,
-    radialStrain: (-nu * (sh + sa)) / E,
-  };
+  return surfaceState(sh, sa, E, nu);
 }
 
 /** Lamé stresses at radius r: hoop, radial, axial (axial = 0 for open ends; sphere: axial = hoop). */
