@@ -1,6 +1,6 @@
 import { and, desc, eq, inArray, lt, or, sql } from 'drizzle-orm';
 import type { Db } from '../client.server';
-import { gaugeResults, reductions, rosetteResults, tests, type Reduction } from '../schema';
+import { auditEvents, gaugeResults, logFiles, reductions, rosetteResults, tests, type Reduction } from '../schema';
 
 export async function queueReduction(db: Db, r: { testId: number; plan: unknown; logIds: number[]; queuedBy: number | null }) {
   const [row] = await db.insert(reductions).values({ testId: r.testId, parameters: { plan: r.plan, logIds: r.logIds }, queuedBy: r.queuedBy, status: 'queued' }).$returningId();
@@ -55,14 +55,14 @@ export interface RosetteResultInput { rosetteId: string; principalStrain1: numbe
 
 /**
  * Store a finished job in one transaction — only if this worker still holds it, so a job is
- * never done twice — and mark the test's older done reductions superseded. Returns whether
+ * never done twice — mark the test's older done reductions superseded, and write the audit event. Returns whether
  * it was stored and whether it is the newest done reduction of its test.
  */
-export async function completeReduction(db: Db, o: { id: number; testId: number; workerId: string; engineVersion: string; result: unknown; seriesKey: string; gauges: GaugeResultInput[]; rosettes: RosetteResultInput[] }): Promise<{ stored: boolean; current: boolean }> {
+export async function completeReduction(db: Db, o: { id: number; testId: number; workerId: string; engineVersion: string; result: unknown; seriesKey: string; gauges: GaugeResultInput[]; rosettes: RosetteResultInput[]; audit: { actor: string; details: Record<string, unknown> }; summary: { verdict: 'conforms' | 'flagged' | 'incomplete'; flaggedCount: number; logIds: number[] } }): Promise<{ stored: boolean; current: boolean }> {
   return db.transaction(async (tx) => {
     // Lock the test row first: completions of one test's reductions run one after another, so
     // marking older ones superseded never deadlocks with a second worker doing the same.
-    await tx.select({ id: tests.id }).from(tests).where(eq(tests.id, o.testId)).for('update');
+    const [test] = await tx.select({ id: tests.id, status: tests.status }).from(tests).where(eq(tests.id, o.testId)).for('update');
     const [job] = await tx.select().from(reductions).where(eq(reductions.id, o.id)).for('update');
     if (!job || job.status !== 'running' || job.leaseOwner !== o.workerId) return { stored: false, current: false };
     if (o.gauges.length) await tx.insert(gaugeResults).values(o.gauges.map((g) => ({ ...g, reductionId: o.id })));
@@ -71,6 +71,15 @@ export async function completeReduction(db: Db, o: { id: number; testId: number;
     const current = Number(newer?.n ?? 0) === 0;
     await tx.update(reductions).set({ status: 'done', progress: 1, result: o.result, seriesKey: o.seriesKey, engineVersion: o.engineVersion, finishedAt: new Date(), leaseOwner: null, leaseUntil: null, error: null, superseded: !current }).where(eq(reductions.id, o.id));
     if (current) await tx.update(reductions).set({ superseded: true }).where(and(eq(reductions.testId, o.testId), eq(reductions.status, 'done'), lt(reductions.id, o.id)));
+    if (current && test && test.status !== 'released') {
+      // the newest reduction sets the test's verdict; `reduced` only when it covers every log
+      const logs = await tx.select({ id: logFiles.id }).from(logFiles).where(eq(logFiles.testId, o.testId));
+      const coversAll = logs.every((l) => o.summary.logIds.includes(l.id));
+      const now = new Date();
+      await tx.update(tests).set({ currentReductionId: o.id, verdict: o.summary.verdict, flaggedCount: o.summary.flaggedCount, status: coversAll ? 'reduced' : 'logging', updatedAt: now, lastActivityAt: now }).where(eq(tests.id, o.testId));
+    }
+    // the audit row commits with the result: a done job always has its event
+    await tx.insert(auditEvents).values({ actor: o.audit.actor, action: 'reduction-done', testId: o.testId, details: o.audit.details });
     return { stored: true, current };
   });
 }

@@ -1,18 +1,15 @@
 // Runs one reduction job: claims it from the MariaDB queue, streams its logs from object
 // storage through the engine, reports progress while extending its lease, and stores the
 // result — or fails the job with a clear message (bad input: for good; a fault: retried).
-
+import { inArray } from 'drizzle-orm';
 import { getDb } from '../../db/client.server';
-import { listLogs } from '../../db/queries/logs';
 import { claimNextReduction, completeReduction, failReduction, heartbeatReduction, type GaugeResultInput, type RosetteResultInput } from '../../db/queries/reductions';
-import { findTest, updateTest } from '../../db/queries/tests';
 import { logFiles, type Reduction } from '../../db/schema';
 import { ENGINE_VERSION, parsePlan, reduceLog } from '../../lib/reduction';
 import type { ReductionResult } from '../../lib/reduction/types';
 import { audit } from '../audit.server';
 import { getConfig } from '../config';
 import { getObjectStream, putObject } from '../storage.server';
-import { inArray } from 'drizzle-orm';
 
 class LeaseLost extends Error {}
 
@@ -83,10 +80,12 @@ export async function runNextReduction(workerId: string, hooks: JobHooks = {}): 
     if (lost) throw new LeaseLost();
     const seriesKey = `reductions/${job.id}/series.json`;
     await putObject(seriesKey, JSON.stringify(series));
-    const stored = await completeReduction(db, { id: job.id, testId: job.testId, workerId, engineVersion: result.engineVersion ?? ENGINE_VERSION, result, seriesKey, gauges: gaugeRows(result), rosettes: rosetteRows(result) });
+    const stored = await completeReduction(db, {
+      id: job.id, testId: job.testId, workerId, engineVersion: result.engineVersion ?? ENGINE_VERSION, result, seriesKey, gauges: gaugeRows(result), rosettes: rosetteRows(result),
+      audit: { actor, details: { reductionId: job.id, verdict: result.verdict, attempt: job.attempts, worker: workerId } },
+      summary: { verdict: result.verdict, flaggedCount: result.gauges.filter((g) => g.outcome === 'flagged').length, logIds: job.parameters.logIds },
+    });
     if (!stored.stored) throw new LeaseLost();
-    if (stored.current) await markTestReduced(job, result);
-    await audit({ actor, action: 'reduction-done', testId: job.testId, details: { reductionId: job.id, verdict: result.verdict, attempt: job.attempts, worker: workerId } });
     await hooks.onFinished?.(job, 'done', { result }).catch((e) => console.error('notice after reduction failed:', e));
   } catch (err) {
     if (err instanceof LeaseLost) {
@@ -105,19 +104,4 @@ export async function runNextReduction(workerId: string, hooks: JobHooks = {}): 
   return job.id;
 }
 
-/** After the newest reduction of a test: its verdict, flag count, and `reduced` when it covers every log. */
-async function markTestReduced(job: Reduction, result: ReductionResult) {
-  const db = getDb();
-  const test = await findTest(db, job.testId);
-  if (!test || test.status === 'released') return;
-  const all = await listLogs(db, job.testId);
-  const coversAll = all.every((l) => job.parameters.logIds.includes(l.id));
-  const flagged = result.gauges.filter((g) => g.outcome === 'flagged').length;
-  await updateTest(db, job.testId, {
-    currentReductionId: job.id,
-    verdict: result.verdict,
-    flaggedCount: flagged,
-    status: coversAll ? 'reduced' : 'logging',
-  });
-}
 
