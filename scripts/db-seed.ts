@@ -6,7 +6,7 @@ import { getConfig } from '../src/server/config';
 
 const config = getConfig();
 if (!config.DEMO) {
-  console.log('DEMO is off: nothing seeded. Create the first admin with `npm run db:seed` and DEMO=true, or insert one by hand.');
+  console.log('DEMO is off: nothing seeded. Create the first administrator with `npm run user:add -- EMAIL "Name" admin`.');
   process.exit(0);
 }
 try {

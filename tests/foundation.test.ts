@@ -86,6 +86,21 @@ describe('access control', () => {
   });
 });
 
+describe('accounts from the command line', () => {
+  it('npm run user:add creates an account that can sign in, and refuses a duplicate', async () => {
+    const { spawnSync } = await import('node:child_process');
+    const run = (pw?: string) => spawnSync(process.execPath, ['--import', 'tsx', 'scripts/user-add.ts', 'first-admin@example.org', 'First Admin', 'admin'], { env: { ...process.env, ...(pw ? { HOOPLINE_NEW_PASSWORD: pw } : {}) }, encoding: 'utf8' });
+    const made = run();
+    expect(made.status).toBe(0);
+    const password = /password \(shown once\): (\S+)/.exec(made.stdout)?.[1];
+    expect(password).toBeTruthy();
+    expect(await new Client().signIn('first-admin@example.org', password)).toBe(true);
+    const again = run('another-password-1');
+    expect(again.status).toBe(2);
+    expect(again.stderr).toContain('exists already');
+  });
+});
+
 describe('API tokens', () => {
   it('authenticates with a token, and not with a revoked or wrong one', async () => {
     const tech = await signedIn('engineer@example.com');

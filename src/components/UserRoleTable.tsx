@@ -1,5 +1,6 @@
 import { useEffect, useState } from 'react';
 import { api, formatDateTime } from './api';
+import UserCreateForm from './UserCreateForm';
 
 type Role = 'technician' | 'engineer' | 'qa' | 'admin';
 interface UserRow { id: number; email: string; name: string; role: Role; disabled: boolean; lastSignInAt: string | null }
@@ -21,7 +22,8 @@ export default function UserRoleTable({ selfId }: { selfId: number }) {
   }
 
   return (
-    <div className="space-y-3">
+    <div className="space-y-5">
+      <UserCreateForm onCreated={() => void load()} />
       {message && <p role={message.kind === 'error' ? 'alert' : 'status'} className={message.kind === 'error' ? 'error-text' : 'text-sm text-ok'}>{message.text}</p>}
       <table className="table-base">
         <thead><tr><th scope="col">Name</th><th scope="col">E-mail</th><th scope="col">Role</th><th scope="col">Last sign-in</th></tr></thead>
