@@ -15,13 +15,15 @@ export function ensureMariaDBInstalled(log = console.log) {
   const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
   const run = (args) => {
     const r = spawnSync('apt-get', args, { stdio: 'inherit', env });
-    if (r.status !== 0) throw new Error(`apt-get ${args.join(' ')} failed (exit ${r.status}); install mariadb-server by hand`);
+    if (r.status !== 0)
+      throw new Error(`apt-get ${args.join(' ')} failed (exit ${r.status}); install mariadb-server by hand`);
   };
   run(['update']);
   run(['install', '-y', '--no-install-recommends', 'mariadb-server', 'mariadb-client']);
 }
 
-const bin = (name) => (existsSync(`/usr/sbin/${name}`) ? `/usr/sbin/${name}` : existsSync(`/usr/bin/${name}`) ? `/usr/bin/${name}` : name);
+const bin = (name) =>
+  existsSync(`/usr/sbin/${name}`) ? `/usr/sbin/${name}` : existsSync(`/usr/bin/${name}`) ? `/usr/bin/${name}` : name;
 
 function paths(dataDir) {
   return {
@@ -33,7 +35,10 @@ function paths(dataDir) {
 }
 
 function ping(socket) {
-  return spawnSync(bin('mariadb-admin'), ['--no-defaults', `--socket=${socket}`, '-uroot', 'ping'], { stdio: 'ignore' }).status === 0;
+  return (
+    spawnSync(bin('mariadb-admin'), ['--no-defaults', `--socket=${socket}`, '-uroot', 'ping'], { stdio: 'ignore' })
+      .status === 0
+  );
 }
 
 /** Whether the private server of this data directory is up. */
@@ -45,7 +50,14 @@ export function isMariaDBRunning(dataDir) {
  * Initialise (once) and start a private mariadbd; create the database and an app user for TCP.
  * Resolves when it answers. Returns { port, socket, url, pid, alreadyRunning }.
  */
-export async function startMariaDB({ dataDir, port, database = 'hoopline', user = 'hoopline', password = 'hoopline', log = console.log }) {
+export async function startMariaDB({
+  dataDir,
+  port,
+  database = 'hoopline',
+  user = 'hoopline',
+  password = 'hoopline',
+  log = console.log,
+}) {
   ensureMariaDBInstalled(log);
   const p = paths(dataDir);
   mkdirSync(dataDir, { recursive: true });
@@ -56,18 +68,39 @@ export async function startMariaDB({ dataDir, port, database = 'hoopline', user 
   if (!existsSync(path.join(p.data, 'mysql'))) {
     rmSync(p.data, { recursive: true, force: true });
     mkdirSync(p.data, { recursive: true });
-    const r = spawnSync(bin('mariadb-install-db'), [
-      '--no-defaults', '--user=root', `--datadir=${p.data}`,
-      '--auth-root-authentication-method=normal', '--skip-test-db', '--skip-name-resolve',
-    ], { encoding: 'utf8' });
+    const r = spawnSync(
+      bin('mariadb-install-db'),
+      [
+        '--no-defaults',
+        '--user=root',
+        `--datadir=${p.data}`,
+        '--auth-root-authentication-method=normal',
+        '--skip-test-db',
+        '--skip-name-resolve',
+      ],
+      { encoding: 'utf8' },
+    );
     if (r.status !== 0) throw new Error(`mariadb-install-db failed: ${r.stderr || r.stdout}`);
   }
-  const child = spawn(bin('mariadbd'), [
-    '--no-defaults', '--user=root', `--datadir=${p.data}`, '--bind-address=127.0.0.1', `--port=${port}`,
-    `--socket=${p.socket}`, `--pid-file=${p.pid}`, `--log-error=${p.log}`, '--skip-log-bin',
-    '--character-set-server=utf8mb4', '--collation-server=utf8mb4_unicode_ci',
-    '--innodb-buffer-pool-size=64M', '--max-connections=200',
-  ], { detached: true, stdio: 'ignore' });
+  const child = spawn(
+    bin('mariadbd'),
+    [
+      '--no-defaults',
+      '--user=root',
+      `--datadir=${p.data}`,
+      '--bind-address=127.0.0.1',
+      `--port=${port}`,
+      `--socket=${p.socket}`,
+      `--pid-file=${p.pid}`,
+      `--log-error=${p.log}`,
+      '--skip-log-bin',
+      '--character-set-server=utf8mb4',
+      '--collation-server=utf8mb4_unicode_ci',
+      '--innodb-buffer-pool-size=64M',
+      '--max-connections=200',
+    ],
+    { detached: true, stdio: 'ignore' },
+  );
   child.unref();
   const deadline = Date.now() + 30_000;
   while (!ping(p.socket)) {
@@ -88,7 +121,11 @@ export async function startMariaDB({ dataDir, port, database = 'hoopline', user 
 }
 
 function readPid(file) {
-  try { return Number(readFileSync(file, 'utf8').trim()) || null; } catch { return null; }
+  try {
+    return Number(readFileSync(file, 'utf8').trim()) || null;
+  } catch {
+    return null;
+  }
 }
 
 /** Stop the private server cleanly (mariadb-admin shutdown), waiting until it is gone. */
@@ -103,5 +140,8 @@ export async function stopMariaDB({ dataDir }) {
 
 /** Run SQL as root over the socket (tests use it to drop and recreate databases). */
 export function runRootSql({ dataDir }, sql) {
-  return execFileSync(bin('mariadb'), ['--no-defaults', `--socket=${paths(dataDir).socket}`, '-uroot', '-N', '-B'], { input: sql, encoding: 'utf8' });
+  return execFileSync(bin('mariadb'), ['--no-defaults', `--socket=${paths(dataDir).socket}`, '-uroot', '-N', '-B'], {
+    input: sql,
+    encoding: 'utf8',
+  });
 }

@@ -21,7 +21,9 @@ const data = path.resolve(values.data);
 const stateFile = path.join(data, 'services.state');
 
 const db = await startMariaDB({ dataDir: path.join(data, 'mariadb'), port: Number(values['db-port']) });
-console.log(`MariaDB   ${db.alreadyRunning ? 'already running' : 'started'} on 127.0.0.1:${db.port} (data ${path.join(data, 'mariadb')})`);
+console.log(
+  `MariaDB   ${db.alreadyRunning ? 'already running' : 'started'} on 127.0.0.1:${db.port} (data ${path.join(data, 'mariadb')})`,
+);
 const s3 = await startS3({ directory: path.join(data, 's3'), port: Number(values['s3-port']), bucket: values.bucket });
 console.log(`S3 fake   on ${s3.endpoint} (bucket ${values.bucket}, objects under ${path.join(data, 's3')})`);
 const smtp = await startSmtp({ directory: path.join(data, 'mail'), port: Number(values['smtp-port']) });

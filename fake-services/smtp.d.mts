@@ -1,1 +1,4 @@
-export function startSmtp(o: { directory: string; port: number }): Promise<{ port: number; close: () => Promise<void> }>;
+export function startSmtp(o: {
+  directory: string;
+  port: number;
+}): Promise<{ port: number; close: () => Promise<void> }>;

@@ -24,7 +24,13 @@ const planInput: PlanInput = {
   testPressure: 3.4,
   columns: { time: 'time_s', pressure: 'P [MPa]' },
   gauges: [
-    ...Array.from({ length: 6 }, (_, i) => ({ id: `U${i + 1}`, kind: 'uniaxial' as const, channels: [`SG${i + 1}`], angleDeg: i % 2 ? 0 : 90, distanceToDiscontinuity: 1500 })),
+    ...Array.from({ length: 6 }, (_, i) => ({
+      id: `U${i + 1}`,
+      kind: 'uniaxial' as const,
+      channels: [`SG${i + 1}`],
+      angleDeg: i % 2 ? 0 : 90,
+      distanceToDiscontinuity: 1500,
+    })),
     ...Array.from({ length: 4 }, (_, i) => ({
       id: `R${i + 1}`,
       kind: 'rosette-rectangular' as const,
@@ -43,7 +49,8 @@ const RATE = 900;
 async function ensureLog(name: string, targetRows: number): Promise<string> {
   const path = join(outDir, name);
   const metaPath = path + '.meta.json';
-  if (existsSync(path) && existsSync(metaPath) && JSON.parse(readFileSync(metaPath, 'utf8')).targetRows === targetRows) return path;
+  if (existsSync(path) && existsSync(metaPath) && JSON.parse(readFileSync(metaPath, 'utf8')).targetRows === targetRows)
+    return path;
   // nine holds and eight ramps, hold:ramp ≈ 2:1, sized to the row count at 900 Hz
   const duration = targetRows / RATE;
   const ramp = duration / (9 * 2 + 8);
@@ -51,7 +58,15 @@ async function ensureLog(name: string, targetRows: number): Promise<string> {
   process.stderr.write(`generating ${name} (${targetRows} rows)… `);
   const t0 = performance.now();
   const ws = createWriteStream(path);
-  for (const chunk of syntheticLogChunks(plan, { rateHz: RATE, holdSeconds: hold, rampSeconds: ramp, seed: 7, strainNoise: 2, chunkRows: 5000, format: { digits: 2 } })) {
+  for (const chunk of syntheticLogChunks(plan, {
+    rateHz: RATE,
+    holdSeconds: hold,
+    rampSeconds: ramp,
+    seed: 7,
+    strainNoise: 2,
+    chunkRows: 5000,
+    format: { digits: 2 },
+  })) {
     if (!ws.write(chunk)) await once(ws, 'drain');
   }
   ws.end();
@@ -86,7 +101,11 @@ interface Run {
 function run(cmd: string[]): Run {
   const args = haveTime ? ['-v', ...cmd] : cmd;
   const t0 = performance.now();
-  const r = spawnSync(haveTime ? '/usr/bin/time' : cmd[0]!, haveTime ? args : cmd.slice(1), { cwd: root, maxBuffer: 1 << 28, encoding: 'utf8' });
+  const r = spawnSync(haveTime ? '/usr/bin/time' : cmd[0]!, haveTime ? args : cmd.slice(1), {
+    cwd: root,
+    maxBuffer: 1 << 28,
+    encoding: 'utf8',
+  });
   const wallS = (performance.now() - t0) / 1000;
   let rssMB: number | null = null;
   const m = /Maximum resident set size \(kbytes\): (\d+)/.exec(r.stderr ?? '');
@@ -95,7 +114,19 @@ function run(cmd: string[]): Run {
     const j = /"maxRSSkB":(\d+)/.exec(r.stdout ?? '');
     if (j) rssMB = Number(j[1]) / 1024;
   }
-  return { wallS, rssMB, ok: r.status === 0, out: r.status === 0 ? r.stdout : (r.stderr ?? '').split('\n').filter((l) => !/^\s/.test(l) && l).slice(-3).join(' | ') };
+  return {
+    wallS,
+    rssMB,
+    ok: r.status === 0,
+    out:
+      r.status === 0
+        ? r.stdout
+        : (r.stderr ?? '')
+            .split('\n')
+            .filter((l) => !/^\s/.test(l) && l)
+            .slice(-3)
+            .join(' | '),
+  };
 }
 
 const cliCmd = (log: string) => [process.execPath, '--import', 'tsx', 'scripts/reduce.ts', planPath, log, '--compact'];
@@ -103,11 +134,24 @@ const cliCmd = (log: string) => [process.execPath, '--import', 'tsx', 'scripts/r
 async function main() {
   const small = await ensureLog('hydrotest-250k.csv', 250_000);
   const big = await ensureLog('hydrotest-1m.csv', 1_000_000);
-  const rows: { name: string; sizeMB: number; cli: Run; papa: Run; verdict: string; holds: number; dataRows: number }[] = [];
-  for (const [name, path] of [['250 k rows', small], ['1 M rows', big]] as const) {
+  const rows: {
+    name: string;
+    sizeMB: number;
+    cli: Run;
+    papa: Run;
+    verdict: string;
+    holds: number;
+    dataRows: number;
+  }[] = [];
+  for (const [name, path] of [
+    ['250 k rows', small],
+    ['1 M rows', big],
+  ] as const) {
     const papa = run([process.execPath, papaScript, path]);
     const cli = run(cliCmd(path));
-    let verdict = '?', holds = 0, dataRows = 0;
+    let verdict = '?',
+      holds = 0,
+      dataRows = 0;
     if (cli.ok) {
       const res = JSON.parse(cli.out);
       verdict = res.verdict;
@@ -119,13 +163,32 @@ async function main() {
   const pad = (s: string, n: number) => s.padEnd(n);
   const f = (x: number | null, d = 2) => (x === null ? 'n/a' : x.toFixed(d));
   const lines: string[] = [];
-  lines.push(`Hoopline reduction benchmark — node ${process.version}, ${haveTime ? 'peak RSS from /usr/bin/time -v' : 'peak RSS from process.resourceUsage()'}`);
+  lines.push(
+    `Hoopline reduction benchmark — node ${process.version}, ${haveTime ? 'peak RSS from /usr/bin/time -v' : 'peak RSS from process.resourceUsage()'}`,
+  );
   lines.push('');
-  lines.push(pad('log', 12) + pad('size MB', 9) + pad('rows', 10) + pad('CLI s', 8) + pad('papa s', 8) + pad('ratio', 7) + pad('CLI RSS MB', 12) + pad('papa RSS MB', 13) + 'result');
+  lines.push(
+    pad('log', 12) +
+      pad('size MB', 9) +
+      pad('rows', 10) +
+      pad('CLI s', 8) +
+      pad('papa s', 8) +
+      pad('ratio', 7) +
+      pad('CLI RSS MB', 12) +
+      pad('papa RSS MB', 13) +
+      'result',
+  );
   for (const r of rows) {
     const ratio = r.cli.wallS / r.papa.wallS;
     lines.push(
-      pad(r.name, 12) + pad(f(r.sizeMB, 1), 9) + pad(String(r.dataRows), 10) + pad(f(r.cli.wallS), 8) + pad(f(r.papa.wallS), 8) + pad(f(ratio), 7) + pad(f(r.cli.rssMB, 0), 12) + pad(f(r.papa.rssMB, 0), 13) +
+      pad(r.name, 12) +
+        pad(f(r.sizeMB, 1), 9) +
+        pad(String(r.dataRows), 10) +
+        pad(f(r.cli.wallS), 8) +
+        pad(f(r.papa.wallS), 8) +
+        pad(f(ratio), 7) +
+        pad(f(r.cli.rssMB, 0), 12) +
+        pad(f(r.papa.rssMB, 0), 13) +
         (r.cli.ok ? `${r.verdict}, ${r.holds} holds` : `CLI failed: ${r.cli.out}`),
     );
   }
@@ -137,8 +200,12 @@ async function main() {
   lines.push('targets (1 M rows):');
   lines.push(`  wall time ratio CLI / papaparse ≤ 1.0 ........ ${f(ratioBig)}  ${ok(ratioBig <= 1)}`);
   lines.push(`  stretch ratio ≤ 0.6 ........................... ${f(ratioBig)}  ${ok(ratioBig <= 0.6)}`);
-  lines.push(`  peak RSS ≤ 300 MB ............................. ${f(b.cli.rssMB, 0)} MB  ${ok((b.cli.rssMB ?? Infinity) <= 300)}`);
-  lines.push(`  memory flat, 250 k → 1 M rows (≤ 25 MB growth) . ${growth === null ? 'n/a' : `${growth >= 0 ? '+' : ''}${growth.toFixed(0)} MB`}  ${ok(growth !== null && growth <= 25)}`);
+  lines.push(
+    `  peak RSS ≤ 300 MB ............................. ${f(b.cli.rssMB, 0)} MB  ${ok((b.cli.rssMB ?? Infinity) <= 300)}`,
+  );
+  lines.push(
+    `  memory flat, 250 k → 1 M rows (≤ 25 MB growth) . ${growth === null ? 'n/a' : `${growth >= 0 ? '+' : ''}${growth.toFixed(0)} MB`}  ${ok(growth !== null && growth <= 25)}`,
+  );
   lines.push(`  all runs succeeded ............................ ${ok(rows.every((r) => r.cli.ok && r.papa.ok))}`);
   process.stdout.write(lines.join('\n') + '\n');
 }

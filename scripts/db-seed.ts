@@ -6,13 +6,17 @@ import { getConfig } from '../src/server/config';
 
 const config = getConfig();
 if (!config.DEMO) {
-  console.log('DEMO is off: nothing seeded. Create the first administrator with `npm run user:add -- EMAIL "Name" admin`.');
+  console.log(
+    'DEMO is off: nothing seeded. Create the first administrator with `npm run user:add -- EMAIL "Name" admin`.',
+  );
   process.exit(0);
 }
 try {
   const r = await seedDemo(getDb(), config.DEMO_PASSWORD);
   const scenario = await seedDemoScenario();
-  console.log(`demo data seeded: ${r.users} accounts, ${r.materials} materials${scenario.length ? `, tests: ${scenario.join('; ')}` : ''}`);
+  console.log(
+    `demo data seeded: ${r.users} accounts, ${r.materials} materials${scenario.length ? `, tests: ${scenario.join('; ')}` : ''}`,
+  );
 } catch (err) {
   console.error(`seeding failed: ${err instanceof Error ? err.message : String(err)}`);
   process.exitCode = 1;

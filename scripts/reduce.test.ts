@@ -9,8 +9,13 @@ import { demoPlanInput, demoPlan } from '../src/lib/reduction/testing/fixtures';
 import { syntheticLog } from '../src/lib/reduction/testing/synthetic-log';
 
 const dir = mkdtempSync(path.join(tmpdir(), 'hoopline-cli-'));
-const file = (name: string, text: string) => { const p = path.join(dir, name); writeFileSync(p, text); return p; };
-const run = (...args: string[]) => spawnSync(process.execPath, ['--import', 'tsx', 'scripts/reduce.ts', ...args], { encoding: 'utf8' });
+const file = (name: string, text: string) => {
+  const p = path.join(dir, name);
+  writeFileSync(p, text);
+  return p;
+};
+const run = (...args: string[]) =>
+  spawnSync(process.execPath, ['--import', 'tsx', 'scripts/reduce.ts', ...args], { encoding: 'utf8' });
 
 const planPath = file('plan.json', JSON.stringify(demoPlanInput));
 const logText = syntheticLog(demoPlan(), { rateHz: 1, holdSeconds: 30, rampSeconds: 15 });
@@ -27,11 +32,56 @@ describe('npm run reduce', () => {
   });
 
   it.each([
-    ['a plan with a negative wall thickness', () => [file('bad-plan.json', JSON.stringify({ ...demoPlanInput, vessel: { ...demoPlanInput.vessel, wallThickness: -4 } })), logPath], /vessel\.wallThickness: must be greater than 0/],
+    [
+      'a plan with a negative wall thickness',
+      () => [
+        file(
+          'bad-plan.json',
+          JSON.stringify({ ...demoPlanInput, vessel: { ...demoPlanInput.vessel, wallThickness: -4 } }),
+        ),
+        logPath,
+      ],
+      /vessel\.wallThickness: must be greater than 0/,
+    ],
     ['a plan that is not JSON', () => [file('broken.json', '{ "units": '), logPath], /not valid JSON/],
-    ['a log without a mapped column', () => [planPath, file('no-sg3.csv', logText.replace('SG3', 'SGX'))], /line \d+, column 'SG3'/],
-    ['a log whose pressure column holds no number', () => [planPath, file('words.csv', 'time_s,P [MPa],SG1,SG2,SG3,SG4,SG5,SG6,SG7,SG8,SG9,SG10\n' + Array.from({ length: 20 }, (_, i) => `${i},high,1,1,1,1,1,1,1,1,1,1`).join('\n'))], /line 1.*pressure value/],
-    ['a log with a gauge column that holds no number', () => [planPath, file('dead-col.csv', logText.split('\n').map((l, i) => (i === 0 || !l ? l : l.split(',').map((c, k) => (k === 3 ? 'n/a' : c)).join(','))).join('\n'))], /column 'SG2'/],
+    [
+      'a log without a mapped column',
+      () => [planPath, file('no-sg3.csv', logText.replace('SG3', 'SGX'))],
+      /line \d+, column 'SG3'/,
+    ],
+    [
+      'a log whose pressure column holds no number',
+      () => [
+        planPath,
+        file(
+          'words.csv',
+          'time_s,P [MPa],SG1,SG2,SG3,SG4,SG5,SG6,SG7,SG8,SG9,SG10\n' +
+            Array.from({ length: 20 }, (_, i) => `${i},high,1,1,1,1,1,1,1,1,1,1`).join('\n'),
+        ),
+      ],
+      /line 1.*pressure value/,
+    ],
+    [
+      'a log with a gauge column that holds no number',
+      () => [
+        planPath,
+        file(
+          'dead-col.csv',
+          logText
+            .split('\n')
+            .map((l, i) =>
+              i === 0 || !l
+                ? l
+                : l
+                    .split(',')
+                    .map((c, k) => (k === 3 ? 'n/a' : c))
+                    .join(','),
+            )
+            .join('\n'),
+        ),
+      ],
+      /column 'SG2'/,
+    ],
     ['a log file that does not exist', () => [planPath, path.join(dir, 'missing.csv')], /missing\.csv: no such file/],
     ['no log at all', () => [planPath], /usage/],
   ])('exits 2 with one line on stderr for %s', (_name, args, message) => {

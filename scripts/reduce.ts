@@ -37,7 +37,9 @@ async function main(argv: string[]): Promise<void> {
   try {
     planText = await fs.readFile(planPath, 'utf8');
   } catch (e) {
-    throw new UsageError(`${planPath}: ${(e as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (e as Error).message}`);
+    throw new UsageError(
+      `${planPath}: ${(e as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (e as Error).message}`,
+    );
   }
   let plan;
   try {
@@ -52,7 +54,9 @@ async function main(argv: string[]): Promise<void> {
       if (!st.isFile()) throw new UsageError(`${p}: not a file`);
     } catch (e) {
       if (e instanceof UsageError) throw e;
-      throw new UsageError(`${p}: ${(e as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (e as Error).message}`);
+      throw new UsageError(
+        `${p}: ${(e as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (e as Error).message}`,
+      );
     }
   }
   const sources = logPaths.map((p) => createReadStream(p, { highWaterMark: 1 << 20 }));
@@ -61,8 +65,17 @@ async function main(argv: string[]): Promise<void> {
     out = await reduceLog(plan, sources);
   } catch (e) {
     if (e instanceof InputError) {
-      const which = logPaths.length > 1 && e.details?.source !== undefined ? logPaths[e.details.source] : logPaths.length === 1 ? logPaths[0] : null;
-      throw new InputError(e.code, which && !e.message.startsWith('column') ? `${which}: ${e.message}` : e.message, e.details);
+      const which =
+        logPaths.length > 1 && e.details?.source !== undefined
+          ? logPaths[e.details.source]
+          : logPaths.length === 1
+            ? logPaths[0]
+            : null;
+      throw new InputError(
+        e.code,
+        which && !e.message.startsWith('column') ? `${which}: ${e.message}` : e.message,
+        e.details,
+      );
     }
     throw e;
   } finally {

@@ -13,7 +13,8 @@ function fail(message: string): never {
   console.error(message);
   process.exit(2);
 }
-if (!email || !name || !role) fail('usage: npm run user:add -- EMAIL "Full Name" ROLE   (ROLE: technician, engineer, qa or admin)');
+if (!email || !name || !role)
+  fail('usage: npm run user:add -- EMAIL "Full Name" ROLE   (ROLE: technician, engineer, qa or admin)');
 if (!/^[^@\s]+@[^@\s]+\.[^@\s]+$/.test(email)) fail(`${email}: not an e-mail address`);
 if (!roles.includes(role as Role)) fail(`${role}: not a role (technician, engineer, qa or admin)`);
 const given = process.env.HOOPLINE_NEW_PASSWORD;

@@ -22,10 +22,17 @@ export const onRequest = defineMiddleware(async (ctx, next) => {
   // a Bearer token is exempt: browsers never attach one on their own, so it cannot be forged
   // cross-site, and a data-acquisition PC's `curl -F` sends no Origin header.
   const bearer = /^bearer\s+/i.test(request.headers.get('authorization') ?? '');
-  if (!SAFE_METHODS.has(request.method) && !bearer && !path.startsWith('/api/auth/') && !path.startsWith('/api/share/') && !path.startsWith('/share/')) {
+  if (
+    !SAFE_METHODS.has(request.method) &&
+    !bearer &&
+    !path.startsWith('/api/auth/') &&
+    !path.startsWith('/api/share/') &&
+    !path.startsWith('/share/')
+  ) {
     // behind a TLS proxy the request URL is the inner one: the public address counts too
     const origin = request.headers.get('origin');
-    if (origin !== url.origin && origin !== new URL(getConfig().PUBLIC_BASE_URL).origin) return errorResponse(errors.crossOrigin());
+    if (origin !== url.origin && origin !== new URL(getConfig().PUBLIC_BASE_URL).origin)
+      return errorResponse(errors.crossOrigin());
   }
 
   if (path.startsWith('/api/auth/') || path.startsWith('/_astro/')) return next();
@@ -36,7 +43,8 @@ export const onRequest = defineMiddleware(async (ctx, next) => {
     if (err instanceof AppError) return errorResponse(err);
     console.error('resolving the caller failed:', err);
     if (isApi) return errorResponse(errors.unavailable('The database is not answering; try again shortly.'));
-    if (!isPublic(path)) return new Response('Hoopline cannot reach its database right now. Try again shortly.', { status: 503 });
+    if (!isPublic(path))
+      return new Response('Hoopline cannot reach its database right now. Try again shortly.', { status: 503 });
     return next();
   }
 

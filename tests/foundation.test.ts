@@ -15,8 +15,30 @@ describe('schema', () => {
     const url = inject('env').DATABASE_URL.replace(/\/hoopline$/, '/empty_check');
     const { migrateDatabase } = await import('../src/db/migrate.server');
     await migrateDatabase(url);
-    const tables = runRootSql({ dataDir }, "SELECT table_name FROM information_schema.tables WHERE table_schema = 'empty_check' ORDER BY 1;").trim().split('\n');
-    for (const t of ['users', 'api_tokens', 'materials', 'vessels', 'tests', 'gauges', 'log_files', 'reductions', 'gauge_results', 'rosette_results', 'dispositions', 'signatures', 'share_links', 'notes', 'audit_events', 'outbox']) {
+    const tables = runRootSql(
+      { dataDir },
+      "SELECT table_name FROM information_schema.tables WHERE table_schema = 'empty_check' ORDER BY 1;",
+    )
+      .trim()
+      .split('\n');
+    for (const t of [
+      'users',
+      'api_tokens',
+      'materials',
+      'vessels',
+      'tests',
+      'gauges',
+      'log_files',
+      'reductions',
+      'gauge_results',
+      'rosette_results',
+      'dispositions',
+      'signatures',
+      'share_links',
+      'notes',
+      'audit_events',
+      'outbox',
+    ]) {
       expect(tables).toContain(t);
     }
     // applying again is a no-op, not an error
@@ -41,10 +63,19 @@ describe('sign-in', () => {
   it('slows down repeated failures for one e-mail: after five, even the right password waits', async () => {
     // a throwaway account, so the other test files' sign-ins are not throttled
     const admin = await signedIn('admin@example.com');
-    const made = await admin.json('/api/admin/users', { method: 'POST', json: { email: 'throttle-check@example.com', name: 'Throttle check', role: 'technician', password: 'a-long-password-1' } });
+    const made = await admin.json('/api/admin/users', {
+      method: 'POST',
+      json: {
+        email: 'throttle-check@example.com',
+        name: 'Throttle check',
+        role: 'technician',
+        password: 'a-long-password-1',
+      },
+    });
     expect(made.status).toBe(201);
     expect(await new Client().signIn('throttle-check@example.com', 'a-long-password-1')).toBe(true);
-    for (let i = 0; i < 5; i++) expect(await new Client().signIn('throttle-check@example.com', `wrong-${i}`)).toBe(false);
+    for (let i = 0; i < 5; i++)
+      expect(await new Client().signIn('throttle-check@example.com', `wrong-${i}`)).toBe(false);
     expect(await new Client().signIn('throttle-check@example.com', 'a-long-password-1')).toBe(false);
     // another account is not affected
     expect(await new Client().signIn('admin@example.com')).toBe(true);
@@ -70,7 +101,11 @@ describe('access control', () => {
 
   it('refuses a cookie-authenticated write from another origin', async () => {
     const admin = await signedIn('admin@example.com');
-    const r = await admin.json('/api/account/tokens', { method: 'POST', json: { name: 'x' }, headers: { origin: 'http://evil.example' } });
+    const r = await admin.json('/api/account/tokens', {
+      method: 'POST',
+      json: { name: 'x' },
+      headers: { origin: 'http://evil.example' },
+    });
     expect(r.status).toBe(403);
     expect(r.body.error.code).toBe('cross-origin');
   });
@@ -79,9 +114,11 @@ describe('access control', () => {
     const admin = await signedIn('admin@example.com');
     const list = await admin.json('/api/admin/users');
     const qa = list.body.items.find((u: { email: string }) => u.email === 'qa@example.com');
-    expect((await admin.json(`/api/admin/users/${qa.id}`, { method: 'PATCH', json: { role: 'engineer' } })).status).toBe(200);
+    expect(
+      (await admin.json(`/api/admin/users/${qa.id}`, { method: 'PATCH', json: { role: 'engineer' } })).status,
+    ).toBe(200);
     const q = await signedIn('qa@example.com');
-    expect((await q.fetch('/account').then((r) => r.text()))).toContain('role <strong>engineer</strong>');
+    expect(await q.fetch('/account').then((r) => r.text())).toContain('role <strong>engineer</strong>');
     expect((await admin.json(`/api/admin/users/${qa.id}`, { method: 'PATCH', json: { role: 'qa' } })).status).toBe(200);
   });
 });
@@ -89,7 +126,12 @@ describe('access control', () => {
 describe('accounts from the command line', () => {
   it('npm run user:add creates an account that can sign in, and refuses a duplicate', async () => {
     const { spawnSync } = await import('node:child_process');
-    const run = (pw?: string) => spawnSync(process.execPath, ['--import', 'tsx', 'scripts/user-add.ts', 'first-admin@example.org', 'First Admin', 'admin'], { env: { ...process.env, ...(pw ? { HOOPLINE_NEW_PASSWORD: pw } : {}) }, encoding: 'utf8' });
+    const run = (pw?: string) =>
+      spawnSync(
+        process.execPath,
+        ['--import', 'tsx', 'scripts/user-add.ts', 'first-admin@example.org', 'First Admin', 'admin'],
+        { env: { ...process.env, ...(pw ? { HOOPLINE_NEW_PASSWORD: pw } : {}) }, encoding: 'utf8' },
+      );
     const made = run();
     expect(made.status).toBe(0);
     const password = /password \(shown once\): (\S+)/.exec(made.stdout)?.[1];
@@ -129,7 +171,11 @@ describe('local services', () => {
     const { putObjectStream, getObjectText, deleteObject } = await import('../src/server/storage.server');
     const { Readable } = await import('node:stream');
     const text = 'time_s,P [MPa]\n' + Array.from({ length: 5000 }, (_, i) => `${i},${(i % 7) / 3}`).join('\n');
-    await putObjectStream('roundtrip/test.csv', Readable.from([Buffer.from(text.slice(0, 1000)), Buffer.from(text.slice(1000))]), 'text/csv');
+    await putObjectStream(
+      'roundtrip/test.csv',
+      Readable.from([Buffer.from(text.slice(0, 1000)), Buffer.from(text.slice(1000))]),
+      'text/csv',
+    );
     expect(await getObjectText('roundtrip/test.csv')).toBe(text);
     await deleteObject('roundtrip/test.csv');
   });
@@ -154,7 +200,10 @@ describe('local services', () => {
     const db = await startMariaDB({ dataDir, port: await freePort(), log: () => undefined });
     const port = await freePort();
     const env = { ...inject('env'), DATABASE_URL: db.url, HOST: '127.0.0.1', PORT: String(port) };
-    const server = spawn(process.execPath, ['dist/server/entry.mjs'], { env: { ...process.env, ...env }, stdio: 'ignore' });
+    const server = spawn(process.execPath, ['dist/server/entry.mjs'], {
+      env: { ...process.env, ...env },
+      stdio: 'ignore',
+    });
     try {
       await waitForHttp(`http://127.0.0.1:${port}/api/health`, 20_000);
       expect((await fetch(`http://127.0.0.1:${port}/api/health`)).status).toBe(200);
@@ -168,4 +217,3 @@ describe('local services', () => {
     }
   });
 });
-

@@ -53,10 +53,16 @@ export default async function setup(project: TestProject) {
   await closeDb();
 
   if (process.env.HOOPLINE_SKIP_BUILD !== '1') {
-    const r = spawnSync(process.execPath, ['node_modules/astro/astro.js', 'build'], { env: { ...process.env, ASTRO_TELEMETRY_DISABLED: '1' }, encoding: 'utf8' });
+    const r = spawnSync(process.execPath, ['node_modules/astro/astro.js', 'build'], {
+      env: { ...process.env, ASTRO_TELEMETRY_DISABLED: '1' },
+      encoding: 'utf8',
+    });
     if (r.status !== 0) throw new Error(`astro build failed:\n${(r.stdout + r.stderr).slice(-3000)}`);
   }
-  const server: ChildProcess = spawn(process.execPath, ['dist/server/entry.mjs'], { env: { ...process.env, ...env, HOST: '127.0.0.1', PORT: String(appPort) }, stdio: ['ignore', 'inherit', 'inherit'] });
+  const server: ChildProcess = spawn(process.execPath, ['dist/server/entry.mjs'], {
+    env: { ...process.env, ...env, HOST: '127.0.0.1', PORT: String(appPort) },
+    stdio: ['ignore', 'inherit', 'inherit'],
+  });
   await waitForHttp(`${baseUrl}/api/health`, 30_000);
 
   project.provide('env', env);

@@ -20,9 +20,36 @@ const plan = {
   testPressure: 2,
   columns: { time: 'time_s', pressure: 'P [MPa]' },
   gauges: [
-    { id: 'H1', kind: 'uniaxial', channels: ['SG1'], angleDeg: 90, gaugeFactor: 2, instrumentGaugeFactor: 2, transverseSensitivity: 0, distanceToDiscontinuity: 1500 },
-    { id: 'A1', kind: 'uniaxial', channels: ['SG2'], angleDeg: 0, gaugeFactor: 2, instrumentGaugeFactor: 2, transverseSensitivity: 0, distanceToDiscontinuity: 1500 },
-    { id: 'H2', kind: 'uniaxial', channels: ['SG3'], angleDeg: 90, gaugeFactor: 2, instrumentGaugeFactor: 2, transverseSensitivity: 0, distanceToDiscontinuity: 1500 },
+    {
+      id: 'H1',
+      kind: 'uniaxial',
+      channels: ['SG1'],
+      angleDeg: 90,
+      gaugeFactor: 2,
+      instrumentGaugeFactor: 2,
+      transverseSensitivity: 0,
+      distanceToDiscontinuity: 1500,
+    },
+    {
+      id: 'A1',
+      kind: 'uniaxial',
+      channels: ['SG2'],
+      angleDeg: 0,
+      gaugeFactor: 2,
+      instrumentGaugeFactor: 2,
+      transverseSensitivity: 0,
+      distanceToDiscontinuity: 1500,
+    },
+    {
+      id: 'H2',
+      kind: 'uniaxial',
+      channels: ['SG3'],
+      angleDeg: 90,
+      gaugeFactor: 2,
+      instrumentGaugeFactor: 2,
+      transverseSensitivity: 0,
+      distanceToDiscontinuity: 1500,
+    },
   ],
   // an extra field the engine does not know: the plan must round-trip exactly anyway
   remarks: 'invented integration-test vessel',
@@ -105,7 +132,11 @@ describe('tests and plans', () => {
     expect(await engineer.fetch(`/api/tests/${id}/plan`).then((r) => r.text())).toBe(JSON.stringify(changed));
     // technician may not edit a plan
     expect((await technician.json(`/api/tests/${id}/plan`, { method: 'PUT', json: changed })).status).toBe(403);
-    const bad = { ...plan, vessel: { ...plan.vessel, wallThickness: -3 }, material: { ...plan.material, poissonRatio: 0.7 } };
+    const bad = {
+      ...plan,
+      vessel: { ...plan.vessel, wallThickness: -3 },
+      material: { ...plan.material, poissonRatio: 0.7 },
+    };
     const r = await engineer.json(`/api/tests/${id}/plan`, { method: 'PUT', json: bad });
     expect(r.status).toBe(422);
     expect(r.body.error.code).toBe('invalid-plan');
@@ -127,7 +158,9 @@ describe('tests and plans', () => {
 
 describe('log upload', () => {
   let testId: number;
-  beforeAll(async () => { testId = await createTest('Upload checks'); });
+  beforeAll(async () => {
+    testId = await createTest('Upload checks');
+  });
 
   it('takes a multipart upload with an API token, records sha256 and rows, and returns the same log for the same bytes', async () => {
     const viaToken = Client.withToken(techToken);
@@ -146,7 +179,11 @@ describe('log upload', () => {
 
   it('takes a raw text/csv body too', async () => {
     const other = smallLog.replace('time_s,', 'time_s,').concat('\n');
-    const r = await technician.json(`/api/tests/${testId}/logs`, { method: 'POST', body: other, headers: { 'content-type': 'text/csv' } });
+    const r = await technician.json(`/api/tests/${testId}/logs`, {
+      method: 'POST',
+      body: other,
+      headers: { 'content-type': 'text/csv' },
+    });
     expect(r.status).toBe(201);
   });
 
@@ -228,7 +265,9 @@ describe('reductions', () => {
     const spiky = [...channels, { name: 'SG4', angleDeg: 90, spikeAtSecond: 1234 }];
     const p = { ...plan, gauges: [...plan.gauges, { ...plan.gauges[0], id: 'H3', channels: ['SG4'] }] };
     expect((await engineer.json(`/api/tests/${big}/plan`, { method: 'PUT', json: p })).status).toBe(200);
-    writeHydrotestCsv({ ...geometry, channels: spiky, rateHz: 100, holdSeconds: 300, rampSeconds: 60 }, (l) => lines.push(l));
+    writeHydrotestCsv({ ...geometry, channels: spiky, rateHz: 100, holdSeconds: 300, rampSeconds: 60 }, (l) =>
+      lines.push(l),
+    );
     expect(lines.length).toBeGreaterThan(200_000);
     expect((await upload(technician, big, lines.join('\n'))).status).toBe(201);
     const q = await technician.json(`/api/tests/${big}/reductions`, { method: 'POST', json: {} });
@@ -269,19 +308,31 @@ describe('the queue', () => {
     const id = await createTest('Twenty jobs');
     expect((await upload(technician, id, smallLog)).status).toBe(201);
     const ids: number[] = [];
-    for (let i = 0; i < 20; i++) ids.push((await technician.json(`/api/tests/${id}/reductions`, { method: 'POST', json: {} })).body.id);
+    for (let i = 0; i < 20; i++)
+      ids.push((await technician.json(`/api/tests/${id}/reductions`, { method: 'POST', json: {} })).body.id);
     workers.push(startWorker(inject('env'), 'w-a'), startWorker(inject('env'), 'w-b'));
     for (const r of ids) expect((await waitForReduction(r)).status).toBe('done');
     const { auditEvents, reductions } = await import('../src/db/schema');
     const d = await db();
     const events = await d.select().from(auditEvents).where(eq(auditEvents.action, 'reduction-done'));
-    for (const r of ids) expect(events.filter((e) => (e.details as { reductionId: number }).reductionId === r)).toHaveLength(1);
-    const rows = await d.select({ id: reductions.id, attempts: reductions.attempts }).from(reductions).where(sql`${reductions.id} in (${sql.join(ids, sql`, `)})`);
+    for (const r of ids)
+      expect(events.filter((e) => (e.details as { reductionId: number }).reductionId === r)).toHaveLength(1);
+    const rows = await d
+      .select({ id: reductions.id, attempts: reductions.attempts })
+      .from(reductions)
+      .where(sql`${reductions.id} in (${sql.join(ids, sql`, `)})`);
     expect(rows.filter((r) => r.attempts !== 1)).toEqual([]);
-    const byWorker = new Set(events.filter((e) => ids.includes((e.details as { reductionId: number }).reductionId)).map((e) => (e.details as { worker: string }).worker));
+    const byWorker = new Set(
+      events
+        .filter((e) => ids.includes((e.details as { reductionId: number }).reductionId))
+        .map((e) => (e.details as { worker: string }).worker),
+    );
     expect([...byWorker].every((w) => w === 'w-a' || w === 'w-b')).toBe(true);
     // exactly one reduction of the test is current; the other nineteen are superseded
-    const current = await d.select({ n: sql<number>`count(*)` }).from(reductions).where(sql`${reductions.testId} = ${id} and ${reductions.superseded} = false`);
+    const current = await d
+      .select({ n: sql<number>`count(*)` })
+      .from(reductions)
+      .where(sql`${reductions.testId} = ${id} and ${reductions.superseded} = false`);
     expect(Number(current[0]!.n)).toBe(1);
   });
 
@@ -297,7 +348,8 @@ describe('the queue', () => {
     for (;;) {
       const r = await engineer.json(`/api/reductions/${q.body.id}`);
       if (r.body.status === 'running') break;
-      if (r.body.status === 'done') throw new Error('the job finished before the worker could be killed; make the log larger');
+      if (r.body.status === 'done')
+        throw new Error('the job finished before the worker could be killed; make the log larger');
       if (Date.now() > deadline) throw new Error('the job never started');
       await new Promise((res) => setTimeout(res, 20));
     }

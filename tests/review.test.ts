@@ -23,8 +23,16 @@ const plan = {
   ],
 };
 const log = makeHydrotestCsv({
-  insideDiameter: 1000, wallThickness: 10, E: 200_000, nu: 0.3, testPressure: 2,
-  channels: [{ name: 'SG1', angleDeg: 90 }, { name: 'SG2', angleDeg: 0 }, { name: 'SG3', angleDeg: 90, scale: 0.85 }],
+  insideDiameter: 1000,
+  wallThickness: 10,
+  E: 200_000,
+  nu: 0.3,
+  testPressure: 2,
+  channels: [
+    { name: 'SG1', angleDeg: 90 },
+    { name: 'SG2', angleDeg: 0 },
+    { name: 'SG3', angleDeg: 90, scale: 0.85 },
+  ],
 });
 
 let technician: Client, engineer: Client, qa: Client, admin: Client;
@@ -54,9 +62,13 @@ async function waitDone(id: number) {
 
 beforeAll(async () => {
   worker = startWorker(inject('env'), 'w-review');
-  [technician, engineer, qa, admin] = await Promise.all(['technician', 'engineer', 'qa', 'admin'].map((r) => signedIn(`${r}@example.com`)));
+  [technician, engineer, qa, admin] = await Promise.all(
+    ['technician', 'engineer', 'qa', 'admin'].map((r) => signedIn(`${r}@example.com`)),
+  );
 });
-afterAll(async () => { await stopProcess(worker); });
+afterAll(async () => {
+  await stopProcess(worker);
+});
 
 describe('the whole journey', () => {
   it('engineer creates the test; technician uploads and reduces; the owner hears the result', async () => {
@@ -66,7 +78,11 @@ describe('the whole journey', () => {
     const done = await waitDone(q.body.id);
     expect(done.status).toBe('done');
     expect(done.result.verdict).toBe('flagged');
-    const mail = await waitForMail(mailDir(), (m) => m.to.includes('engineer@example.com') && m.subject.includes('Review journey') && m.subject.includes('finished'));
+    const mail = await waitForMail(
+      mailDir(),
+      (m) =>
+        m.to.includes('engineer@example.com') && m.subject.includes('Review journey') && m.subject.includes('finished'),
+    );
     expect(mail.text).toContain(`/tests/${testId}/review`);
   });
 
@@ -75,23 +91,55 @@ describe('the whole journey', () => {
     expect(res.status).toBe(200);
     const csv = await res.text();
     expect(csv).toContain('DRAFT');
-    for (const g of ['H1', 'A1', 'H2']) expect(csv.split('\n').filter((l) => l.startsWith(`${g},`) || l.startsWith(`"${g}",`))).toHaveLength(1);
+    for (const g of ['H1', 'A1', 'H2'])
+      expect(csv.split('\n').filter((l) => l.startsWith(`${g},`) || l.startsWith(`"${g}",`))).toHaveLength(1);
   });
 
   it('refuses a review while a flagged gauge has no disposition, and dispositions from the wrong role', async () => {
     const early = await engineer.json(`/api/tests/${testId}/review`, { method: 'POST', json: {} });
     expect(early.status).toBe(409);
     expect(early.body.error.details.gaugeIds).toEqual(['H2']);
-    expect((await technician.json(`/api/tests/${testId}/dispositions`, { method: 'POST', json: { gaugeId: 'H2', outcome: 'accepted', reason: 'x y z' } })).status).toBe(403);
-    expect((await engineer.json(`/api/tests/${testId}/dispositions`, { method: 'POST', json: { gaugeId: 'H2', outcome: 'accepted', reason: '' } })).status).toBe(400);
-    expect((await engineer.json(`/api/tests/${testId}/dispositions`, { method: 'POST', json: { gaugeId: 'H9', outcome: 'accepted', reason: 'no such gauge' } })).status).toBe(422);
+    expect(
+      (
+        await technician.json(`/api/tests/${testId}/dispositions`, {
+          method: 'POST',
+          json: { gaugeId: 'H2', outcome: 'accepted', reason: 'x y z' },
+        })
+      ).status,
+    ).toBe(403);
+    expect(
+      (
+        await engineer.json(`/api/tests/${testId}/dispositions`, {
+          method: 'POST',
+          json: { gaugeId: 'H2', outcome: 'accepted', reason: '' },
+        })
+      ).status,
+    ).toBe(400);
+    expect(
+      (
+        await engineer.json(`/api/tests/${testId}/dispositions`, {
+          method: 'POST',
+          json: { gaugeId: 'H9', outcome: 'accepted', reason: 'no such gauge' },
+        })
+      ).status,
+    ).toBe(422);
   });
 
   it('keeps every disposition and counts the latest; the verdict follows', async () => {
-    const retest = await engineer.json(`/api/tests/${testId}/dispositions`, { method: 'POST', json: { gaugeId: 'H2', outcome: 'retest', reason: 'check the bridge completion first' } });
+    const retest = await engineer.json(`/api/tests/${testId}/dispositions`, {
+      method: 'POST',
+      json: { gaugeId: 'H2', outcome: 'retest', reason: 'check the bridge completion first' },
+    });
     expect(retest.status).toBe(201);
     expect(retest.body.verdict).toBe('flagged');
-    const accepted = await engineer.json(`/api/tests/${testId}/dispositions`, { method: 'POST', json: { gaugeId: 'H2', outcome: 'accepted', reason: 'gauge sits on a locally thicker plate, measured 11.7 mm by UT' } });
+    const accepted = await engineer.json(`/api/tests/${testId}/dispositions`, {
+      method: 'POST',
+      json: {
+        gaugeId: 'H2',
+        outcome: 'accepted',
+        reason: 'gauge sits on a locally thicker plate, measured 11.7 mm by UT',
+      },
+    });
     expect(accepted.body.verdict).toBe('conforms');
     const list = await qa.json(`/api/tests/${testId}/dispositions`);
     expect(list.body.history).toHaveLength(2);
@@ -106,7 +154,10 @@ describe('the whole journey', () => {
     const signed = await engineer.json(`/api/tests/${testId}/review`, { method: 'POST', json: {} });
     expect(signed.status).toBe(201);
     expect((await engineer.json(`/api/tests/${testId}`)).body.status).toBe('reviewed');
-    const notice = await waitForMail(mailDir(), (m) => m.to.includes('qa@example.com') && m.subject.includes('waits for release'));
+    const notice = await waitForMail(
+      mailDir(),
+      (m) => m.to.includes('qa@example.com') && m.subject.includes('waits for release'),
+    );
     expect(notice.text).toContain(`/tests/${testId}/review`);
     expect((await engineer.json(`/api/tests/${testId}/release`, { method: 'POST', json: {} })).status).toBe(403);
     expect((await admin.json(`/api/tests/${testId}/release`, { method: 'POST', json: {} })).status).toBe(403);
@@ -115,22 +166,35 @@ describe('the whole journey', () => {
   it('does not let the signer of the review release it, even with the QA role', async () => {
     const users = (await admin.json('/api/admin/users')).body.items;
     const eng = users.find((u: { email: string }) => u.email === 'engineer@example.com');
-    expect((await admin.json(`/api/admin/users/${eng.id}`, { method: 'PATCH', json: { role: 'qa' } })).status).toBe(200);
+    expect((await admin.json(`/api/admin/users/${eng.id}`, { method: 'PATCH', json: { role: 'qa' } })).status).toBe(
+      200,
+    );
     const own = await engineer.json(`/api/tests/${testId}/release`, { method: 'POST', json: {} });
     expect(own.status).toBe(403);
     expect(own.body.error.code).toBe('own-review');
-    expect((await admin.json(`/api/admin/users/${eng.id}`, { method: 'PATCH', json: { role: 'engineer' } })).status).toBe(200);
+    expect(
+      (await admin.json(`/api/admin/users/${eng.id}`, { method: 'PATCH', json: { role: 'engineer' } })).status,
+    ).toBe(200);
   });
 
   it('releases, after which every write answers 409', async () => {
     const rel = await qa.json(`/api/tests/${testId}/release`, { method: 'POST', json: {} });
     expect(rel.status).toBe(201);
     expect((await qa.json(`/api/tests/${testId}`)).body.status).toBe('released');
-    expect((await engineer.json(`/api/tests/${testId}/dispositions`, { method: 'POST', json: { gaugeId: 'H1', outcome: 'excluded', reason: 'too late' } })).status).toBe(409);
+    expect(
+      (
+        await engineer.json(`/api/tests/${testId}/dispositions`, {
+          method: 'POST',
+          json: { gaugeId: 'H1', outcome: 'excluded', reason: 'too late' },
+        })
+      ).status,
+    ).toBe(409);
     expect((await upload(technician, testId, log + '\n')).status).toBe(409);
     expect((await engineer.json(`/api/tests/${testId}/plan`, { method: 'PUT', json: plan })).status).toBe(409);
     expect((await technician.json(`/api/tests/${testId}/reductions`, { method: 'POST', json: {} })).status).toBe(409);
-    expect((await technician.json(`/api/tests/${testId}/notes`, { method: 'POST', json: { body: 'late note' } })).status).toBe(409);
+    expect(
+      (await technician.json(`/api/tests/${testId}/notes`, { method: 'POST', json: { body: 'late note' } })).status,
+    ).toBe(409);
     expect((await qa.json(`/api/tests/${testId}/release`, { method: 'POST', json: {} })).status).toBe(409);
   });
 
@@ -152,12 +216,25 @@ describe('the whole journey', () => {
   });
 
   it('shares the record by e-mail with an inspector who needs no account', async () => {
-    expect((await engineer.json(`/api/tests/${testId}/share-links`, { method: 'POST', json: { email: 'inspector@example.com' } })).status).toBe(403);
-    const made = await qa.json(`/api/tests/${testId}/share-links`, { method: 'POST', json: { email: 'inspector@example.com', expiresInDays: 7 } });
+    expect(
+      (
+        await engineer.json(`/api/tests/${testId}/share-links`, {
+          method: 'POST',
+          json: { email: 'inspector@example.com' },
+        })
+      ).status,
+    ).toBe(403);
+    const made = await qa.json(`/api/tests/${testId}/share-links`, {
+      method: 'POST',
+      json: { email: 'inspector@example.com', expiresInDays: 7 },
+    });
     expect(made.status).toBe(201);
     const url: string = made.body.url;
     expect(url).toMatch(/\/share\/[A-Za-z0-9_-]{43}$/);
-    const mail = await waitForMail(mailDir(), (m) => m.to.includes('inspector@example.com') && m.subject.includes('Review journey'));
+    const mail = await waitForMail(
+      mailDir(),
+      (m) => m.to.includes('inspector@example.com') && m.subject.includes('Review journey'),
+    );
     expect(mail.text).toContain(url);
     const token = url.split('/share/')[1]!;
     const inspector = new Client();
@@ -191,17 +268,35 @@ describe('the whole journey', () => {
 
     const b = await qa.json(`/api/tests/${testId}/share-links`, { method: 'POST', json: { expiresInDays: 1 } });
     const { shareLinks } = await import('../src/db/schema');
-    await (await db()).update(shareLinks).set({ expiresAt: new Date(Date.now() - 1000) }).where(eq(shareLinks.id, b.body.id));
+    await (
+      await db()
+    )
+      .update(shareLinks)
+      .set({ expiresAt: new Date(Date.now() - 1000) })
+      .where(eq(shareLinks.id, b.body.id));
     expect((await new Client().json(`/api/share/${b.body.url.split('/share/')[1]}`)).status).toBe(410);
     expect((await new Client().json('/api/share/not-a-real-token-at-all-000000000')).status).toBe(404);
-    expect((await qa.json(`/api/tests/${testId}/share-links`, { method: 'POST', json: { expiresInDays: 91 } })).status).toBe(400);
+    expect(
+      (await qa.json(`/api/tests/${testId}/share-links`, { method: 'POST', json: { expiresInDays: 91 } })).status,
+    ).toBe(400);
   });
 
   it('shows QA and admin the audit trail, newest first, and nobody else', async () => {
     const trail = await qa.json(`/api/tests/${testId}/audit?limit=200`);
     expect(trail.status).toBe(200);
     const actions = trail.body.items.map((e: { action: string }) => e.action);
-    for (const a of ['test-created', 'log-uploaded', 'reduction-queued', 'reduction-done', 'gauge-dispositioned', 'review-signed', 'test-released', 'share-link-created', 'share-link-used', 'share-link-revoked'])
+    for (const a of [
+      'test-created',
+      'log-uploaded',
+      'reduction-queued',
+      'reduction-done',
+      'gauge-dispositioned',
+      'review-signed',
+      'test-released',
+      'share-link-created',
+      'share-link-used',
+      'share-link-revoked',
+    ])
       expect(actions).toContain(a);
     const times = trail.body.items.map((e: { at: string }) => new Date(e.at).getTime());
     expect([...times].sort((x, y) => y - x)).toEqual(times);
@@ -246,7 +341,9 @@ describe('the outbox', () => {
           if (!sent) await new Promise((r) => setTimeout(r, 200));
         }
         expect(sent).toBe(true);
-        expect((await readMails(dir)).some((m) => m.subject === 'Outage check' && m.to.includes('someone@example.com'))).toBe(true);
+        expect(
+          (await readMails(dir)).some((m) => m.subject === 'Outage check' && m.to.includes('someone@example.com')),
+        ).toBe(true);
       } finally {
         await smtp.close();
       }

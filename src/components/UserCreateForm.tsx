@@ -12,24 +12,78 @@ export default function UserCreateForm({ onCreated }: { onCreated: () => void })
     e.preventDefault();
     const form = e.currentTarget;
     const d = new FormData(form);
-    setError(null); setDone(null);
+    setError(null);
+    setDone(null);
     try {
-      await api('/api/admin/users', { method: 'POST', jsonBody: { email: d.get('email'), name: d.get('name'), role: d.get('role'), password: d.get('password') } });
+      await api('/api/admin/users', {
+        method: 'POST',
+        jsonBody: { email: d.get('email'), name: d.get('name'), role: d.get('role'), password: d.get('password') },
+      });
       setDone(`Account ${d.get('email')} created.`);
       form.reset();
       onCreated();
-    } catch (err) { setError((err as Error).message); }
+    } catch (err) {
+      setError((err as Error).message);
+    }
   }
 
   return (
-    <form onSubmit={create} className="grid gap-3 md:grid-cols-[1fr_1fr_10rem_1fr_auto] md:items-end" aria-label="New account">
-      <div><label htmlFor="nu-name" className="label">Name</label><input id="nu-name" name="name" required maxLength={120} className="field" /></div>
-      <div><label htmlFor="nu-email" className="label">E-mail</label><input id="nu-email" name="email" type="email" required className="field" /></div>
-      <div><label htmlFor="nu-role" className="label">Role</label><select id="nu-role" name="role" className="field">{ROLES.map((r) => <option key={r} value={r}>{r}</option>)}</select></div>
-      <div><label htmlFor="nu-password" className="label">First password (10+ characters)</label><input id="nu-password" name="password" type="password" minLength={10} required autoComplete="new-password" className="field" /></div>
-      <button type="submit" className="btn-primary">Create account</button>
-      {error && <p role="alert" className="error-text md:col-span-5">{error}</p>}
-      {done && <p role="status" className="text-sm text-ok md:col-span-5">{done}</p>}
+    <form
+      onSubmit={create}
+      className="grid gap-3 md:grid-cols-[1fr_1fr_10rem_1fr_auto] md:items-end"
+      aria-label="New account"
+    >
+      <div>
+        <label htmlFor="nu-name" className="label">
+          Name
+        </label>
+        <input id="nu-name" name="name" required maxLength={120} className="field" />
+      </div>
+      <div>
+        <label htmlFor="nu-email" className="label">
+          E-mail
+        </label>
+        <input id="nu-email" name="email" type="email" required className="field" />
+      </div>
+      <div>
+        <label htmlFor="nu-role" className="label">
+          Role
+        </label>
+        <select id="nu-role" name="role" className="field">
+          {ROLES.map((r) => (
+            <option key={r} value={r}>
+              {r}
+            </option>
+          ))}
+        </select>
+      </div>
+      <div>
+        <label htmlFor="nu-password" className="label">
+          First password (10+ characters)
+        </label>
+        <input
+          id="nu-password"
+          name="password"
+          type="password"
+          minLength={10}
+          required
+          autoComplete="new-password"
+          className="field"
+        />
+      </div>
+      <button type="submit" className="btn-primary">
+        Create account
+      </button>
+      {error && (
+        <p role="alert" className="error-text md:col-span-5">
+          {error}
+        </p>
+      )}
+      {done && (
+        <p role="status" className="text-sm text-ok md:col-span-5">
+          {done}
+        </p>
+      )}
     </form>
   );
 }

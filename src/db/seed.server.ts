@@ -34,7 +34,11 @@ export async function seedDemo(db: Db, password: string): Promise<{ users: numbe
   const hash = await hashPassword(password);
   for (const a of demoAccounts) {
     const existing = await db.query.users.findFirst({ where: eq(users.email, a.email) });
-    if (existing) await db.update(users).set({ passwordHash: hash, role: a.role, disabled: false }).where(eq(users.id, existing.id));
+    if (existing)
+      await db
+        .update(users)
+        .set({ passwordHash: hash, role: a.role, disabled: false })
+        .where(eq(users.id, existing.id));
     else await db.insert(users).values({ ...a, passwordHash: hash });
   }
   let steelId: number | null = null;

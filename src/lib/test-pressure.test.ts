@@ -1,5 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import { computeTestPressure, computeTestPressures, isStressRatioSuspect, TEST_PRESSURE_RULES, type TestPressureRuleId } from './test-pressure';
+import {
+  computeTestPressure,
+  computeTestPressures,
+  isStressRatioSuspect,
+  TEST_PRESSURE_RULES,
+  type TestPressureRuleId,
+} from './test-pressure';
 
 // Source for every check: REFERENCES.md, "Test pressure rules" — the values are tagged [derived]
 // (computed from the table's formulas) and the table itself [memory]: the governing code edition
@@ -53,7 +59,13 @@ describe('computeTestPressures', () => {
     expect(all.find((r) => r.id === 'asme-b31-3-345-4-2')?.note).toMatch(/10 minutes/); // REFERENCES.md: hold at least 10 min
   });
 
-  it.each([[0, 1], [-1, 1], [Number.NaN, 1], [1.5, 0], [1.5, Number.POSITIVE_INFINITY]])('rejects MAWP %f with ratio %f', (mawp, ratio) => {
+  it.each([
+    [0, 1],
+    [-1, 1],
+    [Number.NaN, 1],
+    [1.5, 0],
+    [1.5, Number.POSITIVE_INFINITY],
+  ])('rejects MAWP %f with ratio %f', (mawp, ratio) => {
     expect(() => computeTestPressures(mawp, ratio)).toThrow(RangeError);
   });
 

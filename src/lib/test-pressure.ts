@@ -2,7 +2,8 @@
 // name. The multipliers are recalled, not read from the codes: the governing code edition and the
 // jurisdiction decide, and the responsible engineer confirms the value. Pure; no React.
 
-export type TestPressureRuleId = 'asme-viii-1-ug-99b' | 'asme-viii-1-ug-100' | 'asme-viii-2-part-8' | 'ped-annex-i-7-4' | 'asme-b31-3-345-4-2';
+export type TestPressureRuleId =
+  'asme-viii-1-ug-99b' | 'asme-viii-1-ug-100' | 'asme-viii-2-part-8' | 'ped-annex-i-7-4' | 'asme-b31-3-345-4-2';
 
 export interface TestPressureRule {
   id: TestPressureRuleId;

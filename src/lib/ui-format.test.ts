@@ -1,7 +1,17 @@
 import { describe, expect, it } from 'vitest';
 import {
-  formatAngle, formatFixed, formatInterval, formatMicrostrain, formatPercent, formatPressure, formatRatio,
-  formatSignificant, formatSigned, formatSlope, formatStress, getUnitLabels,
+  formatAngle,
+  formatFixed,
+  formatInterval,
+  formatMicrostrain,
+  formatPercent,
+  formatPressure,
+  formatRatio,
+  formatSignificant,
+  formatSigned,
+  formatSlope,
+  formatStress,
+  getUnitLabels,
 } from './ui-format';
 
 describe('ui-format', () => {

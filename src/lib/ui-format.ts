@@ -100,7 +100,10 @@ export function formatAngle(deg: number | null | undefined, digits = 0): string 
 }
 
 /** A closed interval `lo – hi` with the same formatter on both ends. */
-export function formatInterval(range: readonly [number, number] | null | undefined, format: (v: number) => string): string {
+export function formatInterval(
+  range: readonly [number, number] | null | undefined,
+  format: (v: number) => string,
+): string {
   if (!range || !isNumber(range[0]) || !isNumber(range[1])) return DASH;
   return `${format(range[0])} – ${format(range[1])}`;
 }

@@ -8,6 +8,17 @@ export function audit(e: AuditInput): Promise<void> {
 }
 
 /** Audit an action by a signed-in user (or token holder). */
-export function auditBy(user: RequestUser, action: string, testId: number | null, details: Record<string, unknown> = {}): Promise<void> {
-  return audit({ userId: user.id, actor: user.email, action, testId, details: user.via === 'token' ? { ...details, via: 'api-token' } : details });
+export function auditBy(
+  user: RequestUser,
+  action: string,
+  testId: number | null,
+  details: Record<string, unknown> = {},
+): Promise<void> {
+  return audit({
+    userId: user.id,
+    actor: user.email,
+    action,
+    testId,
+    details: user.via === 'token' ? { ...details, via: 'api-token' } : details,
+  });
 }

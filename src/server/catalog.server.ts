@@ -1,7 +1,15 @@
 // Vessels and materials as the API shows and edits them (stored in SI).
 import { z } from 'zod';
 import { getDb } from '../db/client.server';
-import { findMaterial, findVessel, findVesselByTag, insertMaterial, insertVessel, updateMaterial, updateVessel } from '../db/queries/vessels';
+import {
+  findMaterial,
+  findVessel,
+  findVesselByTag,
+  insertMaterial,
+  insertVessel,
+  updateMaterial,
+  updateVessel,
+} from '../db/queries/vessels';
 import { auditBy } from './audit.server';
 import { errors } from './errors';
 import type { RequestUser } from './http';
@@ -13,21 +21,36 @@ export const materialBody = z.object({
   yieldStrengthMPa: z.number().gt(0),
 });
 
-const feature = z.object({ id: z.string().max(60).optional(), name: z.string().max(120).optional(), kind: z.enum(['head', 'nozzle', 'support', 'thickness-change']), axialPosition: z.number(), clockDeg: z.number().min(0).max(360).optional(), size: z.number().min(0).optional() });
+const feature = z.object({
+  id: z.string().max(60).optional(),
+  name: z.string().max(120).optional(),
+  kind: z.enum(['head', 'nozzle', 'support', 'thickness-change']),
+  axialPosition: z.number(),
+  clockDeg: z.number().min(0).max(360).optional(),
+  size: z.number().min(0).optional(),
+});
 
-export const vesselBody = z.object({
-  tag: z.string().trim().min(1).max(60),
-  name: z.string().trim().min(1).max(160),
-  shape: z.enum(['cylinder', 'sphere']),
-  ends: z.enum(['closed', 'open']).default('closed'),
-  insideDiameterMm: z.number().gt(0),
-  wallThicknessMm: z.number().gt(0),
-  lengthMm: z.number().gt(0).nullable().optional(),
-  features: z.array(feature).default([]),
-  materialId: z.number().int().positive().nullable().optional(),
-  units: z.enum(['SI', 'US']).default('SI'),
-}).refine((v) => v.shape === 'sphere' || (v.lengthMm ?? null) !== null, { path: ['lengthMm'], message: 'is required for a cylinder' })
-  .refine((v) => v.wallThicknessMm < v.insideDiameterMm / 2, { path: ['wallThicknessMm'], message: 'must be less than the inside radius' });
+export const vesselBody = z
+  .object({
+    tag: z.string().trim().min(1).max(60),
+    name: z.string().trim().min(1).max(160),
+    shape: z.enum(['cylinder', 'sphere']),
+    ends: z.enum(['closed', 'open']).default('closed'),
+    insideDiameterMm: z.number().gt(0),
+    wallThicknessMm: z.number().gt(0),
+    lengthMm: z.number().gt(0).nullable().optional(),
+    features: z.array(feature).default([]),
+    materialId: z.number().int().positive().nullable().optional(),
+    units: z.enum(['SI', 'US']).default('SI'),
+  })
+  .refine((v) => v.shape === 'sphere' || (v.lengthMm ?? null) !== null, {
+    path: ['lengthMm'],
+    message: 'is required for a cylinder',
+  })
+  .refine((v) => v.wallThicknessMm < v.insideDiameterMm / 2, {
+    path: ['wallThicknessMm'],
+    message: 'must be less than the inside radius',
+  });
 
 export async function createMaterial(user: RequestUser, body: z.infer<typeof materialBody>) {
   const id = await insertMaterial(getDb(), body);
@@ -43,9 +66,16 @@ export async function editMaterial(user: RequestUser, id: number, patch: Partial
 
 export async function createVessel(user: RequestUser, body: z.infer<typeof vesselBody>) {
   const db = getDb();
-  if (await findVesselByTag(db, body.tag)) throw errors.conflict('tag-taken', `A vessel tagged '${body.tag}' exists already.`);
-  if (body.materialId && !(await findMaterial(db, body.materialId))) throw errors.invalid('materialId: no material with that id');
-  const id = await insertVessel(db, { ...body, lengthMm: body.lengthMm ?? null, materialId: body.materialId ?? null, createdBy: user.id });
+  if (await findVesselByTag(db, body.tag))
+    throw errors.conflict('tag-taken', `A vessel tagged '${body.tag}' exists already.`);
+  if (body.materialId && !(await findMaterial(db, body.materialId)))
+    throw errors.invalid('materialId: no material with that id');
+  const id = await insertVessel(db, {
+    ...body,
+    lengthMm: body.lengthMm ?? null,
+    materialId: body.materialId ?? null,
+    createdBy: user.id,
+  });
   await auditBy(user, 'vessel-created', null, { vesselId: id, tag: body.tag });
   return id;
 }
@@ -54,12 +84,21 @@ export async function editVessel(user: RequestUser, id: number, patch: Record<st
   const db = getDb();
   const before = await findVessel(db, id);
   if (!before) throw errors.notFound('vessel');
-  const merged = vesselBody.safeParse({ ...before, ...patch, materialId: (patch.materialId ?? before.materialId) ?? null });
+  const merged = vesselBody.safeParse({
+    ...before,
+    ...patch,
+    materialId: patch.materialId ?? before.materialId ?? null,
+  });
   if (!merged.success) throw merged.error;
   if (merged.data.tag !== before.tag) {
     const other = await findVesselByTag(db, merged.data.tag);
-    if (other && other.id !== id) throw errors.conflict('tag-taken', `A vessel tagged '${merged.data.tag}' exists already.`);
+    if (other && other.id !== id)
+      throw errors.conflict('tag-taken', `A vessel tagged '${merged.data.tag}' exists already.`);
   }
-  await updateVessel(db, id, { ...merged.data, lengthMm: merged.data.lengthMm ?? null, materialId: merged.data.materialId ?? null });
+  await updateVessel(db, id, {
+    ...merged.data,
+    lengthMm: merged.data.lengthMm ?? null,
+    materialId: merged.data.materialId ?? null,
+  });
   await auditBy(user, 'vessel-changed', null, { vesselId: id, fields: Object.keys(patch) });
 }

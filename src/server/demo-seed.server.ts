@@ -21,7 +21,11 @@ export const demoPlan: PlanInput & { remarks?: string } = {
   units: 'SI',
   vessel: {
     name: 'AR-102',
-    shape: 'cylinder', ends: 'closed', insideDiameter: 1200, wallThickness: 12, length: 4200,
+    shape: 'cylinder',
+    ends: 'closed',
+    insideDiameter: 1200,
+    wallThickness: 12,
+    length: 4200,
     features: [
       { kind: 'nozzle', name: 'N1 inlet', axialPosition: 2100, clockDeg: 0, size: 150 },
       { kind: 'support', name: 'Saddle W', axialPosition: 700, size: 300 },
@@ -38,7 +42,15 @@ export const demoPlan: PlanInput & { remarks?: string } = {
     { id: 'A1', kind: 'uniaxial', channels: ['CH03'], angleDeg: 0, axialPosition: 1500, clockDeg: 100 },
     { id: 'A2', kind: 'uniaxial', channels: ['CH04'], angleDeg: 0, axialPosition: 2800, clockDeg: 260 },
     { id: 'H3', kind: 'uniaxial', channels: ['CH05'], angleDeg: 90, axialPosition: 2100, clockDeg: 12 },
-    { id: 'R1', kind: 'rosette-rectangular', channels: ['CH06', 'CH07', 'CH08'], angleDeg: 0, axialPosition: 2400, clockDeg: 180, transverseSensitivity: 0.01 },
+    {
+      id: 'R1',
+      kind: 'rosette-rectangular',
+      channels: ['CH06', 'CH07', 'CH08'],
+      angleDeg: 0,
+      axialPosition: 2400,
+      clockDeg: 180,
+      transverseSensitivity: 0.01,
+    },
   ],
 };
 
@@ -57,25 +69,79 @@ export async function seedDemoScenario(): Promise<string[]> {
   const rows = gaugeRows(plan);
 
   if (!(await db.query.tests.findFirst({ where: eq(tests.name, LOGGED) }))) {
-    const [row] = await db.insert(tests).values({ name: LOGGED, vesselId: vessel.id, plan: demoPlan, ownerId: engineer.id, status: 'logging' }).$returningId();
+    const [row] = await db
+      .insert(tests)
+      .values({ name: LOGGED, vesselId: vessel.id, plan: demoPlan, ownerId: engineer.id, status: 'logging' })
+      .$returningId();
     const testId = row!.id;
     await replaceGauges(db, testId, rows);
-    const csv = syntheticLog(plan, { rateHz: 2, holdSeconds: 90, rampSeconds: 45, seed: 102, gauges: { A2: { scale: 0.88 }, H3: { scale: 1.22 } }, format: { preamble: ['unit,DAQ bay 2', 'operator,demo'] } });
+    const csv = syntheticLog(plan, {
+      rateHz: 2,
+      holdSeconds: 90,
+      rampSeconds: 45,
+      seed: 102,
+      gauges: { A2: { scale: 0.88 }, H3: { scale: 1.22 } },
+      format: { preamble: ['unit,DAQ bay 2', 'operator,demo'] },
+    });
     const sha256 = createHash('sha256').update(csv).digest('hex');
     const key = `tests/${testId}/logs/demo-${sha256.slice(0, 12)}.csv`;
     await putObject(key, csv, 'text/csv');
     const info = inspectLogHead(plan, csv.slice(0, 65536));
     const lines = csv.trim().split(/\r?\n/);
-    const logId = await insertLog(db, { testId, objectKey: key, filename: 'ar102-hydrotest.csv', sha256, sizeBytes: Buffer.byteLength(csv), rows: lines.length - info.headerLine, timeStart: 0, timeEnd: Number(lines.at(-1)!.split(',')[0]), columnMap: { delimiter: info.delimiter, decimalComma: info.decimalComma, headerLine: info.headerLine, columns: info.columns, pressureUnit: info.pressureUnit, preview: info.previewRows.slice(0, 10) }, uploadedBy: technician.id });
-    await insertNote(db, { testId, userId: technician.id, kind: 'pressure-held', body: 'Held 1.95 MPa for 90 s; no leak at the N1 flange. Water and shell at 14 °C.' });
+    const logId = await insertLog(db, {
+      testId,
+      objectKey: key,
+      filename: 'ar102-hydrotest.csv',
+      sha256,
+      sizeBytes: Buffer.byteLength(csv),
+      rows: lines.length - info.headerLine,
+      timeStart: 0,
+      timeEnd: Number(lines.at(-1)!.split(',')[0]),
+      columnMap: {
+        delimiter: info.delimiter,
+        decimalComma: info.decimalComma,
+        headerLine: info.headerLine,
+        columns: info.columns,
+        pressureUnit: info.pressureUnit,
+        preview: info.previewRows.slice(0, 10),
+      },
+      uploadedBy: technician.id,
+    });
+    await insertNote(db, {
+      testId,
+      userId: technician.id,
+      kind: 'pressure-held',
+      body: 'Held 1.95 MPa for 90 s; no leak at the N1 flange. Water and shell at 14 °C.',
+    });
     const reductionId = await queueReduction(db, { testId, plan: demoPlan, logIds: [logId], queuedBy: technician.id });
     await updateTest(db, testId, {});
-    await audit({ userId: technician.id, actor: technician.email, action: 'log-uploaded', testId, details: { logId, demo: true } });
-    await audit({ userId: technician.id, actor: technician.email, action: 'reduction-queued', testId, details: { reductionId, demo: true } });
+    await audit({
+      userId: technician.id,
+      actor: technician.email,
+      action: 'log-uploaded',
+      testId,
+      details: { logId, demo: true },
+    });
+    await audit({
+      userId: technician.id,
+      actor: technician.email,
+      action: 'reduction-queued',
+      testId,
+      details: { reductionId, demo: true },
+    });
     done.push(LOGGED);
   }
   if (!(await db.query.tests.findFirst({ where: eq(tests.name, PLANNED) }))) {
-    const [row] = await db.insert(tests).values({ name: PLANNED, vesselId: vessel.id, plan: { ...demoPlan, testPressure: 1.95 }, ownerId: engineer.id, status: 'draft' }).$returningId();
+    const [row] = await db
+      .insert(tests)
+      .values({
+        name: PLANNED,
+        vesselId: vessel.id,
+        plan: { ...demoPlan, testPressure: 1.95 },
+        ownerId: engineer.id,
+        status: 'draft',
+      })
+      .$returningId();
     await replaceGauges(db, row!.id, rows);
     done.push(PLANNED);
   }

@@ -7,20 +7,37 @@ import type { TestRecord } from './record.server';
 
 /** The renderers' input for a record with a finished reduction (409 without one). */
 export function buildReportInput(r: TestRecord, now = new Date()): ReportInput {
-  if (!r.result || !r.reduction || !r.plan) throw errors.conflict('no-result', 'There is nothing to export yet: the test has no finished reduction.');
+  if (!r.result || !r.reduction || !r.plan)
+    throw errors.conflict('no-result', 'There is nothing to export yet: the test has no finished reduction.');
   const plan = r.plan;
   const dispositions: ReportInput['dispositions'] = {};
   const ids = new Set(r.result.gauges.map((g) => g.id));
   for (const d of r.dispositions) {
     if (ids.has(d.gaugeId)) dispositions[d.gaugeId] = { outcome: d.outcome, reason: d.reason, by: d.by, at: d.at };
-    else for (const g of r.result.gauges) if (g.id.startsWith(`${d.gaugeId}/`) && !dispositions[g.id]) dispositions[g.id] = { outcome: d.outcome, reason: d.reason, by: d.by, at: d.at };
+    else
+      for (const g of r.result.gauges)
+        if (g.id.startsWith(`${d.gaugeId}/`) && !dispositions[g.id])
+          dispositions[g.id] = { outcome: d.outcome, reason: d.reason, by: d.by, at: d.at };
   }
   return {
     generatedAt: now,
     draft: r.test.status !== 'released',
     test: { id: r.test.id, name: r.test.name, status: r.test.status },
-    vessel: { tag: r.vessel.tag, name: r.vessel.name, shape: plan.vessel.shape, ends: plan.vessel.ends, insideDiameter: plan.vessel.insideDiameter, wallThickness: plan.vessel.wallThickness, length: plan.vessel.length },
-    material: { name: plan.material.name ?? r.material?.name ?? 'material', elasticModulus: plan.material.elasticModulus, poissonRatio: plan.material.poissonRatio, yieldStrength: plan.material.yieldStrength },
+    vessel: {
+      tag: r.vessel.tag,
+      name: r.vessel.name,
+      shape: plan.vessel.shape,
+      ends: plan.vessel.ends,
+      insideDiameter: plan.vessel.insideDiameter,
+      wallThickness: plan.vessel.wallThickness,
+      length: plan.vessel.length,
+    },
+    material: {
+      name: plan.material.name ?? r.material?.name ?? 'material',
+      elasticModulus: plan.material.elasticModulus,
+      poissonRatio: plan.material.poissonRatio,
+      yieldStrength: plan.material.yieldStrength,
+    },
     units: plan.units,
     model: r.result.model,
     testPressure: plan.testPressure,
@@ -32,7 +49,9 @@ export function buildReportInput(r: TestRecord, now = new Date()): ReportInput {
     dispositions,
     gaugeOutcomes: Object.fromEntries(r.gauges.map((g) => [g.id, g.outcome])),
     verdict: r.verdict ?? r.result.verdict,
-    signatures: r.signatures.filter((s) => s.reductionId === r.reduction!.id).map((s) => ({ kind: s.kind, name: s.name, email: s.email, at: s.createdAt, reductionId: s.reductionId })),
+    signatures: r.signatures
+      .filter((s) => s.reductionId === r.reduction!.id)
+      .map((s) => ({ kind: s.kind, name: s.name, email: s.email, at: s.createdAt, reductionId: s.reductionId })),
   };
 }
 
@@ -40,10 +59,22 @@ const fileStem = (r: TestRecord) => `hoopline-test-${r.test.id}-${r.test.status 
 
 export function csvResponse(r: TestRecord): Response {
   const body = renderSummaryCsv(buildReportInput(r));
-  return new Response(body, { headers: { 'content-type': 'text/csv; charset=utf-8', 'content-disposition': `attachment; filename="${fileStem(r)}.csv"`, 'cache-control': 'no-store' } });
+  return new Response(body, {
+    headers: {
+      'content-type': 'text/csv; charset=utf-8',
+      'content-disposition': `attachment; filename="${fileStem(r)}.csv"`,
+      'cache-control': 'no-store',
+    },
+  });
 }
 
 export async function pdfResponse(r: TestRecord): Promise<Response> {
   const pdf = await renderReportPdf(buildReportInput(r));
-  return new Response(new Uint8Array(pdf), { headers: { 'content-type': 'application/pdf', 'content-disposition': `inline; filename="${fileStem(r)}.pdf"`, 'cache-control': 'no-store' } });
+  return new Response(new Uint8Array(pdf), {
+    headers: {
+      'content-type': 'application/pdf',
+      'content-disposition': `inline; filename="${fileStem(r)}.pdf"`,
+      'cache-control': 'no-store',
+    },
+  });
 }

@@ -86,7 +86,16 @@ export function endpoint(handler: Handler): Handler {
       const mapped = mapError(err);
       if (mapped) return errorResponse(mapped);
       console.error(`[${new Date().toISOString()}] ${ctx.request.method} ${ctx.url.pathname} failed:`, err);
-      return json({ error: { code: 'internal', message: 'Something went wrong on the server; it has been logged.', details: null } }, 500);
+      return json(
+        {
+          error: {
+            code: 'internal',
+            message: 'Something went wrong on the server; it has been logged.',
+            details: null,
+          },
+        },
+        500,
+      );
     }
   };
 }

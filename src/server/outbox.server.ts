@@ -7,10 +7,16 @@ import { getConfig } from './config';
 import { sendMail } from './mail.server';
 
 const MAX_ATTEMPTS = 12;
-const backoffMs = (attempt: number) => Math.min(getConfig().MAIL_RETRY_SECONDS * 1000 * 2 ** Math.max(0, attempt - 1), 60 * 60_000);
+const backoffMs = (attempt: number) =>
+  Math.min(getConfig().MAIL_RETRY_SECONDS * 1000 * 2 ** Math.max(0, attempt - 1), 60 * 60_000);
 
 /** Store a message and try to send it at once (without waiting for the answer). */
-export async function queueMail(toAddress: string, subject: string, textBody: string, testId: number | null = null): Promise<number> {
+export async function queueMail(
+  toAddress: string,
+  subject: string,
+  textBody: string,
+  testId: number | null = null,
+): Promise<number> {
   const id = await enqueueMail(getDb(), { toAddress, subject, textBody, testId });
   void deliverDueMail().catch(() => undefined);
   return id;
@@ -28,7 +34,13 @@ export async function deliverDueMail(): Promise<number> {
       sent++;
     } catch (err) {
       const attempt = m.attempts + 1;
-      await markMailRetry(db, m.id, err instanceof Error ? err.message : String(err), new Date(Date.now() + backoffMs(attempt)), attempt >= MAX_ATTEMPTS);
+      await markMailRetry(
+        db,
+        m.id,
+        err instanceof Error ? err.message : String(err),
+        new Date(Date.now() + backoffMs(attempt)),
+        attempt >= MAX_ATTEMPTS,
+      );
     }
   }
   return sent;

@@ -26,14 +26,23 @@ export function planToSI(plan: Plan) {
   const len = (v: number) => (plan.units === 'US' ? inToMm(v) : v);
   const stress = (v: number) => (plan.units === 'US' ? psiToMPa(v) : v);
   return {
-    material: { name: plan.material.name?.trim() || 'Unnamed material', elasticModulusMPa: stress(plan.material.elasticModulus), poissonRatio: plan.material.poissonRatio, yieldStrengthMPa: stress(plan.material.yieldStrength) },
+    material: {
+      name: plan.material.name?.trim() || 'Unnamed material',
+      elasticModulusMPa: stress(plan.material.elasticModulus),
+      poissonRatio: plan.material.poissonRatio,
+      yieldStrengthMPa: stress(plan.material.yieldStrength),
+    },
     vessel: {
       shape: plan.vessel.shape,
       ends: plan.vessel.ends,
       insideDiameterMm: len(plan.vessel.insideDiameter),
       wallThicknessMm: len(plan.vessel.wallThickness),
       lengthMm: plan.vessel.length === undefined ? null : len(plan.vessel.length),
-      features: plan.vessel.features.map((f) => ({ ...f, axialPosition: len(f.axialPosition), size: f.size === undefined ? undefined : len(f.size) })),
+      features: plan.vessel.features.map((f) => ({
+        ...f,
+        axialPosition: len(f.axialPosition),
+        size: f.size === undefined ? undefined : len(f.size),
+      })),
     },
   };
 }
@@ -51,7 +60,9 @@ async function resolveVessel(plan: Plan, user: RequestUser): Promise<number> {
   const tag = named && !(await findVesselByTag(db, named)) ? named : named ? `${named}-${stamp}` : `V-${stamp}`;
   return insertVessel(db, {
     tag,
-    name: plan.vessel.name?.trim() || `Vessel from plan (${plan.vessel.shape}, ID ${plan.vessel.insideDiameter} ${plan.units === 'US' ? 'in' : 'mm'})`,
+    name:
+      plan.vessel.name?.trim() ||
+      `Vessel from plan (${plan.vessel.shape}, ID ${plan.vessel.insideDiameter} ${plan.units === 'US' ? 'in' : 'mm'})`,
     ...si.vessel,
     materialId,
     units: plan.units,
@@ -76,7 +87,12 @@ export function gaugeRows(plan: Plan) {
 }
 
 /** POST /api/tests: a new test in `draft` from a name and a plan. */
-export async function createTestFromPlan(user: RequestUser, name: string, rawPlan: unknown, vesselId?: number): Promise<number> {
+export async function createTestFromPlan(
+  user: RequestUser,
+  name: string,
+  rawPlan: unknown,
+  vesselId?: number,
+): Promise<number> {
   const plan = validatePlan(rawPlan);
   const db = getDb();
   const vid = vesselId ?? (await resolveVessel(plan, user));
@@ -103,5 +119,9 @@ export async function replacePlan(user: RequestUser, testId: number, rawPlan: un
   const status = test.status === 'reduced' || test.status === 'reviewed' ? 'logging' : test.status;
   await updateTest(db, testId, { plan: rawPlan, vesselId, status });
   await replaceGauges(db, testId, gaugeRows(plan));
-  await auditBy(user, 'plan-changed', testId, { gauges: plan.gauges.length, statusBefore: test.status, statusAfter: status });
+  await auditBy(user, 'plan-changed', testId, {
+    gauges: plan.gauges.length,
+    statusBefore: test.status,
+    statusAfter: status,
+  });
 }

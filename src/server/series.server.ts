@@ -24,12 +24,17 @@ async function loadSeries(key: string): Promise<Series> {
   return series;
 }
 
-const querySchema = z.object({
-  from: z.coerce.number().finite().optional(),
-  to: z.coerce.number().finite().optional(),
-  points: z.coerce.number().int().min(10).max(5000).default(1000),
-  channels: z.string().optional(),
-}).refine((q) => q.from === undefined || q.to === undefined || q.to > q.from, { path: ['to'], message: 'must be greater than from' });
+const querySchema = z
+  .object({
+    from: z.coerce.number().finite().optional(),
+    to: z.coerce.number().finite().optional(),
+    points: z.coerce.number().int().min(10).max(5000).default(1000),
+    channels: z.string().optional(),
+  })
+  .refine((q) => q.from === undefined || q.to === undefined || q.to > q.from, {
+    path: ['to'],
+    message: 'must be greater than from',
+  });
 
 /** Round to keep the JSON small: 4 significant digits beyond the integer part is plenty for a plot. */
 const round = (v: number) => (Number.isFinite(v) ? Math.round(v * 1000) / 1000 : v);
@@ -43,6 +48,7 @@ export async function readSeries(seriesKey: string | null, url: URL) {
   const s = decimateSeries(full, { from: q.data.from, to: q.data.to, points: q.data.points });
   const wanted = q.data.channels ? new Set(['pressure', ...q.data.channels.split(',')]) : null;
   const channels = s.channels.filter((c) => !wanted || wanted.has(c));
-  const pick = (rec: Record<string, number[]>) => Object.fromEntries(channels.map((c) => [c, (rec[c] ?? []).map(round)]));
+  const pick = (rec: Record<string, number[]>) =>
+    Object.fromEntries(channels.map((c) => [c, (rec[c] ?? []).map(round)]));
   return { ...s, t: s.t.map(round), channels, min: pick(s.min), max: pick(s.max) };
 }

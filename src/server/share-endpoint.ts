@@ -5,9 +5,14 @@ import { endpoint } from './http';
 import { useShareLink } from './share.server';
 import type { ShareLink } from '../db/schema';
 
-export function shareGet(what: string, handler: (link: ShareLink, ctx: APIContext) => Promise<Response>): { GET: APIRoute; ALL: APIRoute } {
+export function shareGet(
+  what: string,
+  handler: (link: ShareLink, ctx: APIContext) => Promise<Response>,
+): { GET: APIRoute; ALL: APIRoute } {
   return {
     GET: endpoint(async (ctx) => handler(await useShareLink(ctx.params.token, what), ctx)),
-    ALL: endpoint(async () => { throw errors.methodNotAllowed(); }),
+    ALL: endpoint(async () => {
+      throw errors.methodNotAllowed();
+    }),
   };
 }

@@ -2,7 +2,13 @@
 // at most 90; revocable; every use is counted and audited.
 import { z } from 'zod';
 import { getDb } from '../db/client.server';
-import { findShareLink, findShareLinkByHash, insertShareLink, revokeShareLink, touchShareLink } from '../db/queries/review';
+import {
+  findShareLink,
+  findShareLinkByHash,
+  insertShareLink,
+  revokeShareLink,
+  touchShareLink,
+} from '../db/queries/review';
 import type { ShareLink } from '../db/schema';
 import { audit, auditBy } from './audit.server';
 import { hashToken, newToken } from './auth/tokens.server';
@@ -21,9 +27,19 @@ export async function createShareLink(user: RequestUser, testId: number, body: z
   const test = await loadTest(testId);
   const token = newToken();
   const expiresAt = new Date(Date.now() + body.expiresInDays * 86_400_000);
-  const id = await insertShareLink(getDb(), { testId, tokenHash: hashToken(token), email: body.email ?? null, createdBy: user.id, expiresAt });
+  const id = await insertShareLink(getDb(), {
+    testId,
+    tokenHash: hashToken(token),
+    email: body.email ?? null,
+    createdBy: user.id,
+    expiresAt,
+  });
   const url = `${getConfig().PUBLIC_BASE_URL.replace(/\/$/, '')}/share/${token}`;
-  await auditBy(user, 'share-link-created', testId, { shareLinkId: id, email: body.email ?? null, expiresAt: expiresAt.toISOString() });
+  await auditBy(user, 'share-link-created', testId, {
+    shareLinkId: id,
+    email: body.email ?? null,
+    expiresAt: expiresAt.toISOString(),
+  });
   if (body.email) {
     await queueMail(
       body.email,
@@ -57,8 +73,14 @@ export async function useShareLink(token: string | undefined, what: string): Pro
   const link = await findShareLinkByHash(db, hashToken(token));
   if (!link) throw errors.notFound('share link');
   if (link.revokedAt) throw errors.gone('This link has been revoked. Ask the QA manager who sent it for a new one.');
-  if (link.expiresAt.getTime() <= Date.now()) throw errors.gone('This link has expired. Ask the QA manager who sent it for a new one.');
+  if (link.expiresAt.getTime() <= Date.now())
+    throw errors.gone('This link has expired. Ask the QA manager who sent it for a new one.');
   await touchShareLink(db, link.id);
-  await audit({ actor: `share link #${link.id}${link.email ? ` (${link.email})` : ''}`, action: 'share-link-used', testId: link.testId, details: { shareLinkId: link.id, what } });
+  await audit({
+    actor: `share link #${link.id}${link.email ? ` (${link.email})` : ''}`,
+    action: 'share-link-used',
+    testId: link.testId,
+    details: { shareLinkId: link.id, what },
+  });
   return link;
 }

@@ -1,7 +1,13 @@
 // Object storage for logs and stored series, through @aws-sdk/client-s3 only, so any S3
 // endpoint works by env. The checksum settings keep s3rver from storing chunk framing in a
 // streamed object and let unknown-length streams upload (STACK.md).
-import { DeleteObjectCommand, GetObjectCommand, HeadBucketCommand, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
+import {
+  DeleteObjectCommand,
+  GetObjectCommand,
+  HeadBucketCommand,
+  PutObjectCommand,
+  S3Client,
+} from '@aws-sdk/client-s3';
 import { Upload } from '@aws-sdk/lib-storage';
 import type { Readable } from 'node:stream';
 import { getConfig } from './config';
@@ -27,7 +33,11 @@ export function getS3(): S3Client {
 const bucket = () => getConfig().S3_BUCKET;
 
 /** Stream a body of unknown length to `key` (multipart above 8 MB parts); never buffers it whole. */
-export async function putObjectStream(key: string, body: Readable | ReadableStream | Uint8Array | string, contentType = 'application/octet-stream'): Promise<void> {
+export async function putObjectStream(
+  key: string,
+  body: Readable | ReadableStream | Uint8Array | string,
+  contentType = 'application/octet-stream',
+): Promise<void> {
   const upload = new Upload({
     client: getS3(),
     params: { Bucket: bucket(), Key: key, Body: body as never, ContentType: contentType },
@@ -37,7 +47,11 @@ export async function putObjectStream(key: string, body: Readable | ReadableStre
   await upload.done();
 }
 
-export async function putObject(key: string, body: string | Uint8Array, contentType = 'application/json'): Promise<void> {
+export async function putObject(
+  key: string,
+  body: string | Uint8Array,
+  contentType = 'application/json',
+): Promise<void> {
   await getS3().send(new PutObjectCommand({ Bucket: bucket(), Key: key, Body: body, ContentType: contentType }));
 }
 

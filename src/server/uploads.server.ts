@@ -20,11 +20,15 @@ import { deleteObject, putObjectStream } from './storage.server';
 const HEAD_BYTES = 64 * 1024;
 const TAIL_BYTES = 8 * 1024;
 
-interface IncomingFile { stream: Readable; filename: string }
+interface IncomingFile {
+  stream: Readable;
+  filename: string;
+}
 
 /** The file's byte stream: the multipart field `file`, or the raw body. */
 async function openIncomingFile(request: Request): Promise<IncomingFile> {
-  if (!request.body) throw errors.invalid('The request has no body: send the log as multipart field `file` or as a text/csv body.');
+  if (!request.body)
+    throw errors.invalid('The request has no body: send the log as multipart field `file` or as a text/csv body.');
   const type = request.headers.get('content-type') ?? '';
   const body = Readable.fromWeb(request.body as import('node:stream/web').ReadableStream);
   if (!type.toLowerCase().startsWith('multipart/form-data')) {
@@ -41,12 +45,17 @@ async function openIncomingFile(request: Request): Promise<IncomingFile> {
     }
     let found = false;
     bb.on('file', (field, stream, info) => {
-      if (field !== 'file' || found) { stream.resume(); return; }
+      if (field !== 'file' || found) {
+        stream.resume();
+        return;
+      }
       found = true;
       resolve({ stream, filename: (info.filename || 'log.csv').slice(0, 255) });
     });
     bb.on('error', () => reject(errors.invalid('The multipart body is malformed.')));
-    bb.on('close', () => { if (!found) reject(errors.invalid('The multipart body has no field named `file`.')); });
+    bb.on('close', () => {
+      if (!found) reject(errors.invalid('The multipart body has no field named `file`.'));
+    });
     body.pipe(bb);
   });
 }
@@ -66,10 +75,23 @@ async function readHead(stream: Readable, limit: number): Promise<{ head: Buffer
     }
     if (stream.readableEnded) return { head: Buffer.concat(parts), ended: true };
     const more = await new Promise<boolean>((resolve, reject) => {
-      const onReadable = () => { cleanup(); resolve(true); };
-      const onEnd = () => { cleanup(); resolve(false); };
-      const onError = (e: Error) => { cleanup(); reject(e); };
-      const cleanup = () => { stream.off('readable', onReadable); stream.off('end', onEnd); stream.off('error', onError); };
+      const onReadable = () => {
+        cleanup();
+        resolve(true);
+      };
+      const onEnd = () => {
+        cleanup();
+        resolve(false);
+      };
+      const onError = (e: Error) => {
+        cleanup();
+        reject(e);
+      };
+      const cleanup = () => {
+        stream.off('readable', onReadable);
+        stream.off('end', onEnd);
+        stream.off('error', onError);
+      };
       stream.once('readable', onReadable);
       stream.once('end', onEnd);
       stream.once('error', onError);
@@ -85,15 +107,22 @@ class LogMeter extends Transform {
   lines = 0;
   private lineHasContent = false;
   tail = Buffer.alloc(0);
-  constructor(private readonly limit: number) { super(); }
+  constructor(private readonly limit: number) {
+    super();
+  }
   override _transform(chunk: Buffer, _enc: BufferEncoding, done: TransformCallback) {
     this.bytes += chunk.length;
-    if (this.bytes > this.limit) { done(errors.tooLarge(this.limit)); return; }
+    if (this.bytes > this.limit) {
+      done(errors.tooLarge(this.limit));
+      return;
+    }
     this.hash.update(chunk);
     for (let i = 0; i < chunk.length; i++) {
       const b = chunk[i]!;
-      if (b === 10) { if (this.lineHasContent) this.lines++; this.lineHasContent = false; }
-      else if (b !== 13 && b !== 32 && b !== 9) this.lineHasContent = true;
+      if (b === 10) {
+        if (this.lineHasContent) this.lines++;
+        this.lineHasContent = false;
+      } else if (b !== 13 && b !== 32 && b !== 9) this.lineHasContent = true;
     }
     this.tail = Buffer.concat([this.tail, chunk]).subarray(-TAIL_BYTES);
     done(null, chunk);
@@ -115,10 +144,18 @@ function timeOf(line: string | undefined, column: number, delimiter: string, dec
   return Number.isFinite(t) ? t / 1000 : null;
 }
 
-export interface UploadOutcome { log: LogFile; created: boolean }
+export interface UploadOutcome {
+  log: LogFile;
+  created: boolean;
+}
 
 /** POST /api/tests/{id}/logs. Throws AppError 400/413/422; 503 when storage fails. */
-export async function receiveLogUpload(request: Request, test: Test, plan: Plan, user: RequestUser): Promise<UploadOutcome> {
+export async function receiveLogUpload(
+  request: Request,
+  test: Test,
+  plan: Plan,
+  user: RequestUser,
+): Promise<UploadOutcome> {
   const limit = getConfig().UPLOAD_MAX_BYTES;
   const declared = Number(request.headers.get('content-length') ?? NaN);
   if (Number.isFinite(declared) && declared > limit + 64 * 1024) throw errors.tooLarge(limit);
@@ -137,10 +174,27 @@ export async function receiveLogUpload(request: Request, test: Test, plan: Plan,
   let info: ReturnType<typeof inspectLogHead>;
   try {
     if (head.length === 0) throw new AppError(422, 'empty-file', 'The file is empty.');
-    if (head.includes(0)) throw new AppError(422, 'not-delimited-text', 'The file is not delimited text (it holds binary bytes). Upload the CSV export of the data-acquisition unit.');
+    if (head.includes(0))
+      throw new AppError(
+        422,
+        'not-delimited-text',
+        'The file is not delimited text (it holds binary bytes). Upload the CSV export of the data-acquisition unit.',
+      );
     info = inspectLogHead(plan, headText);
-    if (info.duplicateColumns.length) throw new AppError(422, 'duplicate-column', `Column ${info.duplicateColumns.map((c) => `'${c}'`).join(', ')} appears more than once in the header (line ${info.headerLine}).`, { line: info.headerLine, columns: info.duplicateColumns });
-    if (info.missingColumns.length) throw new AppError(422, 'missing-column', `The header (line ${info.headerLine}) lacks column${info.missingColumns.length > 1 ? 's' : ''} ${info.missingColumns.map((c) => `'${c}'`).join(', ')} that the plan maps. Fix the plan's column names or the log.`, { line: info.headerLine, missingColumns: info.missingColumns, columns: info.columns });
+    if (info.duplicateColumns.length)
+      throw new AppError(
+        422,
+        'duplicate-column',
+        `Column ${info.duplicateColumns.map((c) => `'${c}'`).join(', ')} appears more than once in the header (line ${info.headerLine}).`,
+        { line: info.headerLine, columns: info.duplicateColumns },
+      );
+    if (info.missingColumns.length)
+      throw new AppError(
+        422,
+        'missing-column',
+        `The header (line ${info.headerLine}) lacks column${info.missingColumns.length > 1 ? 's' : ''} ${info.missingColumns.map((c) => `'${c}'`).join(', ')} that the plan maps. Fix the plan's column names or the log.`,
+        { line: info.headerLine, missingColumns: info.missingColumns, columns: info.columns },
+      );
   } catch (err) {
     stream.resume();
     if ((err as { name?: string }).name === 'InputError') {
@@ -180,7 +234,10 @@ export async function receiveLogUpload(request: Request, test: Test, plan: Plan,
   const timeIndex = plan.columns.time ? info.columns.indexOf(plan.columns.time) : -1;
   const headLines = headText.split(/\r?\n/);
   const firstData = headLines.slice(info.headerLine).find((l) => l.trim().length > 0);
-  const tailLines = meter.tail.toString('utf8').split(/\r?\n/).filter((l) => l.trim().length > 0);
+  const tailLines = meter.tail
+    .toString('utf8')
+    .split(/\r?\n/)
+    .filter((l) => l.trim().length > 0);
   const columnMap = {
     delimiter: info.delimiter,
     decimalComma: info.decimalComma,
@@ -188,7 +245,11 @@ export async function receiveLogUpload(request: Request, test: Test, plan: Plan,
     columns: info.columns,
     pressureUnit: info.pressureUnit,
     preview: info.previewRows.slice(0, 10),
-    mapping: { pressure: plan.columns.pressure, time: plan.columns.time ?? null, channels: plan.gauges.flatMap((g) => g.channels) },
+    mapping: {
+      pressure: plan.columns.pressure,
+      time: plan.columns.time ?? null,
+      channels: plan.gauges.flatMap((g) => g.channels),
+    },
   };
   let id: number;
   try {

@@ -17,7 +17,15 @@ const password = () => inject('testPassword');
 const files = mkdtempSync(path.join(tmpdir(), 'hoopline-e2e-'));
 const plan = {
   units: 'SI',
-  vessel: { name: 'E2E-7', shape: 'cylinder', ends: 'closed', insideDiameter: 1000, wallThickness: 10, length: 4000, features: [{ kind: 'nozzle', axialPosition: 2000, clockDeg: 0, size: 120 }] },
+  vessel: {
+    name: 'E2E-7',
+    shape: 'cylinder',
+    ends: 'closed',
+    insideDiameter: 1000,
+    wallThickness: 10,
+    length: 4000,
+    features: [{ kind: 'nozzle', axialPosition: 2000, clockDeg: 0, size: 120 }],
+  },
   material: { name: 'Carbon steel, e2e', elasticModulus: 200000, poissonRatio: 0.3, yieldStrength: 260 },
   model: 'lame',
   testPressure: 2,
@@ -31,7 +39,21 @@ const plan = {
 const planFile = path.join(files, 'e2e-plan.json');
 writeFileSync(planFile, JSON.stringify(plan, null, 2));
 const logFile = path.join(files, 'e2e-hydrotest.csv');
-writeFileSync(logFile, makeHydrotestCsv({ insideDiameter: 1000, wallThickness: 10, E: 200000, nu: 0.3, testPressure: 2, channels: [{ name: 'SG1', angleDeg: 90 }, { name: 'SG2', angleDeg: 0 }, { name: 'SG3', angleDeg: 0, scale: 0.88 }] }));
+writeFileSync(
+  logFile,
+  makeHydrotestCsv({
+    insideDiameter: 1000,
+    wallThickness: 10,
+    E: 200000,
+    nu: 0.3,
+    testPressure: 2,
+    channels: [
+      { name: 'SG1', angleDeg: 90 },
+      { name: 'SG2', angleDeg: 0 },
+      { name: 'SG3', angleDeg: 0, scale: 0.88 },
+    ],
+  }),
+);
 
 let worker: ChildProcess;
 let testId = 0;
@@ -48,7 +70,9 @@ function noProblems(s: Session) {
   expect(s.problems, 'console errors, failed requests or server errors').toEqual([]);
 }
 
-beforeAll(() => { worker = startWorker(inject('env'), 'w-e2e'); });
+beforeAll(() => {
+  worker = startWorker(inject('env'), 'w-e2e');
+});
 afterAll(async () => {
   await Promise.all(sessions.map((s) => s.close()));
   await stopProcess(worker);
@@ -84,7 +108,14 @@ describe('a hydrotest from plan to inspector link, in the browser', () => {
     await wall.press('Tab');
     await expect.poll(async () => wall.getAttribute('aria-invalid')).not.toBe('true');
     await page.getByRole('button', { name: /save plan/i }).click();
-    await expect.poll(async () => page.getByRole('status').filter({ hasText: /^Saved at/ }).count()).toBeGreaterThan(0);
+    await expect
+      .poll(async () =>
+        page
+          .getByRole('status')
+          .filter({ hasText: /^Saved at/ })
+          .count(),
+      )
+      .toBeGreaterThan(0);
     await s.shoot('plan-fixed-and-saved');
     noProblems(s);
   });
@@ -98,7 +129,9 @@ describe('a hydrotest from plan to inspector link, in the browser', () => {
     await page.evaluate(() => {
       const w = window as unknown as { sawUploadBar: boolean };
       w.sawUploadBar = false;
-      new MutationObserver(() => { if (document.querySelector('[role=progressbar][aria-label="Upload progress"]')) w.sawUploadBar = true; }).observe(document.body, { childList: true, subtree: true });
+      new MutationObserver(() => {
+        if (document.querySelector('[role=progressbar][aria-label="Upload progress"]')) w.sawUploadBar = true;
+      }).observe(document.body, { childList: true, subtree: true });
     });
     await page.locator('#log-file').setInputFiles(logFile);
     await page.getByText(/Stored e2e-hydrotest\.csv/).waitFor();
@@ -121,16 +154,27 @@ describe('a hydrotest from plan to inspector link, in the browser', () => {
     await page.getByText('Measured over predicted slope').waitFor();
     await expect.poll(async () => page.locator('canvas').count()).toBeGreaterThanOrEqual(2);
     await s.shoot('review-flagged');
-    await page.getByRole('button', { name: 'Sign engineering review' }).isDisabled().then((d) => expect(d).toBe(true));
-    await page.getByRole('button', { name: /Disposition…/ }).first().click();
-    await page.getByLabel(/Reason \(required\)/).fill('Bond of A2 inspected: edge lifted; axial strain taken from A1 and the rosette-free mirror gauge.');
+    await page
+      .getByRole('button', { name: 'Sign engineering review' })
+      .isDisabled()
+      .then((d) => expect(d).toBe(true));
+    await page
+      .getByRole('button', { name: /Disposition…/ })
+      .first()
+      .click();
+    await page
+      .getByLabel(/Reason \(required\)/)
+      .fill('Bond of A2 inspected: edge lifted; axial strain taken from A1 and the rosette-free mirror gauge.');
     await page.getByRole('radio', { name: /Exclude/ }).check();
     await page.getByRole('button', { name: /Record disposition/ }).click();
     await page.getByText('Verdict: Conforms', { exact: false }).waitFor();
     await s.shoot('review-dispositioned');
     page.once('dialog', (d) => void d.accept());
     await page.getByRole('button', { name: 'Sign engineering review' }).click();
-    await page.getByText(/Reviewed.*by/).first().waitFor();
+    await page
+      .getByText(/Reviewed.*by/)
+      .first()
+      .waitFor();
     await s.shoot('review-signed');
     noProblems(s);
   });
@@ -176,7 +220,10 @@ describe('a hydrotest from plan to inspector link, in the browser', () => {
     }
     expect(await page.locator('textarea, input[type=file], input[type=radio]').count()).toBe(0);
     noProblems(s);
-    const write = await page.evaluate(async (u) => (await fetch(u.replace('/share/', '/api/share/'), { method: 'POST', body: '{}' })).status, new URL(shareUrl).pathname);
+    const write = await page.evaluate(
+      async (u) => (await fetch(u.replace('/share/', '/api/share/'), { method: 'POST', body: '{}' })).status,
+      new URL(shareUrl).pathname,
+    );
     expect(write).toBe(405);
     // the account pages stay closed to the link's holder
     await page.goto(`/tests/${testId}`);

@@ -7,7 +7,9 @@ export class Client {
   private cookies = new Map<string, string>();
   constructor(private bearer: string | null = null) {}
 
-  static withToken(token: string) { return new Client(token); }
+  static withToken(token: string) {
+    return new Client(token);
+  }
 
   cookieHeader(): string {
     return [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ');
@@ -29,7 +31,10 @@ export class Client {
     if (this.cookies.size) headers.set('cookie', this.cookieHeader());
     if (this.bearer) headers.set('authorization', `Bearer ${this.bearer}`);
     let body = init.body;
-    if (init.json !== undefined) { headers.set('content-type', 'application/json'); body = JSON.stringify(init.json); }
+    if (init.json !== undefined) {
+      headers.set('content-type', 'application/json');
+      body = JSON.stringify(init.json);
+    }
     const method = (init.method ?? 'GET').toUpperCase();
     if (!['GET', 'HEAD'].includes(method) && !this.bearer && !headers.has('origin')) headers.set('origin', baseUrl());
     const res = await fetch(baseUrl() + path, { ...init, headers, body, redirect: 'manual' });
@@ -41,7 +46,11 @@ export class Client {
     const res = await this.fetch(path, init);
     const text = await res.text();
     let body: any = text;
-    try { body = JSON.parse(text); } catch { /* not JSON */ }
+    try {
+      body = JSON.parse(text);
+    } catch {
+      /* not JSON */
+    }
     return { status: res.status, body };
   }
 
@@ -49,7 +58,11 @@ export class Client {
   async signIn(email: string, password = inject('testPassword')): Promise<boolean> {
     const csrf = await this.json<{ csrfToken: string }>('/api/auth/csrf');
     const form = new URLSearchParams({ csrfToken: csrf.body.csrfToken, email, password, callbackUrl: baseUrl() + '/' });
-    await this.fetch('/api/auth/callback/credentials', { method: 'POST', body: form, headers: { 'content-type': 'application/x-www-form-urlencoded' } });
+    await this.fetch('/api/auth/callback/credentials', {
+      method: 'POST',
+      body: form,
+      headers: { 'content-type': 'application/x-www-form-urlencoded' },
+    });
     return [...this.cookies.keys()].some((k) => k.includes('session-token'));
   }
 }

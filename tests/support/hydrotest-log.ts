@@ -2,12 +2,23 @@
 // integration tests: outer-surface Lamé strains of a closed cylinder (Timoshenko, Strength of
 // Materials Part II [memory]), holds at fractions of test pressure, deterministic noise.
 
-export interface SyntheticChannel { name: string; angleDeg: number; scale?: number; spikeAtSecond?: number }
+export interface SyntheticChannel {
+  name: string;
+  angleDeg: number;
+  scale?: number;
+  spikeAtSecond?: number;
+}
 
 export interface SyntheticLogOptions {
-  insideDiameter: number; wallThickness: number; E: number; nu: number; testPressure: number;
+  insideDiameter: number;
+  wallThickness: number;
+  E: number;
+  nu: number;
+  testPressure: number;
   channels: SyntheticChannel[];
-  rateHz?: number; holdSeconds?: number; rampSeconds?: number;
+  rateHz?: number;
+  holdSeconds?: number;
+  rampSeconds?: number;
   levels?: number[]; // fractions of test pressure, loading then unloading, 0 first and last
 }
 
@@ -19,7 +30,9 @@ export function lameOuterStrainPerMPa(o: { insideDiameter: number; wallThickness
   return { hoop: ((A * (2 - o.nu)) / o.E) * 1e6, axial: ((A * (1 - 2 * o.nu)) / o.E) * 1e6 };
 }
 
-function* pressureProfile(o: Required<Pick<SyntheticLogOptions, 'rateHz' | 'holdSeconds' | 'rampSeconds' | 'levels' | 'testPressure'>>) {
+function* pressureProfile(
+  o: Required<Pick<SyntheticLogOptions, 'rateHz' | 'holdSeconds' | 'rampSeconds' | 'levels' | 'testPressure'>>,
+) {
   const dt = 1 / o.rateHz;
   let t = 0;
   for (let i = 0; i < o.levels.length; i++) {
@@ -43,7 +56,10 @@ export function writeHydrotestCsv(opts: SyntheticLogOptions, onLine: (line: stri
   const o = { rateHz: 2, holdSeconds: 30, rampSeconds: 10, levels: [0, 0.25, 0.5, 0.75, 1, 0.5, 0], ...opts };
   const per = lameOuterStrainPerMPa(o);
   let seed = 12345;
-  const noise = () => { seed = (seed * 1103515245 + 12345) & 0x7fffffff; return (seed / 0x7fffffff - 0.5) * 1.0; };
+  const noise = () => {
+    seed = (seed * 1103515245 + 12345) & 0x7fffffff;
+    return (seed / 0x7fffffff - 0.5) * 1.0;
+  };
   onLine(['time_s', 'P [MPa]', ...o.channels.map((c) => c.name)].join(','));
   let n = 0;
   for (const [t, p] of pressureProfile(o)) {

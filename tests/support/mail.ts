@@ -3,17 +3,23 @@ import { readdirSync, readFileSync, existsSync } from 'node:fs';
 import path from 'node:path';
 import { simpleParser } from 'mailparser';
 
-export interface Mail { to: string; subject: string; text: string }
+export interface Mail {
+  to: string;
+  subject: string;
+  text: string;
+}
 
 /** Every .eml in a folder, parsed. */
 export async function readMails(dir: string): Promise<Mail[]> {
   if (!existsSync(dir)) return [];
   const files = readdirSync(dir).filter((f) => f.endsWith('.eml'));
-  return Promise.all(files.map(async (f) => {
-    const m = await simpleParser(readFileSync(path.join(dir, f)));
-    const to = Array.isArray(m.to) ? m.to.map((a) => a.text).join(', ') : m.to?.text ?? '';
-    return { to, subject: m.subject ?? '', text: m.text ?? '' };
-  }));
+  return Promise.all(
+    files.map(async (f) => {
+      const m = await simpleParser(readFileSync(path.join(dir, f)));
+      const to = Array.isArray(m.to) ? m.to.map((a) => a.text).join(', ') : (m.to?.text ?? '');
+      return { to, subject: m.subject ?? '', text: m.text ?? '' };
+    }),
+  );
 }
 
 /** Wait until a message matching `pred` lands (mail is sent after the request answers). */
@@ -23,7 +29,10 @@ export async function waitForMail(dir: string, pred: (m: Mail) => boolean, timeo
     const all = await readMails(dir);
     const hit = all.find(pred);
     if (hit) return hit;
-    if (Date.now() > deadline) throw new Error(`no matching e-mail arrived; the fake has: ${all.map((m) => `${m.subject} → ${m.to}`).join(' | ')}`);
+    if (Date.now() > deadline)
+      throw new Error(
+        `no matching e-mail arrived; the fake has: ${all.map((m) => `${m.subject} → ${m.to}`).join(' | ')}`,
+      );
     await new Promise((r) => setTimeout(r, 100));
   }
 }

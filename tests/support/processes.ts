@@ -4,7 +4,14 @@ import { randomBytes } from 'node:crypto';
 export const TEST_PASSWORD = 'test-password-only';
 
 /** The environment an app server or worker needs to reach the test services. */
-export function serverEnv(o: { dbUrl: string; s3Endpoint: string; bucket: string; smtpPort: number; mailDir: string; baseUrl: string }): Record<string, string> {
+export function serverEnv(o: {
+  dbUrl: string;
+  s3Endpoint: string;
+  bucket: string;
+  smtpPort: number;
+  mailDir: string;
+  baseUrl: string;
+}): Record<string, string> {
   return {
     DATABASE_URL: o.dbUrl,
     S3_ENDPOINT: o.s3Endpoint,

@@ -6,7 +6,13 @@ import PlanSection from './PlanSection';
 import { cleanFloat, setIn } from './plan-draft';
 import { usePlanEditor } from './plan-editor-context';
 
-export interface MaterialRow { id: number; name: string; elasticModulusMPa: number; poissonRatio: number; yieldStrengthMPa: number }
+export interface MaterialRow {
+  id: number;
+  name: string;
+  elasticModulusMPa: number;
+  poissonRatio: number;
+  yieldStrengthMPa: number;
+}
 
 /** Elastic constants and yield: typed, or filled in from a stored material (converted to the plan's units). */
 export default function MaterialSection() {
@@ -17,33 +23,73 @@ export default function MaterialSection() {
   const [loadError, setLoadError] = useState<string | null>(null);
   useEffect(() => {
     if (readOnly) return;
-    api<{ items: MaterialRow[] }>('/api/materials?limit=200').then((r) => setMaterials(r.items)).catch((e: Error) => setLoadError(e.message));
+    api<{ items: MaterialRow[] }>('/api/materials?limit=200')
+      .then((r) => setMaterials(r.items))
+      .catch((e: Error) => setLoadError(e.message));
   }, [readOnly]);
 
   function fill(id: string) {
     const m = materials.find((x) => String(x.id) === id);
     if (!m) return;
     const s = (mpa: number) => (units === 'US' ? cleanFloat(mpaToPsi(mpa)) : mpa);
-    update((p) => setIn(p, ['material'], { ...((p.material as object) ?? {}), name: m.name, elasticModulus: s(m.elasticModulusMPa), poissonRatio: m.poissonRatio, yieldStrength: s(m.yieldStrengthMPa) }));
+    update((p) =>
+      setIn(p, ['material'], {
+        ...((p.material as object) ?? {}),
+        name: m.name,
+        elasticModulus: s(m.elasticModulusMPa),
+        poissonRatio: m.poissonRatio,
+        yieldStrength: s(m.yieldStrengthMPa),
+      }),
+    );
   }
 
   return (
-    <PlanSection id="plan-material" title="Material" intro="Values at the test temperature. Code tables vary by edition and temperature; confirm them.">
+    <PlanSection
+      id="plan-material"
+      title="Material"
+      intro="Values at the test temperature. Code tables vary by edition and temperature; confirm them."
+    >
       {!readOnly && (
         <div className="mb-4">
-          <label htmlFor={pickId} className="label">Fill in from a stored material</label>
-          <select id={pickId} className="field" value="" onChange={(e) => fill(e.target.value)} aria-describedby={loadError ? `${pickId}-err` : undefined}>
+          <label htmlFor={pickId} className="label">
+            Fill in from a stored material
+          </label>
+          <select
+            id={pickId}
+            className="field"
+            value=""
+            onChange={(e) => fill(e.target.value)}
+            aria-describedby={loadError ? `${pickId}-err` : undefined}
+          >
             <option value="">{materials.length ? '— choose a material —' : 'No stored materials'}</option>
-            {materials.map((m) => <option key={m.id} value={m.id}>{m.name} (E {m.elasticModulusMPa} MPa)</option>)}
+            {materials.map((m) => (
+              <option key={m.id} value={m.id}>
+                {m.name} (E {m.elasticModulusMPa} MPa)
+              </option>
+            ))}
           </select>
-          {loadError && <p id={`${pickId}-err`} className="error-text">Stored materials could not be loaded: {loadError}</p>}
+          {loadError && (
+            <p id={`${pickId}-err`} className="error-text">
+              Stored materials could not be loaded: {loadError}
+            </p>
+          )}
         </div>
       )}
       <div className="grid gap-4 sm:grid-cols-2">
         <PlanTextField path={['material', 'name']} label="Name" optional className="sm:col-span-2" />
-        <PlanNumberField path={['material', 'elasticModulus']} label="Elastic modulus E" unit={stress} hint={units === 'US' ? 'In psi: 29.5 Msi = 29500000' : 'In MPa: 203 GPa = 203000'} />
+        <PlanNumberField
+          path={['material', 'elasticModulus']}
+          label="Elastic modulus E"
+          unit={stress}
+          hint={units === 'US' ? 'In psi: 29.5 Msi = 29500000' : 'In MPa: 203 GPa = 203000'}
+        />
         <PlanNumberField path={['material', 'poissonRatio']} label="Poisson's ratio ν" hint="Steel about 0.30" />
-        <PlanNumberField path={['material', 'yieldStrength']} label="Yield strength" unit={stress} hint="Minimum specified, for the fraction of yield." />
+        <PlanNumberField
+          path={['material', 'yieldStrength']}
+          label="Yield strength"
+          unit={stress}
+          hint="Minimum specified, for the fraction of yield."
+        />
       </div>
     </PlanSection>
   );

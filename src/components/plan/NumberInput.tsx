@@ -8,7 +8,8 @@ interface Props extends Omit<InputHTMLAttributes<HTMLInputElement>, 'value' | 'o
   onValue: (value: NumberValue) => void;
 }
 
-const same = (a: unknown, b: unknown) => a === b || (typeof a === 'number' && typeof b === 'number' && Number.isNaN(a) && Number.isNaN(b));
+const same = (a: unknown, b: unknown) =>
+  a === b || (typeof a === 'number' && typeof b === 'number' && Number.isNaN(a) && Number.isNaN(b));
 
 /**
  * A text input for a number that keeps the exact value it was given (a unit conversion's
@@ -29,7 +30,7 @@ export default function NumberInput({ id, value, onValue, className, ...rest }: 
       inputMode="decimal"
       autoComplete="off"
       spellCheck={false}
-      className={`field num ${className ?? ''}`}
+      className={`num field ${className ?? ''}`}
       value={text}
       title={exact ? `exact value ${exact}` : undefined}
       onChange={(e) => {

@@ -28,12 +28,35 @@ export interface PlanEditorProps {
 }
 
 /** The whole test plan of DESIGN 4.1: form, validation beside each field, import/export and a live prediction. */
-export default function PlanEditor({ mode, testId, initialPlan, initialName, readOnlyReason = null, afterCreateHref = '/tests/{id}/plan' }: PlanEditorProps) {
+export default function PlanEditor({
+  mode,
+  testId,
+  initialPlan,
+  initialName,
+  readOnlyReason = null,
+  afterCreateHref = '/tests/{id}/plan',
+}: PlanEditorProps) {
   const readOnly = readOnlyReason !== null;
-  const s = usePlanEditorState({ mode, testId, initialPlan: initialPlan ?? createBlankPlan(), initialName, readOnly, afterCreateHref });
+  const s = usePlanEditorState({
+    mode,
+    testId,
+    initialPlan: initialPlan ?? createBlankPlan(),
+    initialName,
+    readOnly,
+    afterCreateHref,
+  });
   const summaryRef = useRef<HTMLDivElement>(null);
   const ctx = useMemo<PlanEditorContextValue>(
-    () => ({ plan: s.plan, units: s.units, readOnly, preview: s.preview, setField: s.setField, update: s.update, errorsFor: s.errorsFor, touch: s.touch }),
+    () => ({
+      plan: s.plan,
+      units: s.units,
+      readOnly,
+      preview: s.preview,
+      setField: s.setField,
+      update: s.update,
+      errorsFor: s.errorsFor,
+      touch: s.touch,
+    }),
     [s.plan, s.units, readOnly, s.preview, s.setField, s.update, s.errorsFor, s.touch],
   );
   async function save() {
@@ -45,19 +68,46 @@ export default function PlanEditor({ mode, testId, initialPlan, initialName, rea
     <PlanEditorContext.Provider value={ctx}>
       <div className="space-y-5">
         {readOnly && (
-          <p role="note" className="rounded-md border border-ink-800/20 bg-ink-50 px-4 py-3 text-sm"><strong>Read only.</strong> {readOnlyReason} Export is still available.</p>
+          <p role="note" className="rounded-md border border-ink-800/20 bg-ink-50 px-4 py-3 text-sm">
+            <strong>Read only.</strong> {readOnlyReason} Export is still available.
+          </p>
         )}
         {mode === 'create' && (
           <div className="card py-4!">
-            <label htmlFor="test-name" className="label">Test name</label>
-            <input id="test-name" className={`field max-w-xl ${s.nameError ? 'border-flag!' : ''}`} value={s.name} maxLength={200} onChange={(e) => s.changeName(e.target.value)}
-              placeholder="e.g. AR-102 hydrotest at 1.95 MPa" aria-invalid={!!s.nameError || undefined} aria-describedby={s.nameError ? 'test-name-error' : undefined} />
-            {s.nameError && <p id="test-name-error" className="error-text">{s.nameError}</p>}
+            <label htmlFor="test-name" className="label">
+              Test name
+            </label>
+            <input
+              id="test-name"
+              className={`field max-w-xl ${s.nameError ? 'border-flag!' : ''}`}
+              value={s.name}
+              maxLength={200}
+              onChange={(e) => s.changeName(e.target.value)}
+              placeholder="e.g. AR-102 hydrotest at 1.95 MPa"
+              aria-invalid={!!s.nameError || undefined}
+              aria-describedby={s.nameError ? 'test-name-error' : undefined}
+            />
+            {s.nameError && (
+              <p id="test-name-error" className="error-text">
+                {s.nameError}
+              </p>
+            )}
           </div>
         )}
         <div className="sticky top-0 z-20 -mx-1 bg-paper/95 px-1 py-1 backdrop-blur-sm">
-          <PlanToolbar units={s.units} readOnly={readOnly} canSave={!readOnly} saving={s.saving} dirty={s.dirty} status={s.status}
-            saveLabel={mode === 'create' ? 'Create test' : 'Save plan'} onUnits={s.switchUnits} onImport={(f) => void s.importFile(f)} onExport={s.exportFile} onSave={() => void save()} />
+          <PlanToolbar
+            units={s.units}
+            readOnly={readOnly}
+            canSave={!readOnly}
+            saving={s.saving}
+            dirty={s.dirty}
+            status={s.status}
+            saveLabel={mode === 'create' ? 'Create test' : 'Save plan'}
+            onUnits={s.switchUnits}
+            onImport={(f) => void s.importFile(f)}
+            onExport={s.exportFile}
+            onSave={() => void save()}
+          />
         </div>
         {s.showSummary && <PlanIssueSummary ref={summaryRef} issues={s.placed} nameError={s.nameError} />}
         <SafetyCaution />
@@ -72,15 +122,22 @@ export default function PlanEditor({ mode, testId, initialPlan, initialName, rea
             <ToleranceSection />
           </div>
           <aside aria-labelledby="plan-preview-h" className="card xl:sticky xl:top-20">
-            <h2 id="plan-preview-h" className="text-lg font-semibold text-ink-900">Live prediction</h2>
+            <h2 id="plan-preview-h" className="text-lg font-semibold text-ink-900">
+              Live prediction
+            </h2>
             <p className="mb-3 text-xs text-ink-700">Linear elastic, outer surface, updating as you type.</p>
             <ShellPreviewTable />
           </aside>
         </div>
         <PlanGaugeTable />
         <section aria-labelledby="plan-grid-preview-h" className="card">
-          <h2 id="plan-grid-preview-h" className="mb-1 text-lg font-semibold text-ink-900">Predicted strain per unit pressure, per gauge</h2>
-          <p className="mb-3 text-sm text-ink-700">ε(θ) = εa cos²θ + εh sin²θ for each gauge and rosette grid; the measured slopes are compared with the model marked ✓.</p>
+          <h2 id="plan-grid-preview-h" className="mb-1 text-lg font-semibold text-ink-900">
+            Predicted strain per unit pressure, per gauge
+          </h2>
+          <p className="mb-3 text-sm text-ink-700">
+            ε(θ) = εa cos²θ + εh sin²θ for each gauge and rosette grid; the measured slopes are compared with the model
+            marked ✓.
+          </p>
           <GaugePreviewTable />
         </section>
       </div>

@@ -19,48 +19,108 @@ interface BaseProps {
 /** The problems of one field, announced with the input. */
 export function FieldErrors({ id, errors }: { id: string; errors: string[] }) {
   if (errors.length === 0) return null;
-  return <p id={id} className="error-text text-xs!">{errors.join('; ')}</p>;
+  return (
+    <p id={id} className="error-text text-xs!">
+      {errors.join('; ')}
+    </p>
+  );
 }
 
 function describedBy(errorId: string, invalid: boolean, hintId?: string) {
   return [invalid ? errorId : null, hintId ?? null].filter(Boolean).join(' ') || undefined;
 }
 
-function FieldLabel({ id, label, unit, hideLabel }: { id: string; label: ReactNode; unit?: string; hideLabel?: boolean }) {
+function FieldLabel({
+  id,
+  label,
+  unit,
+  hideLabel,
+}: {
+  id: string;
+  label: ReactNode;
+  unit?: string;
+  hideLabel?: boolean;
+}) {
   return (
     <label htmlFor={id} className={hideLabel ? 'sr-only' : 'label'}>
-      {label}{unit && <span className="font-normal text-ink-700"> ({unit})</span>}
+      {label}
+      {unit && <span className="font-normal text-ink-700"> ({unit})</span>}
     </label>
   );
 }
 
 /** A number at a plan path; empty removes the key (optional fields fall back to their default). */
-export function PlanNumberField({ path, label, unit, hint, hideLabel, className, inputClassName, placeholder }: BaseProps & { placeholder?: string }) {
+export function PlanNumberField({
+  path,
+  label,
+  unit,
+  hint,
+  hideLabel,
+  className,
+  inputClassName,
+  placeholder,
+}: BaseProps & { placeholder?: string }) {
   const f = usePlanField(path);
   const hintId = hint ? `${f.id}-hint` : undefined;
   return (
     <div className={className}>
       <FieldLabel id={f.id} label={label} unit={unit} hideLabel={hideLabel} />
-      <NumberInput id={f.id} value={f.value} onValue={f.set} onBlur={f.touch} disabled={f.readOnly} placeholder={placeholder}
-        aria-invalid={f.invalid || undefined} aria-describedby={describedBy(f.errorId, f.invalid, hintId)}
-        className={`${f.invalid ? 'border-flag!' : ''} ${inputClassName ?? ''}`} />
-      {hint && <p id={hintId} className="mt-1 text-xs text-ink-700">{hint}</p>}
+      <NumberInput
+        id={f.id}
+        value={f.value}
+        onValue={f.set}
+        onBlur={f.touch}
+        disabled={f.readOnly}
+        placeholder={placeholder}
+        aria-invalid={f.invalid || undefined}
+        aria-describedby={describedBy(f.errorId, f.invalid, hintId)}
+        className={`${f.invalid ? 'border-flag!' : ''} ${inputClassName ?? ''}`}
+      />
+      {hint && (
+        <p id={hintId} className="mt-1 text-xs text-ink-700">
+          {hint}
+        </p>
+      )}
       <FieldErrors id={f.errorId} errors={f.errors} />
     </div>
   );
 }
 
 /** Text at a plan path; with `optional`, empty text removes the key. */
-export function PlanTextField({ path, label, hint, hideLabel, className, inputClassName, optional = false, placeholder }: BaseProps & { optional?: boolean; placeholder?: string }) {
+export function PlanTextField({
+  path,
+  label,
+  hint,
+  hideLabel,
+  className,
+  inputClassName,
+  optional = false,
+  placeholder,
+}: BaseProps & { optional?: boolean; placeholder?: string }) {
   const f = usePlanField(path);
   const hintId = hint ? `${f.id}-hint` : undefined;
   return (
     <div className={className}>
       <FieldLabel id={f.id} label={label} hideLabel={hideLabel} />
-      <input id={f.id} type="text" className={`field ${f.invalid ? 'border-flag!' : ''} ${inputClassName ?? ''}`} value={typeof f.value === 'string' ? f.value : f.value === undefined ? '' : String(f.value)}
-        onChange={(e) => f.set(optional && e.target.value === '' ? undefined : e.target.value)} onBlur={f.touch} disabled={f.readOnly} placeholder={placeholder}
-        aria-invalid={f.invalid || undefined} aria-describedby={describedBy(f.errorId, f.invalid, hintId)} autoComplete="off" spellCheck={false} />
-      {hint && <p id={hintId} className="mt-1 text-xs text-ink-700">{hint}</p>}
+      <input
+        id={f.id}
+        type="text"
+        className={`field ${f.invalid ? 'border-flag!' : ''} ${inputClassName ?? ''}`}
+        value={typeof f.value === 'string' ? f.value : f.value === undefined ? '' : String(f.value)}
+        onChange={(e) => f.set(optional && e.target.value === '' ? undefined : e.target.value)}
+        onBlur={f.touch}
+        disabled={f.readOnly}
+        placeholder={placeholder}
+        aria-invalid={f.invalid || undefined}
+        aria-describedby={describedBy(f.errorId, f.invalid, hintId)}
+        autoComplete="off"
+        spellCheck={false}
+      />
+      {hint && (
+        <p id={hintId} className="mt-1 text-xs text-ink-700">
+          {hint}
+        </p>
+      )}
       <FieldErrors id={f.errorId} errors={f.errors} />
     </div>
   );
@@ -68,7 +128,21 @@ export function PlanTextField({ path, label, hint, hideLabel, className, inputCl
 
 /** A choice at a plan path. `onPick` replaces the plain set (e.g. a gauge kind resizes its channels). */
 /** `defaultValue` is what the schema assumes when the key is absent (shown selected, not written). */
-export function PlanSelectField({ path, label, hint, hideLabel, className, inputClassName, options, onPick, defaultValue }: BaseProps & { options: { value: string; label: string }[]; onPick?: (value: string) => void; defaultValue?: string }) {
+export function PlanSelectField({
+  path,
+  label,
+  hint,
+  hideLabel,
+  className,
+  inputClassName,
+  options,
+  onPick,
+  defaultValue,
+}: BaseProps & {
+  options: { value: string; label: string }[];
+  onPick?: (value: string) => void;
+  defaultValue?: string;
+}) {
   const f = usePlanField(path);
   const hintId = hint ? `${f.id}-hint` : undefined;
   const value = typeof f.value === 'string' ? f.value : f.value === undefined && defaultValue ? defaultValue : '';
@@ -76,13 +150,28 @@ export function PlanSelectField({ path, label, hint, hideLabel, className, input
   return (
     <div className={className}>
       <FieldLabel id={f.id} label={label} hideLabel={hideLabel} />
-      <select id={f.id} className={`field ${f.invalid ? 'border-flag!' : ''} ${inputClassName ?? ''}`} value={value} disabled={f.readOnly}
-        onChange={(e) => (onPick ? onPick(e.target.value) : f.set(e.target.value))} onBlur={f.touch}
-        aria-invalid={f.invalid || undefined} aria-describedby={describedBy(f.errorId, f.invalid, hintId)}>
+      <select
+        id={f.id}
+        className={`field ${f.invalid ? 'border-flag!' : ''} ${inputClassName ?? ''}`}
+        value={value}
+        disabled={f.readOnly}
+        onChange={(e) => (onPick ? onPick(e.target.value) : f.set(e.target.value))}
+        onBlur={f.touch}
+        aria-invalid={f.invalid || undefined}
+        aria-describedby={describedBy(f.errorId, f.invalid, hintId)}
+      >
         {!known && <option value={value}>{value === '' ? '— choose —' : `${value} (not valid)`}</option>}
-        {options.map((o) => <option key={o.value} value={o.value}>{o.label}</option>)}
+        {options.map((o) => (
+          <option key={o.value} value={o.value}>
+            {o.label}
+          </option>
+        ))}
       </select>
-      {hint && <p id={hintId} className="mt-1 text-xs text-ink-700">{hint}</p>}
+      {hint && (
+        <p id={hintId} className="mt-1 text-xs text-ink-700">
+          {hint}
+        </p>
+      )}
       <FieldErrors id={f.errorId} errors={f.errors} />
     </div>
   );
@@ -93,5 +182,9 @@ export function SectionErrors({ id }: { id: string }) {
   const { errorsFor } = usePlanEditor();
   const errors = errorsFor(id);
   if (errors.length === 0) return null;
-  return <p role="alert" className="error-text">{errors.join('; ')}</p>;
+  return (
+    <p role="alert" className="error-text">
+      {errors.join('; ')}
+    </p>
+  );
 }

@@ -1,7 +1,10 @@
 import { forwardRef } from 'react';
 import type { PlacedIssue } from './plan-fields';
 
-interface Props { issues: PlacedIssue[]; nameError: string | null }
+interface Props {
+  issues: PlacedIssue[];
+  nameError: string | null;
+}
 
 function focusField(e: React.MouseEvent<HTMLAnchorElement>, id: string) {
   const el = document.getElementById(id);
@@ -16,13 +19,34 @@ const PlanIssueSummary = forwardRef<HTMLDivElement, Props>(function PlanIssueSum
   const count = issues.length + (nameError ? 1 : 0);
   if (count === 0) return null;
   return (
-    <div ref={ref} tabIndex={-1} role="alert" aria-labelledby="plan-issues-h" className="rounded-md border-2 border-flag bg-white p-4">
-      <h2 id="plan-issues-h" className="font-semibold text-flag">{count} problem{count > 1 ? 's' : ''} to fix before this plan can be saved</h2>
+    <div
+      ref={ref}
+      tabIndex={-1}
+      role="alert"
+      aria-labelledby="plan-issues-h"
+      className="rounded-md border-2 border-flag bg-white p-4"
+    >
+      <h2 id="plan-issues-h" className="font-semibold text-flag">
+        {count} problem{count > 1 ? 's' : ''} to fix before this plan can be saved
+      </h2>
       <ul className="mt-2 list-disc space-y-0.5 pl-5 text-sm">
-        {nameError && <li><a href="#test-name" className="font-medium underline" onClick={(e) => focusField(e, 'test-name')}>Test name</a>: {nameError}</li>}
+        {nameError && (
+          <li>
+            <a href="#test-name" className="font-medium underline" onClick={(e) => focusField(e, 'test-name')}>
+              Test name
+            </a>
+            : {nameError}
+          </li>
+        )}
         {issues.map((i, k) => (
           <li key={k}>
-            {i.fieldId ? <a href={`#${i.fieldId}`} className="font-medium underline" onClick={(e) => focusField(e, i.fieldId!)}>{i.label}</a> : <span className="font-medium">{i.label}</span>}
+            {i.fieldId ? (
+              <a href={`#${i.fieldId}`} className="font-medium underline" onClick={(e) => focusField(e, i.fieldId!)}>
+                {i.label}
+              </a>
+            ) : (
+              <span className="font-medium">{i.label}</span>
+            )}
             : {i.message} <span className="font-mono text-xs text-ink-700">({i.path})</span>
           </li>
         ))}

@@ -9,7 +9,13 @@ type Key = keyof Omit<ModelPrediction, 'model'>;
 export default function ShellPreviewTable() {
   const { preview, units } = usePlanEditor();
   const u = getUnitLabels(units);
-  if (!preview) return <p className="text-sm text-ink-700">Enter the vessel's diameter, wall thickness and (for a cylinder) length, the material and the test pressure to see the prediction.</p>;
+  if (!preview)
+    return (
+      <p className="text-sm text-ink-700">
+        Enter the vessel's diameter, wall thickness and (for a cylinder) length, the material and the test pressure to
+        see the prediction.
+      </p>
+    );
   const { lame, membrane } = preview.predicted;
   const lenDigits = units === 'US' ? 5 : 3;
   const rows: { key: Key; label: string; unit: string; show: (v: number) => string }[] = [
@@ -29,15 +35,38 @@ export default function ShellPreviewTable() {
       <table className="table-base text-xs!">
         <caption className="sr-only">Predicted shell response, both models</caption>
         <thead>
-          <tr><th scope="col">Quantity</th><th scope="col" className="text-right!">Lamé{preview.model === 'lame' && ' ✓'}</th><th scope="col" className="text-right!">Membrane{preview.model === 'membrane' && ' ✓'}</th><th scope="col" className="text-right!">Membrane vs Lamé</th></tr>
+          <tr>
+            <th scope="col">Quantity</th>
+            <th scope="col" className="text-right!">
+              Lamé{preview.model === 'lame' && ' ✓'}
+            </th>
+            <th scope="col" className="text-right!">
+              Membrane{preview.model === 'membrane' && ' ✓'}
+            </th>
+            <th scope="col" className="text-right!">
+              Membrane vs Lamé
+            </th>
+          </tr>
         </thead>
         <tbody>
-          <tr><th scope="rowgroup" colSpan={4} className="bg-white! text-ink-700">Per unit pressure (outer surface)</th></tr>
+          <tr>
+            <th scope="rowgroup" colSpan={4} className="bg-white! text-ink-700">
+              Per unit pressure (outer surface)
+            </th>
+          </tr>
           {rows.map((r, k) => (
             <Fragment key={r.key}>
-              {k === 3 && <tr><th scope="rowgroup" colSpan={4} className="bg-white! text-ink-700">At test pressure {formatSignificant(preview.testPressure, 4)} {u.pressure}</th></tr>}
+              {k === 3 && (
+                <tr>
+                  <th scope="rowgroup" colSpan={4} className="bg-white! text-ink-700">
+                    At test pressure {formatSignificant(preview.testPressure, 4)} {u.pressure}
+                  </th>
+                </tr>
+              )}
               <tr>
-                <th scope="row" className="bg-transparent! font-normal!">{r.label} <span className="text-ink-700">({r.unit})</span></th>
+                <th scope="row" className="bg-transparent! font-normal!">
+                  {r.label} <span className="text-ink-700">({r.unit})</span>
+                </th>
                 <td className="num text-right">{r.show(lame[r.key])}</td>
                 <td className="num text-right">{r.show(membrane[r.key])}</td>
                 <td className="num text-right text-ink-700">{diff(lame[r.key], membrane[r.key])}</td>
@@ -46,7 +75,11 @@ export default function ShellPreviewTable() {
           ))}
         </tbody>
       </table>
-      <p className="text-xs text-ink-700">✓ the model the comparison uses. At the outer surface the membrane formula predicts {formatPercent(preview.predicted.membraneOverLame, 1, true)} on hoop strain; against a ±band that difference matters.</p>
+      <p className="text-xs text-ink-700">
+        ✓ the model the comparison uses. At the outer surface the membrane formula predicts{' '}
+        {formatPercent(preview.predicted.membraneOverLame, 1, true)} on hoop strain; against a ±band that difference
+        matters.
+      </p>
     </div>
   );
 }

@@ -23,19 +23,52 @@ export default function TestConditionsSection() {
     <div className="grid gap-5 2xl:grid-cols-2">
       <PlanSection id="plan-conditions" title="Model, test pressure and log columns">
         <div className="grid gap-4">
-          <PlanSelectField path={['model']} label="Prediction model used for the comparison" options={MODELS} defaultValue="lame"
-            hint="Both are always shown below. The membrane formula over-predicts at the outer surface by about (mean radius / inside radius)²." />
-          <PlanNumberField path={['testPressure']} label="Test pressure" unit={pressure}
-            hint={ruleStillUsed ? <>From <strong>{ruleLabel}</strong>. The governing code edition and the jurisdiction decide; confirm it.</> : 'The pressure of the highest hold, from the test procedure.'} />
+          <PlanSelectField
+            path={['model']}
+            label="Prediction model used for the comparison"
+            options={MODELS}
+            defaultValue="lame"
+            hint="Both are always shown below. The membrane formula over-predicts at the outer surface by about (mean radius / inside radius)²."
+          />
+          <PlanNumberField
+            path={['testPressure']}
+            label="Test pressure"
+            unit={pressure}
+            hint={
+              ruleStillUsed ? (
+                <>
+                  From <strong>{ruleLabel}</strong>. The governing code edition and the jurisdiction decide; confirm it.
+                </>
+              ) : (
+                'The pressure of the highest hold, from the test procedure.'
+              )
+            }
+          />
           <div className="grid gap-4 sm:grid-cols-2">
-            <PlanTextField path={['columns', 'pressure']} label="Pressure column in the log" hint="Header text exactly; a unit in brackets such as [bar] is converted." />
-            <PlanTextField path={['columns', 'time']} label="Time column (optional)" optional hint="Seconds or ISO 8601 timestamps." />
+            <PlanTextField
+              path={['columns', 'pressure']}
+              label="Pressure column in the log"
+              hint="Header text exactly; a unit in brackets such as [bar] is converted."
+            />
+            <PlanTextField
+              path={['columns', 'time']}
+              label="Time column (optional)"
+              optional
+              hint="Seconds or ISO 8601 timestamps."
+            />
           </div>
         </div>
       </PlanSection>
       {!readOnly && (
-        <TestPressureHelper key={units} pressureUnit={pressure}
-          onPick={(value, id) => { const v = cleanFloat(value); setRule({ id, value: v }); setField(['testPressure'], v); }} />
+        <TestPressureHelper
+          key={units}
+          pressureUnit={pressure}
+          onPick={(value, id) => {
+            const v = cleanFloat(value);
+            setRule({ id, value: v });
+            setField(['testPressure'], v);
+          }}
+        />
       )}
     </div>
   );

@@ -10,7 +10,13 @@ const FIELDS: { key: Key; label: string; unit?: string; flag: string; percent?: 
   { key: 'minRSquared', label: 'Minimum loading R²', flag: 'nonlinear' },
   { key: 'hysteresis', label: 'Hysteresis limit', unit: 'fraction of peak', flag: 'hysteresis', percent: true },
   { key: 'zeroShiftMicrostrain', label: 'Zero shift, absolute', unit: 'µε', flag: 'zero-shift' },
-  { key: 'zeroShiftFraction', label: 'Zero shift, relative', unit: 'fraction of peak', flag: 'zero-shift', percent: true },
+  {
+    key: 'zeroShiftFraction',
+    label: 'Zero shift, relative',
+    unit: 'fraction of peak',
+    flag: 'zero-shift',
+    percent: true,
+  },
   { key: 'noResponseMicrostrain', label: 'No-response floor', unit: 'µε', flag: 'no-response' },
   { key: 'yieldFraction', label: 'Near-yield limit', unit: 'fraction of yield', flag: 'near-yield', percent: true },
 ];
@@ -19,15 +25,31 @@ const FIELDS: { key: Key; label: string; unit?: string; flag: string; percent?: 
 export default function ToleranceSection() {
   const { plan } = usePlanEditor();
   return (
-    <PlanSection id="plan-tolerances" title="Tolerances" intro="Leave a field empty to use its default. Zero shift is flagged when it exceeds the larger of the absolute and relative limits.">
+    <PlanSection
+      id="plan-tolerances"
+      title="Tolerances"
+      intro="Leave a field empty to use its default. Zero shift is flagged when it exceeds the larger of the absolute and relative limits."
+    >
       <div className="grid gap-4 sm:grid-cols-2 xl:grid-cols-3">
         {FIELDS.map((f) => {
           const v = getIn(plan, ['tolerances', f.key]);
           const d = TOLERANCE_DEFAULTS[f.key];
           const now = typeof v === 'number' && f.percent ? ` · now ${formatPercent(v, 1)}` : '';
           return (
-            <PlanNumberField key={f.key} path={['tolerances', f.key]} label={f.label} unit={f.unit} placeholder={String(d)}
-              hint={<>Default {d}{f.percent ? ` (${formatPercent(d, 1)})` : ''}{now} · flag <code className="font-mono">{f.flag}</code></>} />
+            <PlanNumberField
+              key={f.key}
+              path={['tolerances', f.key]}
+              label={f.label}
+              unit={f.unit}
+              placeholder={String(d)}
+              hint={
+                <>
+                  Default {d}
+                  {f.percent ? ` (${formatPercent(d, 1)})` : ''}
+                  {now} · flag <code className="font-mono">{f.flag}</code>
+                </>
+              }
+            />
           );
         })}
       </div>

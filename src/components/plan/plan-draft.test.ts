@@ -19,8 +19,16 @@ const siPlan = (): PlanDraft => ({
   units: 'SI',
   remarks: 'kept as imported',
   vessel: {
-    name: 'AR-9', shape: 'cylinder', ends: 'closed', insideDiameter: 1800, wallThickness: 16, length: 6000,
-    features: [{ kind: 'nozzle', name: 'N1', axialPosition: 2100, clockDeg: 0, size: 150 }, { kind: 'support', axialPosition: 700 }],
+    name: 'AR-9',
+    shape: 'cylinder',
+    ends: 'closed',
+    insideDiameter: 1800,
+    wallThickness: 16,
+    length: 6000,
+    features: [
+      { kind: 'nozzle', name: 'N1', axialPosition: 2100, clockDeg: 0, size: 150 },
+      { kind: 'support', axialPosition: 700 },
+    ],
   },
   material: { name: 'carbon steel, generic', elasticModulus: 200000, poissonRatio: 0.3, yieldStrength: 260 },
   model: 'lame',
@@ -28,8 +36,24 @@ const siPlan = (): PlanDraft => ({
   columns: { time: 'time_s', pressure: 'P [MPa]' },
   tolerances: { slopeBand: 0.1, zeroShiftMicrostrain: 20 },
   gauges: [
-    { id: 'H1', kind: 'uniaxial', channels: ['SG1'], angleDeg: 90, gaugeFactor: 2.1, distanceToDiscontinuity: 1500, label: 'hoop, mid-shell' },
-    { id: 'R1', kind: 'rosette-rectangular', channels: ['SG4', 'SG5', 'SG6'], angleDeg: 0, axialPosition: 3000, clockDeg: 90, transverseSensitivity: 0.01 },
+    {
+      id: 'H1',
+      kind: 'uniaxial',
+      channels: ['SG1'],
+      angleDeg: 90,
+      gaugeFactor: 2.1,
+      distanceToDiscontinuity: 1500,
+      label: 'hoop, mid-shell',
+    },
+    {
+      id: 'R1',
+      kind: 'rosette-rectangular',
+      channels: ['SG4', 'SG5', 'SG6'],
+      angleDeg: 0,
+      axialPosition: 3000,
+      clockDeg: 90,
+      transverseSensitivity: 0.01,
+    },
   ],
 });
 
@@ -69,16 +93,27 @@ describe('convertPlanUnits', () => {
   });
 
   it('US → SI → US gives back the same numbers, exactly', () => {
-    const us: PlanDraft = { ...siPlan(), units: 'US', testPressure: 300, material: { elasticModulus: 29.5e6, poissonRatio: 0.3, yieldStrength: 38000 }, vessel: { shape: 'sphere', insideDiameter: 96, wallThickness: 0.625, features: [] } };
+    const us: PlanDraft = {
+      ...siPlan(),
+      units: 'US',
+      testPressure: 300,
+      material: { elasticModulus: 29.5e6, poissonRatio: 0.3, yieldStrength: 38000 },
+      vessel: { shape: 'sphere', insideDiameter: 96, wallThickness: 0.625, features: [] },
+    };
     expect(convertPlanUnits(convertPlanUnits(us, 'SI'), 'US')).toEqual(us);
   });
 
   it('round-trips any length within 15 significant digits', () => {
-    fc.assert(fc.property(fc.double({ min: 1e-3, max: 1e6, noNaN: true }), (mm) => {
-      const plan = { units: 'SI', vessel: { insideDiameter: mm } };
-      const back = getIn(convertPlanUnits(convertPlanUnits(plan, 'US'), 'SI'), ['vessel', 'insideDiameter']) as number;
-      expect(Math.abs(back - mm) / mm).toBeLessThan(1e-14);
-    }));
+    fc.assert(
+      fc.property(fc.double({ min: 1e-3, max: 1e6, noNaN: true }), (mm) => {
+        const plan = { units: 'SI', vessel: { insideDiameter: mm } };
+        const back = getIn(convertPlanUnits(convertPlanUnits(plan, 'US'), 'SI'), [
+          'vessel',
+          'insideDiameter',
+        ]) as number;
+        expect(Math.abs(back - mm) / mm).toBeLessThan(1e-14);
+      }),
+    );
   });
 
   it('predicts the same physics in either unit system', () => {
@@ -124,15 +159,32 @@ describe('createBlankPlan', () => {
 
 describe('parseNumberText and formatNumberForInput', () => {
   it.each([
-    ['', undefined], ['  ', undefined], ['12', 12], ['-0.5', -0.5], ['1,5', 1.5], ['2e5', 200000], ['.25', 0.25], ['1.', 1],
-    ['abc', 'abc'], ['1.2.3', '1.2.3'], ['-', '-'], ['1,000.5', '1,000.5'],
+    ['', undefined],
+    ['  ', undefined],
+    ['12', 12],
+    ['-0.5', -0.5],
+    ['1,5', 1.5],
+    ['2e5', 200000],
+    ['.25', 0.25],
+    ['1.', 1],
+    ['abc', 'abc'],
+    ['1.2.3', '1.2.3'],
+    ['-', '-'],
+    ['1,000.5', '1,000.5'],
   ])('%j → %j', (text, value) => {
     expect(parseNumberText(text)).toEqual(value);
   });
 
   it.each([
-    [1800, '1800'], [70.86614173228347, '70.8661'], [0.6299212598425197, '0.629921'], [29007547.8, '29007548'], [0, '0'], [-12.5, '-12.5'], [0.995, '0.995'],
-    [undefined, ''], ['3.4x', '3.4x'],
+    [1800, '1800'],
+    [70.86614173228347, '70.8661'],
+    [0.6299212598425197, '0.629921'],
+    [29007547.8, '29007548'],
+    [0, '0'],
+    [-12.5, '-12.5'],
+    [0.995, '0.995'],
+    [undefined, ''],
+    ['3.4x', '3.4x'],
   ])('shows %j as %j', (v, text) => {
     expect(formatNumberForInput(v)).toBe(text);
   });

@@ -56,7 +56,9 @@ export function setIn<T>(obj: T, path: PlanPath, value: unknown): T {
   if (path.length === 0) return value as T;
   const [key, ...rest] = path;
   const src = obj !== null && typeof obj === 'object' ? obj : typeof key === 'number' ? [] : {};
-  const copy: Record<string | number, unknown> = Array.isArray(src) ? [...src] as unknown as Record<number, unknown> : { ...(src as object) };
+  const copy: Record<string | number, unknown> = Array.isArray(src)
+    ? ([...src] as unknown as Record<number, unknown>)
+    : { ...(src as object) };
   const next = setIn((src as Record<string | number, unknown>)[key!], rest, value);
   if (next === undefined && !Array.isArray(copy)) delete copy[key!];
   else copy[key!] = next;
@@ -71,7 +73,12 @@ export function setIn<T>(obj: T, path: PlanPath, value: unknown): T {
 export function cleanFloat(x: number): number {
   if (x === 0 || !Number.isFinite(x)) return x;
   const snapped = Number(x.toPrecision(15));
-  const digits = snapped.toPrecision(15).replace(/e.*$/, '').replace(/[-.]/g, '').replace(/^0+/, '').replace(/0+$/, '').length;
+  const digits = snapped
+    .toPrecision(15)
+    .replace(/e.*$/, '')
+    .replace(/[-.]/g, '')
+    .replace(/^0+/, '')
+    .replace(/0+$/, '').length;
   return digits <= 12 ? snapped : x;
 }
 
@@ -119,17 +126,24 @@ export function convertPlanUnits(plan: PlanDraft, to: PlanUnits): PlanDraft {
   if ((plan.units ?? 'SI') === to) return plan;
   const { length, pressure } = conversions(to);
   let out: PlanDraft = { ...plan, units: to };
-  for (const p of [['vessel', 'insideDiameter'], ['vessel', 'wallThickness'], ['vessel', 'length']]) out = convertAt(out, p, length);
+  for (const p of [
+    ['vessel', 'insideDiameter'],
+    ['vessel', 'wallThickness'],
+    ['vessel', 'length'],
+  ])
+    out = convertAt(out, p, length);
   const features = getIn(out, ['vessel', 'features']);
-  if (Array.isArray(features)) features.forEach((_, i) => {
-    out = convertAt(out, ['vessel', 'features', i, 'axialPosition'], length);
-    out = convertAt(out, ['vessel', 'features', i, 'size'], length);
-  });
+  if (Array.isArray(features))
+    features.forEach((_, i) => {
+      out = convertAt(out, ['vessel', 'features', i, 'axialPosition'], length);
+      out = convertAt(out, ['vessel', 'features', i, 'size'], length);
+    });
   const gauges = out.gauges;
-  if (Array.isArray(gauges)) gauges.forEach((_, i) => {
-    out = convertAt(out, ['gauges', i, 'distanceToDiscontinuity'], length);
-    out = convertAt(out, ['gauges', i, 'axialPosition'], length);
-  });
+  if (Array.isArray(gauges))
+    gauges.forEach((_, i) => {
+      out = convertAt(out, ['gauges', i, 'distanceToDiscontinuity'], length);
+      out = convertAt(out, ['gauges', i, 'axialPosition'], length);
+    });
   out = convertAt(out, ['testPressure'], pressure);
   out = convertAt(out, ['material', 'elasticModulus'], pressure);
   out = convertAt(out, ['material', 'yieldStrength'], pressure);
@@ -138,7 +152,9 @@ export function convertPlanUnits(plan: PlanDraft, to: PlanUnits): PlanDraft {
 
 /** The next free gauge id with a prefix: H1, H2 … */
 export function nextGaugeId(plan: PlanDraft, prefix = 'G'): string {
-  const used = new Set((Array.isArray(plan.gauges) ? plan.gauges : []).map((g) => String((g as { id?: unknown }).id ?? '')));
+  const used = new Set(
+    (Array.isArray(plan.gauges) ? plan.gauges : []).map((g) => String((g as { id?: unknown }).id ?? '')),
+  );
   let n = 1;
   while (used.has(`${prefix}${n}`)) n += 1;
   return `${prefix}${n}`;

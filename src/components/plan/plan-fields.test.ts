@@ -6,7 +6,13 @@ import { fieldIdForPath, labelForPath, listFieldIds, parseIssuePath, placeIssues
 const plan = {
   ...createBlankPlan(),
   testPressure: 2,
-  vessel: { shape: 'cylinder', insideDiameter: 1000, wallThickness: 10, length: 3000, features: [{ kind: 'nozzle', axialPosition: 100 }] },
+  vessel: {
+    shape: 'cylinder',
+    insideDiameter: 1000,
+    wallThickness: 10,
+    length: 3000,
+    features: [{ kind: 'nozzle', axialPosition: 100 }],
+  },
   gauges: [
     { id: 'H1', kind: 'uniaxial', channels: ['CH1'], angleDeg: 90 },
     { id: 'R1', kind: 'rosette-rectangular', channels: ['CH2', 'CH3', 'CH4'], angleDeg: 0 },

@@ -3,7 +3,10 @@
 // that holds it. Pure; used by the editor and its tests.
 import type { PlanDraft, PlanPath } from './plan-draft';
 
-export interface PlanIssue { path: string; message: string }
+export interface PlanIssue {
+  path: string;
+  message: string;
+}
 export interface PlacedIssue extends PlanIssue {
   /** the input or section that shows it; null when only the summary can */
   fieldId: string | null;
@@ -28,10 +31,28 @@ const SECTION_FIELDS: Record<string, string[]> = {
   vessel: ['name', 'shape', 'ends', 'insideDiameter', 'wallThickness', 'length'],
   material: ['name', 'elasticModulus', 'poissonRatio', 'yieldStrength'],
   columns: ['pressure', 'time'],
-  tolerances: ['slopeBand', 'minRSquared', 'hysteresis', 'zeroShiftMicrostrain', 'zeroShiftFraction', 'noResponseMicrostrain', 'yieldFraction'],
+  tolerances: [
+    'slopeBand',
+    'minRSquared',
+    'hysteresis',
+    'zeroShiftMicrostrain',
+    'zeroShiftFraction',
+    'noResponseMicrostrain',
+    'yieldFraction',
+  ],
 };
 const FEATURE_FIELDS = ['kind', 'name', 'axialPosition', 'clockDeg', 'size'];
-const GAUGE_FIELDS = ['id', 'kind', 'angleDeg', 'gaugeFactor', 'instrumentGaugeFactor', 'transverseSensitivity', 'distanceToDiscontinuity', 'axialPosition', 'clockDeg'];
+const GAUGE_FIELDS = [
+  'id',
+  'kind',
+  'angleDeg',
+  'gaugeFactor',
+  'instrumentGaugeFactor',
+  'transverseSensitivity',
+  'distanceToDiscontinuity',
+  'axialPosition',
+  'clockDeg',
+];
 
 const list = (v: unknown): unknown[] => (Array.isArray(v) ? v : []);
 
@@ -43,7 +64,9 @@ export function listFieldIds(plan: PlanDraft): Set<string> {
     for (const f of fields) ids.add(fieldIdForPath([section, f]));
   }
   const vessel = (plan.vessel ?? {}) as Record<string, unknown>;
-  list(vessel.features).forEach((_, i) => FEATURE_FIELDS.forEach((f) => ids.add(fieldIdForPath(['vessel', 'features', i, f]))));
+  list(vessel.features).forEach((_, i) =>
+    FEATURE_FIELDS.forEach((f) => ids.add(fieldIdForPath(['vessel', 'features', i, f]))),
+  );
   list(plan.gauges).forEach((g, i) => {
     GAUGE_FIELDS.forEach((f) => ids.add(fieldIdForPath(['gauges', i, f])));
     const kind = (g as { kind?: unknown } | null)?.kind;
@@ -67,15 +90,45 @@ export function resolveFieldId(path: PlanPath, ids: Set<string>): string | null 
 }
 
 const WORDS: Record<string, string> = {
-  units: 'Units', model: 'Model', testPressure: 'Test pressure', gauges: 'Gauges', vessel: 'Vessel', material: 'Material',
-  columns: 'Log columns', tolerances: 'Tolerances', holdDetection: 'Hold detection', features: 'Features',
-  name: 'name', shape: 'shape', ends: 'ends', insideDiameter: 'inside diameter', wallThickness: 'wall thickness', length: 'length',
-  elasticModulus: 'elastic modulus', poissonRatio: "Poisson's ratio", yieldStrength: 'yield strength',
-  pressure: 'pressure column', time: 'time column',
-  slopeBand: 'slope band', minRSquared: 'minimum R²', hysteresis: 'hysteresis limit', zeroShiftMicrostrain: 'zero shift (µε)',
-  zeroShiftFraction: 'zero shift (fraction of peak)', noResponseMicrostrain: 'no-response floor', yieldFraction: 'near-yield fraction',
-  id: 'id', kind: 'kind', channels: 'channels', angleDeg: 'angle', gaugeFactor: 'gauge factor', instrumentGaugeFactor: 'instrument gauge factor',
-  transverseSensitivity: 'transverse sensitivity', distanceToDiscontinuity: 'distance to discontinuity', axialPosition: 'axial position', clockDeg: 'clock position', size: 'size',
+  units: 'Units',
+  model: 'Model',
+  testPressure: 'Test pressure',
+  gauges: 'Gauges',
+  vessel: 'Vessel',
+  material: 'Material',
+  columns: 'Log columns',
+  tolerances: 'Tolerances',
+  holdDetection: 'Hold detection',
+  features: 'Features',
+  name: 'name',
+  shape: 'shape',
+  ends: 'ends',
+  insideDiameter: 'inside diameter',
+  wallThickness: 'wall thickness',
+  length: 'length',
+  elasticModulus: 'elastic modulus',
+  poissonRatio: "Poisson's ratio",
+  yieldStrength: 'yield strength',
+  pressure: 'pressure column',
+  time: 'time column',
+  slopeBand: 'slope band',
+  minRSquared: 'minimum R²',
+  hysteresis: 'hysteresis limit',
+  zeroShiftMicrostrain: 'zero shift (µε)',
+  zeroShiftFraction: 'zero shift (fraction of peak)',
+  noResponseMicrostrain: 'no-response floor',
+  yieldFraction: 'near-yield fraction',
+  id: 'id',
+  kind: 'kind',
+  channels: 'channels',
+  angleDeg: 'angle',
+  gaugeFactor: 'gauge factor',
+  instrumentGaugeFactor: 'instrument gauge factor',
+  transverseSensitivity: 'transverse sensitivity',
+  distanceToDiscontinuity: 'distance to discontinuity',
+  axialPosition: 'axial position',
+  clockDeg: 'clock position',
+  size: 'size',
 };
 
 /** A path in words for the summary: `gauges[1].channels[2]` → "Gauge 2 (R1) channel C". */
@@ -91,12 +144,15 @@ export function labelForPath(path: PlanPath, plan: PlanDraft): string {
   if (head === 'vessel' && rest[0] === 'features' && typeof rest[1] === 'number') {
     return `Feature ${rest[1] + 1}${rest[2] !== undefined ? ' ' + (WORDS[String(rest[2])] ?? rest[2]) : ''}`;
   }
-  const words = path.map((p) => (typeof p === 'number' ? String(p + 1) : WORDS[p] ?? p));
+  const words = path.map((p) => (typeof p === 'number' ? String(p + 1) : (WORDS[p] ?? p)));
   return words.join(' ').replace(/^./, (c) => c.toUpperCase());
 }
 
 /** Every issue with the field that shows it and a label; and the messages per field id. */
-export function placeIssues(issues: readonly PlanIssue[], plan: PlanDraft): { placed: PlacedIssue[]; byField: Map<string, string[]> } {
+export function placeIssues(
+  issues: readonly PlanIssue[],
+  plan: PlanDraft,
+): { placed: PlacedIssue[]; byField: Map<string, string[]> } {
   const ids = listFieldIds(plan);
   const byField = new Map<string, string[]>();
   const placed = issues.map((i) => {

@@ -15,7 +15,10 @@ export function readPlanText(text: string, fileName = 'the file'): PlanFileRead 
     return { ok: false, message: `${fileName} is not valid JSON (${(e as Error).message}).` };
   }
   if (value === null || typeof value !== 'object' || Array.isArray(value))
-    return { ok: false, message: `${fileName} must hold one JSON object (a test plan), not ${Array.isArray(value) ? 'a list' : typeof value === 'object' ? 'null' : 'a ' + typeof value}.` };
+    return {
+      ok: false,
+      message: `${fileName} must hold one JSON object (a test plan), not ${Array.isArray(value) ? 'a list' : typeof value === 'object' ? 'null' : 'a ' + typeof value}.`,
+    };
   return { ok: true, plan: value as PlanDraft };
 }
 
@@ -26,6 +29,11 @@ export function serializePlan(plan: PlanDraft): string {
 
 /** A safe file name from a test name: "AR-102 hydrotest" → `ar-102-hydrotest-plan.json`. */
 export function planFileName(name: string | undefined | null): string {
-  const slug = (name ?? '').toLowerCase().normalize('NFKD').replace(/[^a-z0-9]+/g, '-').replace(/^-+|-+$/g, '').slice(0, 60);
+  const slug = (name ?? '')
+    .toLowerCase()
+    .normalize('NFKD')
+    .replace(/[^a-z0-9]+/g, '-')
+    .replace(/^-+|-+$/g, '')
+    .slice(0, 60);
   return `${slug || 'test'}-plan.json`;
 }

@@ -49,9 +49,18 @@ describe('buildPlanPreview', () => {
   });
 
   it('lists every grid of a rosette with both models', () => {
-    const plan = setIn(filled(), ['gauges', 2], { id: 'R1', kind: 'rosette-delta', channels: ['C1', 'C2', 'C3'], angleDeg: 0 });
+    const plan = setIn(filled(), ['gauges', 2], {
+      id: 'R1',
+      kind: 'rosette-delta',
+      channels: ['C1', 'C2', 'C3'],
+      angleDeg: 0,
+    });
     const r = buildPlanPreview(plan)!.grids.filter((g) => g.gaugeId === 'R1');
-    expect(r.map((g) => [g.id, g.angleDeg])).toEqual([['R1/A', 0], ['R1/B', 60], ['R1/C', 120]]);
+    expect(r.map((g) => [g.id, g.angleDeg])).toEqual([
+      ['R1/A', 0],
+      ['R1/B', 60],
+      ['R1/C', 120],
+    ]);
     expect(r.every((g) => g.membranePredictedSlope > g.lamePredictedSlope)).toBe(true);
   });
 });

@@ -1,7 +1,13 @@
 // The live preview's numbers: the engine's predictForPlan on the plan being typed. A gauge row
 // with a problem is left out (and named) instead of blanking the whole preview, so the shell
 // prediction keeps updating while the gauge table is half filled in. Pure.
-import { listPlanIssues, parsePlan, predictForPlan, type PlannedGrid, type PredictedBlock } from '../../lib/reduction/browser';
+import {
+  listPlanIssues,
+  parsePlan,
+  predictForPlan,
+  type PlannedGrid,
+  type PredictedBlock,
+} from '../../lib/reduction/browser';
 import { formatFixed } from '../../lib/ui-format';
 import { formatNumberForInput, type PlanDraft } from './plan-draft';
 import { parseIssuePath } from './plan-fields';
@@ -26,7 +32,8 @@ export function buildPlanPreview(plan: PlanDraft): PlanPreview | null {
   for (const i of issues) {
     const path = parseIssuePath(i.path);
     if (path[0] === 'gauges' && typeof path[1] === 'number') badGauges.add(path[1]);
-    else if (path[0] === 'columns' || path[0] === 'tolerances' || path[0] === 'holdDetection') dropSections.add(path[0]);
+    else if (path[0] === 'columns' || path[0] === 'tolerances' || path[0] === 'holdDetection')
+      dropSections.add(path[0]);
     else if (path[0] === 'gauges') dropSections.add('gauges');
   }
   const gauges = Array.isArray(plan.gauges) ? (plan.gauges as unknown[]) : [];
@@ -51,7 +58,9 @@ export function buildPlanPreview(plan: PlanDraft): PlanPreview | null {
   const { predicted, gauges: grids } = predictForPlan(parsed);
   return {
     predicted,
-    grids: grids.filter((g) => g.gaugeId !== PLACEHOLDER_GAUGE.id).map((g) => ({ ...g, distanceTo: g.distanceTo && shortenNumbers(g.distanceTo) })),
+    grids: grids
+      .filter((g) => g.gaugeId !== PLACEHOLDER_GAUGE.id)
+      .map((g) => ({ ...g, distanceTo: g.distanceTo && shortenNumbers(g.distanceTo) })),
     model: parsed.model,
     testPressure: parsed.testPressure,
     omittedGauges,
@@ -64,7 +73,10 @@ export function shortenNumbers(text: string): string {
 }
 
 /** "800 mm to support Saddle W", or "30.00 in (given in the plan)"; null when the distance is unknown. */
-export function describeDistance(g: Pick<PlannedGrid, 'distanceToDiscontinuity' | 'distanceTo'>, units: 'SI' | 'US'): string | null {
+export function describeDistance(
+  g: Pick<PlannedGrid, 'distanceToDiscontinuity' | 'distanceTo'>,
+  units: 'SI' | 'US',
+): string | null {
   if (g.distanceToDiscontinuity === null) return null;
   const d = `${formatFixed(g.distanceToDiscontinuity, units === 'US' ? 2 : 0)} ${units === 'US' ? 'in' : 'mm'}`;
   if (!g.distanceTo || g.distanceTo === 'given in the plan') return `${d} (given in the plan)`;

@@ -22,7 +22,9 @@ export type EditorStatus = { kind: 'ok' | 'error' | 'info'; text: string } | nul
 
 const issuesOf = (err: ApiError): PlanIssue[] => {
   const d = err.details as { issues?: { path?: unknown; message?: unknown }[] } | null;
-  return Array.isArray(d?.issues) ? d.issues.map((i) => ({ path: String(i.path ?? 'plan'), message: String(i.message ?? '') })) : [];
+  return Array.isArray(d?.issues)
+    ? d.issues.map((i) => ({ path: String(i.path ?? 'plan'), message: String(i.message ?? '') }))
+    : [];
 };
 
 export function usePlanEditorState(o: PlanEditorOptions) {
@@ -46,7 +48,9 @@ export function usePlanEditorState(o: PlanEditorOptions) {
 
   useEffect(() => {
     if (!dirty || o.readOnly) return;
-    const warn = (e: BeforeUnloadEvent) => { e.preventDefault(); };
+    const warn = (e: BeforeUnloadEvent) => {
+      e.preventDefault();
+    };
     window.addEventListener('beforeunload', warn);
     return () => window.removeEventListener('beforeunload', warn);
   }, [dirty, o.readOnly]);
@@ -58,29 +62,53 @@ export function usePlanEditorState(o: PlanEditorOptions) {
     setStatus((st) => (st?.kind === 'error' || st?.kind === 'ok' ? null : st));
   }, []);
   const setField = useCallback((path: PlanPath, value: unknown) => edit((p) => setIn(p, path, value)), [edit]);
-  const touch = useCallback((id: string) => setRevealed((r) => (r === 'all' || r.has(id) ? r : new Set(r).add(id))), []);
-  const errorsFor = useCallback((id: string) => (revealed === 'all' || revealed.has(id) ? byField.get(id) ?? [] : []), [revealed, byField]);
+  const touch = useCallback(
+    (id: string) => setRevealed((r) => (r === 'all' || r.has(id) ? r : new Set(r).add(id))),
+    [],
+  );
+  const errorsFor = useCallback(
+    (id: string) => (revealed === 'all' || revealed.has(id) ? (byField.get(id) ?? []) : []),
+    [revealed, byField],
+  );
   const switchUnits = (to: PlanUnits) => edit((p) => convertPlanUnits(p, to));
-  const changeName = (v: string) => { setName(v); setNameError(null); setDirty(true); };
+  const changeName = (v: string) => {
+    setName(v);
+    setNameError(null);
+    setDirty(true);
+  };
 
   async function importFile(file: File) {
     const read = readPlanText(await file.text(), file.name);
-    if (!read.ok) { setStatus({ kind: 'error', text: `Not imported: ${read.message}` }); return; }
+    if (!read.ok) {
+      setStatus({ kind: 'error', text: `Not imported: ${read.message}` });
+      return;
+    }
     edit(() => read.plan);
     setRevealed('all');
     if (o.mode === 'create' && !name.trim() && typeof read.plan.name === 'string') setName(read.plan.name);
     const n = listPlanIssues(read.plan).length;
-    setStatus(n ? { kind: 'error', text: `Imported ${file.name}: ${n} problem${n > 1 ? 's' : ''} to fix, listed above.` } : { kind: 'ok', text: `Imported ${file.name}; the plan is valid.` });
+    setStatus(
+      n
+        ? { kind: 'error', text: `Imported ${file.name}: ${n} problem${n > 1 ? 's' : ''} to fix, listed above.` }
+        : { kind: 'ok', text: `Imported ${file.name}; the plan is valid.` },
+    );
   }
 
   function exportFile() {
     const url = URL.createObjectURL(new Blob([serializePlan(plan)], { type: 'application/json' }));
-    const a = Object.assign(document.createElement('a'), { href: url, download: planFileName(name || (o.testId ? `test-${o.testId}` : 'new-test')) });
+    const a = Object.assign(document.createElement('a'), {
+      href: url,
+      download: planFileName(name || (o.testId ? `test-${o.testId}` : 'new-test')),
+    });
     document.body.append(a);
     a.click();
     a.remove();
     setTimeout(() => URL.revokeObjectURL(url), 1000);
-    if (issues.length) setStatus({ kind: 'info', text: `Exported with ${issues.length} unresolved problem${issues.length > 1 ? 's' : ''}: the file will not load until they are fixed.` });
+    if (issues.length)
+      setStatus({
+        kind: 'info',
+        text: `Exported with ${issues.length} unresolved problem${issues.length > 1 ? 's' : ''}: the file will not load until they are fixed.`,
+      });
   }
 
   async function save(): Promise<boolean> {
@@ -88,7 +116,10 @@ export function usePlanEditorState(o: PlanEditorOptions) {
     const nameProblem = o.mode === 'create' && !name.trim() ? 'Give the test a name.' : null;
     setNameError(nameProblem);
     const count = issues.length + (nameProblem ? 1 : 0);
-    if (count) { setStatus({ kind: 'error', text: `Not saved: ${count} problem${count > 1 ? 's' : ''} to fix, listed above.` }); return false; }
+    if (count) {
+      setStatus({ kind: 'error', text: `Not saved: ${count} problem${count > 1 ? 's' : ''} to fix, listed above.` });
+      return false;
+    }
     setSaving(true);
     setStatus({ kind: 'info', text: 'Saving…' });
     try {
@@ -99,7 +130,10 @@ export function usePlanEditorState(o: PlanEditorOptions) {
       } else {
         await api(`/api/tests/${o.testId}/plan`, { method: 'PUT', jsonBody: plan });
         setDirty(false);
-        setStatus({ kind: 'ok', text: `Saved at ${new Date().toLocaleTimeString('en-GB', { hour: '2-digit', minute: '2-digit' })}. A changed plan needs a new reduction.` });
+        setStatus({
+          kind: 'ok',
+          text: `Saved at ${new Date().toLocaleTimeString('en-GB', { hour: '2-digit', minute: '2-digit' })}. A changed plan needs a new reduction.`,
+        });
       }
       return true;
     } catch (err) {
@@ -107,7 +141,9 @@ export function usePlanEditorState(o: PlanEditorOptions) {
       const found = e instanceof ApiError ? issuesOf(e) : [];
       const nameIssue = found.find((i) => i.path === 'name');
       if (nameIssue) setNameError(nameIssue.message);
-      setServerIssues(found.filter((i) => i.path !== 'name').map((i) => ({ ...i, path: i.path.replace(/^plan\.?/, '') || 'plan' })));
+      setServerIssues(
+        found.filter((i) => i.path !== 'name').map((i) => ({ ...i, path: i.path.replace(/^plan\.?/, '') || 'plan' })),
+      );
       setStatus({ kind: 'error', text: `Not saved: ${e.message}` });
       return false;
     } finally {
@@ -115,5 +151,25 @@ export function usePlanEditorState(o: PlanEditorOptions) {
     }
   }
 
-  return { plan, units, name, nameError, placed, preview, status, saving, dirty, errorsFor, setField, update: edit, touch, switchUnits, changeName, importFile, exportFile, save, showSummary: revealed === 'all' };
+  return {
+    plan,
+    units,
+    name,
+    nameError,
+    placed,
+    preview,
+    status,
+    saving,
+    dirty,
+    errorsFor,
+    setField,
+    update: edit,
+    touch,
+    switchUnits,
+    changeName,
+    importFile,
+    exportFile,
+    save,
+    showSummary: revealed === 'all',
+  };
 }

@@ -21,6 +21,14 @@ export default function FlagChip({ code, linkToGlossary = false }: Props) {
     </>
   );
   if (linkToGlossary)
-    return <a href={`#flag-${code}`} className={`${className} hover:bg-ink-100`} title={f.meaning}>{body}</a>;
-  return <span className={className} title={f.meaning} data-flag={code}>{body}</span>;
+    return (
+      <a href={`#flag-${code}`} className={`${className} hover:bg-ink-100`} title={f.meaning}>
+        {body}
+      </a>
+    );
+  return (
+    <span className={className} title={f.meaning} data-flag={code}>
+      {body}
+    </span>
+  );
 }

@@ -12,7 +12,9 @@ export default function FlagGlossary({ codes, heading = 'What the flags mean' }:
   const shown = FLAG_CODES.filter((c) => !codes || codes.includes(c));
   return (
     <section className="card" aria-labelledby="flag-glossary-heading">
-      <h2 id="flag-glossary-heading" className="text-lg font-semibold text-ink-900">{heading}</h2>
+      <h2 id="flag-glossary-heading" className="text-lg font-semibold text-ink-900">
+        {heading}
+      </h2>
       <dl className="mt-3 divide-y divide-ink-800/10">
         {shown.map((code) => {
           const f = FLAG_GLOSSARY[code];
@@ -25,8 +27,12 @@ export default function FlagGlossary({ codes, heading = 'What the flags mean' }:
               </dt>
               <dd className="mt-1 text-sm text-ink-900">
                 <p>{f.meaning}</p>
-                <p className="mt-1"><span className="font-medium">Usual causes:</span> {f.causes.join('; ')}.</p>
-                <p className="mt-1"><span className="font-medium">Next:</span> {f.next}</p>
+                <p className="mt-1">
+                  <span className="font-medium">Usual causes:</span> {f.causes.join('; ')}.
+                </p>
+                <p className="mt-1">
+                  <span className="font-medium">Next:</span> {f.next}
+                </p>
               </dd>
             </div>
           );

@@ -18,10 +18,22 @@ interface Props {
 }
 
 /** Every gauge's comparison in a sortable table; a row or its id selects the gauge. */
-export default function GaugeTable({ gauges, pressureUnit, selectedId = null, onSelect, renderActions, actionsLabel = 'Disposition', caption = 'Gauge results', initialSort }: Props) {
+export default function GaugeTable({
+  gauges,
+  pressureUnit,
+  selectedId = null,
+  onSelect,
+  renderActions,
+  actionsLabel = 'Disposition',
+  caption = 'Gauge results',
+  initialSort,
+}: Props) {
   const columns = useMemo(() => buildGaugeColumns(pressureUnit), [pressureUnit]);
   const [sort, setSort] = useState<{ key: GaugeSortKey; index: number; dir: SortDirection } | null>(() =>
-    initialSort ? { ...initialSort, index: initialSort.key === 'id' ? -1 : columns.findIndex((c) => c.key === initialSort.key) } : null);
+    initialSort
+      ? { ...initialSort, index: initialSort.key === 'id' ? -1 : columns.findIndex((c) => c.key === initialSort.key) }
+      : null,
+  );
   const rows = useMemo(() => (sort ? sortGauges(gauges, sort.key, sort.dir) : gauges), [gauges, sort]);
   const sortBy = (key: GaugeSortKey, index: number) =>
     setSort((s) => ({ key, index, dir: s?.index === index && s.dir === 'ascending' ? 'descending' : 'ascending' }));
@@ -32,9 +44,18 @@ export default function GaugeTable({ gauges, pressureUnit, selectedId = null, on
     onSelect?.(id);
   };
   const headButton = (label: string, index: number, key: GaugeSortKey, unit?: string) => (
-    <button type="button" className="inline-flex items-start gap-1 text-left font-semibold hover:underline" onClick={() => sortBy(key, index)}>
-      <span>{label}{unit && <span className="block text-xs font-normal text-ink-700">{unit}</span>}</span>
-      <span aria-hidden="true" className="text-xs text-ink-600">{arrow(index)}</span>
+    <button
+      type="button"
+      className="inline-flex items-start gap-1 text-left font-semibold hover:underline"
+      onClick={() => sortBy(key, index)}
+    >
+      <span>
+        {label}
+        {unit && <span className="block text-xs font-normal text-ink-700">{unit}</span>}
+      </span>
+      <span aria-hidden="true" className="text-xs text-ink-600">
+        {arrow(index)}
+      </span>
     </button>
   );
 
@@ -44,9 +65,13 @@ export default function GaugeTable({ gauges, pressureUnit, selectedId = null, on
         <caption className="sr-only">{caption}; select a column header to sort</caption>
         <thead>
           <tr>
-            <th scope="col" aria-sort={ariaSort(-1)}>{headButton('Gauge', -1, 'id', 'channel')}</th>
+            <th scope="col" aria-sort={ariaSort(-1)}>
+              {headButton('Gauge', -1, 'id', 'channel')}
+            </th>
             {columns.map((c, i) => (
-              <th key={c.label} scope="col" aria-sort={ariaSort(i)} className={c.numeric ? 'text-right!' : undefined}>{headButton(c.label, i, c.key, c.unit)}</th>
+              <th key={c.label} scope="col" aria-sort={ariaSort(i)} className={c.numeric ? 'text-right!' : undefined}>
+                {headButton(c.label, i, c.key, c.unit)}
+              </th>
             ))}
             {renderActions && <th scope="col">{actionsLabel}</th>}
           </tr>
@@ -55,12 +80,28 @@ export default function GaugeTable({ gauges, pressureUnit, selectedId = null, on
           {rows.map((g) => {
             const selected = g.id === selectedId;
             return (
-              <tr key={g.id} onClick={(e) => onRowClick(e, g.id)} className={`cursor-pointer ${selected ? 'bg-brass-100' : 'hover:bg-ink-50'}`} data-gauge={g.id}>
+              <tr
+                key={g.id}
+                onClick={(e) => onRowClick(e, g.id)}
+                className={`cursor-pointer ${selected ? 'bg-brass-100' : 'hover:bg-ink-50'}`}
+                data-gauge={g.id}
+              >
                 <td>
-                  <button type="button" aria-pressed={selected} className="font-semibold text-ink-900 underline decoration-dotted underline-offset-2" onClick={() => onSelect?.(g.id)}>{g.id}</button>
+                  <button
+                    type="button"
+                    aria-pressed={selected}
+                    className="font-semibold text-ink-900 underline decoration-dotted underline-offset-2"
+                    onClick={() => onSelect?.(g.id)}
+                  >
+                    {g.id}
+                  </button>
                   <span className="block font-mono text-xs text-ink-700">{g.channel}</span>
                 </td>
-                {columns.map((c) => <td key={c.label} className={`${c.numeric ? 'num text-right' : ''} ${c.className ?? ''}`}>{c.cell(g)}</td>)}
+                {columns.map((c) => (
+                  <td key={c.label} className={`${c.numeric ? 'num text-right' : ''} ${c.className ?? ''}`}>
+                    {c.cell(g)}
+                  </td>
+                ))}
                 {renderActions && <td data-actions="">{renderActions(g)}</td>}
               </tr>
             );

@@ -12,7 +12,7 @@ export default function OutcomeBadge({ outcome, compact = false }: Props) {
   const look = OUTCOME_LOOK[outcome];
   return (
     <span
-      className={`inline-flex items-center gap-1.5 whitespace-nowrap rounded-full border font-semibold ${compact ? 'px-2 py-0.5 text-xs' : 'px-2.5 py-1 text-sm'}`}
+      className={`inline-flex items-center gap-1.5 rounded-full border font-semibold whitespace-nowrap ${compact ? 'px-2 py-0.5 text-xs' : 'px-2.5 py-1 text-sm'}`}
       style={{ borderColor: look.color, color: look.color, backgroundColor: `${look.color}14` }}
       data-outcome={outcome}
     >

@@ -15,7 +15,12 @@ export default function OutcomeMarker({ outcome, x, y, r = 6 }: Props) {
   const common = { fill: color, stroke: '#ffffff', strokeWidth: 1.2 };
   if (shape === 'circle') return <circle cx={x} cy={y} r={r} {...common} />;
   if (shape === 'triangle')
-    return <polygon points={`${x},${y - r * 1.15} ${x + r * 1.1},${y + r * 0.8} ${x - r * 1.1},${y + r * 0.8}`} {...common} />;
+    return (
+      <polygon
+        points={`${x},${y - r * 1.15} ${x + r * 1.1},${y + r * 0.8} ${x - r * 1.1},${y + r * 0.8}`}
+        {...common}
+      />
+    );
   if (shape === 'diamond')
     return <polygon points={`${x},${y - r * 1.2} ${x + r},${y} ${x},${y + r * 1.2} ${x - r},${y}`} {...common} />;
   const d = r * 0.8;

@@ -1,5 +1,12 @@
 import type { RosetteResult } from '../../lib/reduction/types';
-import { formatAngle, formatPressure, formatRatio, formatSlope, formatStress, type PressureUnit } from '../../lib/ui-format';
+import {
+  formatAngle,
+  formatPressure,
+  formatRatio,
+  formatSlope,
+  formatStress,
+  type PressureUnit,
+} from '../../lib/ui-format';
 import FlagChip from './FlagChip';
 import RosetteDiagram from './RosetteDiagram';
 import YieldBar from './YieldBar';
@@ -30,33 +37,68 @@ export default function RosetteCard({ rosette: r, pressureUnit, testPressure, ne
     <article className="card" aria-labelledby={`rosette-${r.id}`}>
       <header className="flex flex-wrap items-baseline justify-between gap-2">
         <h3 id={`rosette-${r.id}`} className="text-lg font-semibold text-ink-900">
-          Rosette {r.id} <span className="text-sm font-normal text-ink-700">{KIND_LABEL[r.kind]}, grid A at {formatAngle(r.angleDeg)}</span>
+          Rosette {r.id}{' '}
+          <span className="text-sm font-normal text-ink-700">
+            {KIND_LABEL[r.kind]}, grid A at {formatAngle(r.angleDeg)}
+          </span>
         </h3>
         <div className="flex flex-wrap gap-1">
-          {r.flags.length === 0 ? <span className="text-sm text-ink-700">No flags</span> : r.flags.map((f) => <FlagChip key={f} code={f} />)}
+          {r.flags.length === 0 ? (
+            <span className="text-sm text-ink-700">No flags</span>
+          ) : (
+            r.flags.map((f) => <FlagChip key={f} code={f} />)
+          )}
         </div>
       </header>
       <div className="mt-3 grid gap-4 sm:grid-cols-[1fr_auto]">
         <div className="min-w-0 space-y-4">
           <table className="table-base">
             <caption className="sr-only">Principal strains per unit pressure, measured and predicted</caption>
-            <thead><tr><th scope="col">Strain</th><th scope="col" className="text-right!">Measured <span className="block text-xs font-normal">µε/{pressureUnit}</span></th><th scope="col" className="text-right!">Predicted <span className="block text-xs font-normal">µε/{pressureUnit}</span></th><th scope="col" className="text-right!">Ratio</th></tr></thead>
+            <thead>
+              <tr>
+                <th scope="col">Strain</th>
+                <th scope="col" className="text-right!">
+                  Measured <span className="block text-xs font-normal">µε/{pressureUnit}</span>
+                </th>
+                <th scope="col" className="text-right!">
+                  Predicted <span className="block text-xs font-normal">µε/{pressureUnit}</span>
+                </th>
+                <th scope="col" className="text-right!">
+                  Ratio
+                </th>
+              </tr>
+            </thead>
             <tbody>
               {rows.map((row) => (
                 <tr key={row.name}>
-                  <th scope="row" className="font-semibold">{row.name}</th>
+                  <th scope="row" className="font-semibold">
+                    {row.name}
+                  </th>
                   <td className="num text-right">{formatSlope(row.measured, pressureUnit, false)}</td>
                   <td className="num text-right">{formatSlope(row.predicted, pressureUnit, false)}</td>
-                  <td className="num text-right">{row.predicted !== 0 ? formatRatio(row.measured / row.predicted) : '—'}</td>
+                  <td className="num text-right">
+                    {row.predicted !== 0 ? formatRatio(row.measured / row.predicted) : '—'}
+                  </td>
                 </tr>
               ))}
             </tbody>
           </table>
           <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1 text-sm [&>dd]:whitespace-nowrap">
-            <dt className="text-ink-700">ε1 direction from vessel axis</dt><dd className="num font-semibold">{formatAngle(r.principalAngleDeg, 1)}</dd>
-            <dt className="text-ink-700">σ1 / σ2 at {formatPressure(testPressure, pressureUnit)}</dt><dd className="num font-semibold">{formatStress(r.principalStresses[0], pressureUnit)} / {formatStress(r.principalStresses[1], pressureUnit)}</dd>
-            <dt className="text-ink-700">von Mises at test pressure</dt><dd className="num font-semibold">{formatStress(r.vonMises, pressureUnit)}</dd>
-            {yieldStrength !== null && <><dt className="text-ink-700">Yield strength (plan)</dt><dd className="num font-semibold">{formatStress(yieldStrength, pressureUnit)}</dd></>}
+            <dt className="text-ink-700">ε1 direction from vessel axis</dt>
+            <dd className="num font-semibold">{formatAngle(r.principalAngleDeg, 1)}</dd>
+            <dt className="text-ink-700">σ1 / σ2 at {formatPressure(testPressure, pressureUnit)}</dt>
+            <dd className="num font-semibold">
+              {formatStress(r.principalStresses[0], pressureUnit)} /{' '}
+              {formatStress(r.principalStresses[1], pressureUnit)}
+            </dd>
+            <dt className="text-ink-700">von Mises at test pressure</dt>
+            <dd className="num font-semibold">{formatStress(r.vonMises, pressureUnit)}</dd>
+            {yieldStrength !== null && (
+              <>
+                <dt className="text-ink-700">Yield strength (plan)</dt>
+                <dd className="num font-semibold">{formatStress(yieldStrength, pressureUnit)}</dd>
+              </>
+            )}
           </dl>
           <YieldBar fraction={r.yieldFraction} nearYieldFraction={nearYieldFraction} />
         </div>

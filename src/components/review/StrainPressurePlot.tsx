@@ -32,33 +32,45 @@ export default function StrainPressurePlot({ gauge, testPressure, slopeBand, pre
     () => [plot.x, plot.bandUpper, plot.bandLower, plot.predicted, plot.fit, plot.loading, plot.unloading],
     [plot],
   );
-  const options = useMemo<ChartOptions>(() => ({
-    legend: { show: false },
-    cursor: { show: false },
-    scales: {
-      x: { time: false, range: [0, plot.xMax] },
-      y: { range: (_u, min, max) => { const lo = Math.min(0, min), hi = Math.max(0, max), pad = (hi - lo) * 0.06 || 1; return [lo - pad, hi + pad]; } },
-    },
-    axes: [styleAxis(`Pressure (${pressureUnit})`), styleAxis('Strain (µε)', { size: 64 })],
-    series: [
-      {},
-      { label: 'band upper', stroke: 'rgba(168, 107, 18, 0.45)', width: 1, points: { show: false } },
-      { label: 'band lower', stroke: 'rgba(168, 107, 18, 0.45)', width: 1, points: { show: false } },
-      { label: 'predicted', stroke: CHART_COLORS.brass, width: 2, dash: [8, 5], points: { show: false } },
-      { label: 'fitted', stroke: CHART_COLORS.ink, width: 2, points: { show: false } },
-      { label: 'loading', paths: hidden, points: { show: false } },
-      { label: 'unloading', paths: hidden, points: { show: false } },
-    ],
-    bands: [{ series: [1, 2], fill: CHART_COLORS.bandFill }],
-    hooks: {
-      draw: [(u) => {
-        drawVerticalMarker(u, testPressure, 'test pressure', CHART_COLORS.inkLight);
-        // unloading squares first and larger, so a loading dot at the same place shows inside
-        drawSeriesMarkers(u, UNLOADING, 'square-open', CHART_COLORS.unloading, 12);
-        drawSeriesMarkers(u, LOADING, 'dot', CHART_COLORS.ink, 8);
-      }],
-    },
-  }), [plot.xMax, pressureUnit, testPressure]);
+  const options = useMemo<ChartOptions>(
+    () => ({
+      legend: { show: false },
+      cursor: { show: false },
+      scales: {
+        x: { time: false, range: [0, plot.xMax] },
+        y: {
+          range: (_u, min, max) => {
+            const lo = Math.min(0, min),
+              hi = Math.max(0, max),
+              pad = (hi - lo) * 0.06 || 1;
+            return [lo - pad, hi + pad];
+          },
+        },
+      },
+      axes: [styleAxis(`Pressure (${pressureUnit})`), styleAxis('Strain (µε)', { size: 64 })],
+      series: [
+        {},
+        { label: 'band upper', stroke: 'rgba(168, 107, 18, 0.45)', width: 1, points: { show: false } },
+        { label: 'band lower', stroke: 'rgba(168, 107, 18, 0.45)', width: 1, points: { show: false } },
+        { label: 'predicted', stroke: CHART_COLORS.brass, width: 2, dash: [8, 5], points: { show: false } },
+        { label: 'fitted', stroke: CHART_COLORS.ink, width: 2, points: { show: false } },
+        { label: 'loading', paths: hidden, points: { show: false } },
+        { label: 'unloading', paths: hidden, points: { show: false } },
+      ],
+      bands: [{ series: [1, 2], fill: CHART_COLORS.bandFill }],
+      hooks: {
+        draw: [
+          (u) => {
+            drawVerticalMarker(u, testPressure, 'test pressure', CHART_COLORS.inkLight);
+            // unloading squares first and larger, so a loading dot at the same place shows inside
+            drawSeriesMarkers(u, UNLOADING, 'square-open', CHART_COLORS.unloading, 12);
+            drawSeriesMarkers(u, LOADING, 'dot', CHART_COLORS.ink, 8);
+          },
+        ],
+      },
+    }),
+    [plot.xMax, pressureUnit, testPressure],
+  );
   useUplot(chartEl, options, data);
 
   const legend: LegendItem[] = [
@@ -72,13 +84,31 @@ export default function StrainPressurePlot({ gauge, testPressure, slopeBand, pre
 
   return (
     <figure className="min-w-0 space-y-2" aria-labelledby={captionId}>
-      <div ref={chartEl} role="img" aria-label={summary} className="w-full min-w-0" data-testid="strain-pressure-chart" />
+      <div
+        ref={chartEl}
+        role="img"
+        aria-label={summary}
+        className="w-full min-w-0"
+        data-testid="strain-pressure-chart"
+      />
       <ChartLegend items={legend} label={`Legend for gauge ${gauge.id}`} />
       <figcaption id={captionId} className="flex flex-wrap items-center gap-x-4 gap-y-1 text-sm text-ink-900">
-        <span className="font-semibold">Gauge {gauge.id} <span className="font-normal text-ink-700">({gauge.channel}, {gauge.angleDeg}°)</span></span>
-        <span className="num">Measured/predicted <strong>{formatRatio(gauge.ratio)}</strong></span>
-        <span className="num">R² <strong>{formatRSquared(gauge.rSquared)}</strong></span>
-        <span className="num">Measured {formatSlope(gauge.measuredSlope, pressureUnit)} · predicted {formatSlope(gauge.predictedSlope, pressureUnit)}</span>
+        <span className="font-semibold">
+          Gauge {gauge.id}{' '}
+          <span className="font-normal text-ink-700">
+            ({gauge.channel}, {gauge.angleDeg}°)
+          </span>
+        </span>
+        <span className="num">
+          Measured/predicted <strong>{formatRatio(gauge.ratio)}</strong>
+        </span>
+        <span className="num">
+          R² <strong>{formatRSquared(gauge.rSquared)}</strong>
+        </span>
+        <span className="num">
+          Measured {formatSlope(gauge.measuredSlope, pressureUnit)} · predicted{' '}
+          {formatSlope(gauge.predictedSlope, pressureUnit)}
+        </span>
         <OutcomeBadge outcome={gauge.outcome} compact />
       </figcaption>
     </figure>

@@ -43,52 +43,109 @@ export default function TimeHistoryPlot({ seriesUrl, channels, pressureUnit, ini
         setSeries(s);
         if (!view && s.t.length > 1) setFull([s.t[0]!, s.t[s.t.length - 1]!]);
       })
-      .catch((e: Error) => { if (!ctrl.signal.aborted) setError(`The time history could not be loaded: ${e.message}`); })
-      .finally(() => { if (!ctrl.signal.aborted) setLoading(false); });
+      .catch((e: Error) => {
+        if (!ctrl.signal.aborted) setError(`The time history could not be loaded: ${e.message}`);
+      })
+      .finally(() => {
+        if (!ctrl.signal.aborted) setLoading(false);
+      });
     return () => ctrl.abort();
   }, [seriesUrl, view, attempt]);
 
-  const onSelectWindow = useCallback((t0: number, t1: number) => { if (t1 > t0) setView([t0, t1]); }, []);
-  const plot = useMemo(() => (series && series.t.length > 0 ? buildTimeHistoryData(series, chosen) : null), [series, chosen]);
+  const onSelectWindow = useCallback((t0: number, t1: number) => {
+    if (t1 > t0) setView([t0, t1]);
+  }, []);
+  const plot = useMemo(
+    () => (series && series.t.length > 0 ? buildTimeHistoryData(series, chosen) : null),
+    [series, chosen],
+  );
   const options = useMemo(
-    () => (plot && series ? buildTimeHistoryOptions({ specs: plot.specs, data: plot.data, channels, pressureUnit, timeIsIndex: series.timeIsIndex, onSelectWindow }) : null),
+    () =>
+      plot && series
+        ? buildTimeHistoryOptions({
+            specs: plot.specs,
+            data: plot.data,
+            channels,
+            pressureUnit,
+            timeIsIndex: series.timeIsIndex,
+            onSelectWindow,
+          })
+        : null,
     [plot, series, channels, pressureUnit, onSelectWindow],
   );
   useUplot(chartEl, options, plot?.data ?? null, heightFor);
 
   const current: Window | null = view ?? full;
-  const zoom = (factor: number) => { if (current && full) setView(scaleWindow(current, full, factor)); };
-  const toggle = (c: string) => setChosen((cs) => (cs.includes(c) ? cs.filter((x) => x !== c) : channels.filter((x) => x === c || cs.includes(x))));
+  const zoom = (factor: number) => {
+    if (current && full) setView(scaleWindow(current, full, factor));
+  };
+  const toggle = (c: string) =>
+    setChosen((cs) => (cs.includes(c) ? cs.filter((x) => x !== c) : channels.filter((x) => x === c || cs.includes(x))));
   const unit = series?.timeIsIndex ? '' : ' s';
 
   return (
     <div className="space-y-3">
       <div className="flex flex-wrap items-center gap-2">
-        <button type="button" className="btn-secondary" onClick={() => zoom(0.5)} disabled={!full}>Zoom in</button>
-        <button type="button" className="btn-secondary" onClick={() => zoom(2)} disabled={!view}>Zoom out</button>
-        <button type="button" className="btn-secondary" onClick={() => setView(null)} disabled={!view}>Reset zoom</button>
+        <button type="button" className="btn-secondary" onClick={() => zoom(0.5)} disabled={!full}>
+          Zoom in
+        </button>
+        <button type="button" className="btn-secondary" onClick={() => zoom(2)} disabled={!view}>
+          Zoom out
+        </button>
+        <button type="button" className="btn-secondary" onClick={() => setView(null)} disabled={!view}>
+          Reset zoom
+        </button>
         <span className="num text-sm text-ink-700" aria-live="polite">
-          {current && `Showing ${formatFixed(current[0], 0)}–${formatFixed(current[1], 0)}${unit}${view ? ' (zoomed) · ' : ' · '}drag across the chart to zoom`}
+          {current &&
+            `Showing ${formatFixed(current[0], 0)}–${formatFixed(current[1], 0)}${unit}${view ? ' (zoomed) · ' : ' · '}drag across the chart to zoom`}
         </span>
       </div>
       {error && (
         <div className="flex flex-wrap items-center gap-3">
-          <p role="alert" className="error-text mt-0">{error}</p>
-          <button type="button" className="btn-secondary" onClick={() => setAttempt((n) => n + 1)}>Try again</button>
+          <p role="alert" className="error-text mt-0">
+            {error}
+          </p>
+          <button type="button" className="btn-secondary" onClick={() => setAttempt((n) => n + 1)}>
+            Try again
+          </button>
         </div>
       )}
       <div className={`relative ${series || loading ? 'min-h-64' : ''}`}>
-        <div ref={chartEl} role="img" aria-label={`Pressure and ${chosen.length} strain channels over time`} className="w-full min-w-0" data-testid="time-history-chart" />
-        {loading && <p role="status" className="absolute right-2 top-2 rounded bg-white/90 px-2 py-1 text-sm font-medium text-ink-800 shadow-xs">Loading time history…</p>}
-        {!loading && series && series.t.length === 0 && <p className="text-sm text-ink-700">No samples in this window.</p>}
+        <div
+          ref={chartEl}
+          role="img"
+          aria-label={`Pressure and ${chosen.length} strain channels over time`}
+          className="w-full min-w-0"
+          data-testid="time-history-chart"
+        />
+        {loading && (
+          <p
+            role="status"
+            className="absolute top-2 right-2 rounded bg-white/90 px-2 py-1 text-sm font-medium text-ink-800 shadow-xs"
+          >
+            Loading time history…
+          </p>
+        )}
+        {!loading && series && series.t.length === 0 && (
+          <p className="text-sm text-ink-700">No samples in this window.</p>
+        )}
       </div>
       <fieldset className="flex flex-wrap gap-x-4 gap-y-2" aria-describedby={groupId}>
         <legend className="label">Channels</legend>
-        <span id={groupId} className="inline-flex items-center gap-1.5 text-sm text-ink-900"><LegendSwatch kind="line" color={CHART_COLORS.ink} />Pressure ({pressureUnit}, right axis)</span>
+        <span id={groupId} className="inline-flex items-center gap-1.5 text-sm text-ink-900">
+          <LegendSwatch kind="line" color={CHART_COLORS.ink} />
+          Pressure ({pressureUnit}, right axis)
+        </span>
         {channels.map((c) => (
           <label key={c} className="inline-flex cursor-pointer items-center gap-1.5 text-sm text-ink-900">
-            <input type="checkbox" className="size-4 accent-ink-800" checked={chosen.includes(c)} onChange={() => toggle(c)} />
-            <LegendSwatch kind="line" color={channelColor(channels, c)} />{c}
+            <input
+              type="checkbox"
+              className="size-4 accent-ink-800"
+              checked={chosen.includes(c)}
+              onChange={() => toggle(c)}
+            />
+            <LegendSwatch kind="line" color={channelColor(channels, c)} />
+            {c}
           </label>
         ))}
       </fieldset>

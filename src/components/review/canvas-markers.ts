@@ -5,7 +5,13 @@ import uPlot from 'uplot';
 export type CanvasMarker = 'dot' | 'square-open';
 
 /** Draw series `seriesIdx` of the chart's data as markers (canvas pixels, device-pixel aware). */
-export function drawSeriesMarkers(u: uPlot, seriesIdx: number, marker: CanvasMarker, color: string, sizeCssPx = 9): void {
+export function drawSeriesMarkers(
+  u: uPlot,
+  seriesIdx: number,
+  marker: CanvasMarker,
+  color: string,
+  sizeCssPx = 9,
+): void {
   const xs = u.data[0];
   const ys = u.data[seriesIdx];
   if (!ys) return;

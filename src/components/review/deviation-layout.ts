@@ -54,13 +54,20 @@ export function layoutDeviation(gauges: readonly GaugeResult[], band: number): D
       continue;
     }
     const ci = g.slopeCI95
-      ? ([Math.min(g.slopeCI95[0], g.slopeCI95[1]) / g.predictedSlope, Math.max(g.slopeCI95[0], g.slopeCI95[1]) / g.predictedSlope].sort((a, b) => a - b) as [number, number])
+      ? ([
+          Math.min(g.slopeCI95[0], g.slopeCI95[1]) / g.predictedSlope,
+          Math.max(g.slopeCI95[0], g.slopeCI95[1]) / g.predictedSlope,
+        ].sort((a, b) => a - b) as [number, number])
       : null;
     const group = classifyDirection(g);
     byGroup.set(group, [...(byGroup.get(group) ?? []), { gauge: g, ratio: g.ratio, ci }]);
     values.push(g.ratio, ...(ci ?? []));
   }
-  const groups = GROUP_ORDER.filter((k) => byGroup.has(k)).map((group) => ({ group, label: DIRECTION_LABELS[group], rows: byGroup.get(group)! }));
+  const groups = GROUP_ORDER.filter((k) => byGroup.has(k)).map((group) => ({
+    group,
+    label: DIRECTION_LABELS[group],
+    rows: byGroup.get(group)!,
+  }));
   return { groups, notPlotted, domain: ratioDomain(values, band) };
 }
 
@@ -69,6 +76,7 @@ export function ratioTicks(domain: [number, number]): number[] {
   const span = domain[1] - domain[0];
   const step = span <= 0.5 ? 0.05 : span <= 1.2 ? 0.1 : 0.25;
   const ticks: number[] = [];
-  for (let v = Math.ceil(domain[0] / step - 1e-9) * step; v <= domain[1] + 1e-9; v += step) ticks.push(Math.round(v * 1000) / 1000);
+  for (let v = Math.ceil(domain[0] / step - 1e-9) * step; v <= domain[1] + 1e-9; v += step)
+    ticks.push(Math.round(v * 1000) / 1000);
   return ticks;
 }

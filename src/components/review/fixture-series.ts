@@ -44,10 +44,15 @@ export function makeFixtureSeries(opts: { from?: number; to?: number; points?: n
       let hi = -Infinity;
       for (let j = start; j < Math.min(n, start + per); j++) {
         const time = from + j / SAMPLE_HZ;
-        const v = c === 'pressure'
-          ? levelAt(time, pressureLevels) + 0.004 * noiseAt(time, 0)
-          : levelAt(time, FIXTURE_GAUGES[k - 1]!.holdStrains.map((s) => s ?? 0)) + 1.5 * noiseAt(time, k) +
-            (c === 'SG2' && Math.abs(time - 1000) < 0.15 ? 45 : 0);
+        const v =
+          c === 'pressure'
+            ? levelAt(time, pressureLevels) + 0.004 * noiseAt(time, 0)
+            : levelAt(
+                time,
+                FIXTURE_GAUGES[k - 1]!.holdStrains.map((s) => s ?? 0),
+              ) +
+              1.5 * noiseAt(time, k) +
+              (c === 'SG2' && Math.abs(time - 1000) < 0.15 ? 45 : 0);
         lo = Math.min(lo, v);
         hi = Math.max(hi, v);
       }

@@ -19,7 +19,13 @@ export const OUTCOME_LOOK: Record<GaugeOutcome, OutcomeLook> = {
   'in-band': { label: 'In band', color: '#0072b2', shape: 'circle', glyph: '●', textClass: 'text-ok' },
   flagged: { label: 'Flagged', color: '#d55e00', shape: 'triangle', glyph: '▲', textClass: 'text-flag' },
   excluded: { label: 'Excluded', color: '#6b6b6b', shape: 'cross', glyph: '✕', textClass: 'text-excluded' },
-  'not-compared': { label: 'Not compared', color: '#cc79a7', shape: 'diamond', glyph: '◆', textClass: 'text-notcompared' },
+  'not-compared': {
+    label: 'Not compared',
+    color: '#cc79a7',
+    shape: 'diamond',
+    glyph: '◆',
+    textClass: 'text-notcompared',
+  },
 };
 
 export const OUTCOME_ORDER: GaugeOutcome[] = ['flagged', 'not-compared', 'excluded', 'in-band'];
@@ -42,7 +48,17 @@ export const CHART_COLORS = {
 } as const;
 
 /** Colours for time-history channels, distinct from each other; labels carry the meaning. */
-export const CHANNEL_COLORS = ['#0072b2', '#009e73', '#d55e00', '#cc79a7', '#56b4e9', '#e69f00', '#6a3d9a', '#999933', '#8c564b'];
+export const CHANNEL_COLORS = [
+  '#0072b2',
+  '#009e73',
+  '#d55e00',
+  '#cc79a7',
+  '#56b4e9',
+  '#e69f00',
+  '#6a3d9a',
+  '#999933',
+  '#8c564b',
+];
 
 /** Worst outcome of a set (a rosette's grids): flagged, then in-band, then not-compared, then excluded. */
 export function combineOutcomes(outcomes: readonly GaugeOutcome[]): GaugeOutcome {

@@ -57,8 +57,15 @@ describe('layoutDeviation', () => {
     expect(ratioDomain([1.02], 0.05)).toEqual([expect.closeTo(0.925, 9), expect.closeTo(1.075, 9)]);
     expect(ratioTicks([0.5, 1.15])).toContain(1);
   });
-  it.each([[90, 'hoop'], [270, 'hoop'], [-88, 'hoop'], [0, 'axial'], [180, 'axial'], [178, 'axial'], [30, 'other']] as const)(
-    'classifies %f° as %s', (angleDeg, want) => expect(classifyDirection({ id: 'X', angleDeg })).toBe(want));
+  it.each([
+    [90, 'hoop'],
+    [270, 'hoop'],
+    [-88, 'hoop'],
+    [0, 'axial'],
+    [180, 'axial'],
+    [178, 'axial'],
+    [30, 'other'],
+  ] as const)('classifies %f° as %s', (angleDeg, want) => expect(classifyDirection({ id: 'X', angleDeg })).toBe(want));
 });
 
 describe('layoutShellMap', () => {
@@ -71,7 +78,14 @@ describe('layoutShellMap', () => {
     expect(m.ringZones[0]).toEqual({ x0: 0, x1: expect.closeTo(301.33, 6), label: 'edge zone' });
     expect(m.ringZones[1]!.x1).toBe(6000);
     expect(m.ringZones).toHaveLength(5); // 2 seams + S1 + S2 + T1
-    expect(m.pointZones).toEqual([{ x: 4700, arc: expect.closeTo((10 / 360) * Math.PI * 1832, 6), radius: expect.closeTo(451.33, 6), label: 'edge zone' }]);
+    expect(m.pointZones).toEqual([
+      {
+        x: 4700,
+        arc: expect.closeTo((10 / 360) * Math.PI * 1832, 6),
+        radius: expect.closeTo(451.33, 6),
+        label: 'edge zone',
+      },
+    ]);
   });
   it('places gauges with a position and lists the rest', () => {
     expect(m.placed.map((p) => p.gauge.id)).toEqual(['H1', 'H2', 'A1', 'R1', 'A2', 'H3']);
@@ -87,7 +101,11 @@ describe('layoutShellMap', () => {
     expect(combineOutcomes(['excluded', 'not-compared'])).toBe('not-compared');
   });
   it('stacks overlapping labels into rows', () => {
-    const rows = stackTopLabels([{ text: 'S1 support', x: 190, anchor: 'middle' }, { text: 'T1 thickness change', x: 234, anchor: 'middle' }, { text: 'S2 support', x: 800, anchor: 'middle' }]);
+    const rows = stackTopLabels([
+      { text: 'S1 support', x: 190, anchor: 'middle' },
+      { text: 'T1 thickness change', x: 234, anchor: 'middle' },
+      { text: 'S2 support', x: 800, anchor: 'middle' },
+    ]);
     expect(rows.map((r) => r.row)).toEqual([0, 1, 0]);
   });
 });
@@ -95,8 +113,16 @@ describe('layoutShellMap', () => {
 describe('sortGauges', () => {
   it('sorts ids naturally and numbers with empty values last in both directions', () => {
     const rows = [...FIXTURE_GAUGES, { ...byId('H1'), id: 'H10', ratio: null }];
-    expect(sortGauges(rows, 'id', 'ascending').slice(0, 4).map((g) => g.id)).toEqual(['A1', 'A2', 'D1', 'H1']);
-    expect(sortGauges(rows, 'ratio', 'ascending').map((g) => g.id).slice(0, 2)).toEqual(['A2', 'H1']);
+    expect(
+      sortGauges(rows, 'id', 'ascending')
+        .slice(0, 4)
+        .map((g) => g.id),
+    ).toEqual(['A1', 'A2', 'D1', 'H1']);
+    expect(
+      sortGauges(rows, 'ratio', 'ascending')
+        .map((g) => g.id)
+        .slice(0, 2),
+    ).toEqual(['A2', 'H1']);
     expect(sortGauges(rows, 'ratio', 'descending').at(-1)!.id).toBe('H10');
     expect(sortGauges(rows, 'ratio', 'descending')[0]!.id).toBe('H3');
     expect(sortGauges(rows, 'outcome', 'ascending')[0]!.outcome).toBe('flagged');
@@ -106,13 +132,22 @@ describe('sortGauges', () => {
 describe('series helpers', () => {
   it('builds the series URL for the full log and for a zoomed window', () => {
     expect(buildSeriesUrl('/api/tests/12/series', null)).toBe('/api/tests/12/series?points=1500');
-    expect(buildSeriesUrl('/api/share/TOK/series', { from: 100.12345, to: 400 })).toBe('/api/share/TOK/series?from=100.123&to=400&points=1500');
+    expect(buildSeriesUrl('/api/share/TOK/series', { from: 100.12345, to: 400 })).toBe(
+      '/api/share/TOK/series?from=100.123&to=400&points=1500',
+    );
   });
   it('orders plot arrays t, pressure max/min, then each chosen channel max/min', () => {
     const s = makeFixtureSeries({ points: 200 });
     const { data, specs } = buildTimeHistoryData(s, ['SG1', 'SG2', 'missing']);
     expect(data).toHaveLength(1 + 2 * 3);
-    expect(specs.map((x) => `${x.channel}:${x.edge}`)).toEqual(['pressure:max', 'pressure:min', 'SG1:max', 'SG1:min', 'SG2:max', 'SG2:min']);
+    expect(specs.map((x) => `${x.channel}:${x.edge}`)).toEqual([
+      'pressure:max',
+      'pressure:min',
+      'SG1:max',
+      'SG1:min',
+      'SG2:max',
+      'SG2:min',
+    ]);
     expect(s.t.length).toBeLessThanOrEqual(200);
   });
   it('keeps a spike inside a bucket in the bucket maximum', () => {

@@ -19,12 +19,21 @@ import TimeHistoryPlot from './TimeHistoryPlot';
 import VerdictBanner from './VerdictBanner';
 import { FIXTURE_CHANNELS, FIXTURE_GAUGES, FIXTURE_PLAN, FIXTURE_RESULT, FIXTURE_ROSETTE } from './fixtures';
 
-const text = (html: string) => html.replace(/<!-- -->/g, '').replace(/<[^>]+>/g, ' ').replace(/&#x27;/g, "'").replace(/&amp;/g, '&').replace(/\s+/g, ' ');
+const text = (html: string) =>
+  html
+    .replace(/<!-- -->/g, '')
+    .replace(/<[^>]+>/g, ' ')
+    .replace(/&#x27;/g, "'")
+    .replace(/&amp;/g, '&')
+    .replace(/\s+/g, ' ');
 const results = Object.fromEntries(FIXTURE_GAUGES.map((g) => [g.id, g]));
 
 describe('OutcomeBadge and FlagChip', () => {
   it.each<[GaugeOutcome, string, string]>([
-    ['in-band', '●', 'In band'], ['flagged', '▲', 'Flagged'], ['excluded', '✕', 'Excluded'], ['not-compared', '◆', 'Not compared'],
+    ['in-band', '●', 'In band'],
+    ['flagged', '▲', 'Flagged'],
+    ['excluded', '✕', 'Excluded'],
+    ['not-compared', '◆', 'Not compared'],
   ])('%s shows glyph %s and the word %s', (outcome, glyph, word) => {
     const t = text(renderToString(h(OutcomeBadge, { outcome })));
     expect(t).toContain(glyph);
@@ -38,7 +47,16 @@ describe('OutcomeBadge and FlagChip', () => {
 
 describe('flag glossary', () => {
   it('explains all eight flag codes of DESIGN 3.3 with causes and a next step', () => {
-    const all: FlagCode[] = ['outside-band', 'nonlinear', 'hysteresis', 'zero-shift', 'no-response', 'reversed-sign', 'edge-zone', 'near-yield'];
+    const all: FlagCode[] = [
+      'outside-band',
+      'nonlinear',
+      'hysteresis',
+      'zero-shift',
+      'no-response',
+      'reversed-sign',
+      'edge-zone',
+      'near-yield',
+    ];
     expect([...FLAG_CODES].sort()).toEqual([...all].sort());
     for (const c of all) {
       expect(FLAG_GLOSSARY[c].causes.length).toBeGreaterThan(0);
@@ -53,7 +71,11 @@ describe('flag glossary', () => {
 
 describe('charts render on the server without a window', () => {
   it('StrainPressurePlot: caption with ratio, R², outcome and a legend', () => {
-    const t = text(renderToString(h(StrainPressurePlot, { gauge: results.D1!, testPressure: 3.4, slopeBand: 0.1, pressureUnit: 'MPa' })));
+    const t = text(
+      renderToString(
+        h(StrainPressurePlot, { gauge: results.D1!, testPressure: 3.4, slopeBand: 0.1, pressureUnit: 'MPa' }),
+      ),
+    );
     expect(t).toContain('Gauge D1');
     expect(t).toContain('1.127');
     expect(t).toContain('0.9944');
@@ -61,7 +83,9 @@ describe('charts render on the server without a window', () => {
     expect(t).toMatch(/Loading holds.*Unloading holds.*Predicted.*Band ±10 %/);
   });
   it('TimeHistoryPlot: a loading state and a labelled checkbox per channel', () => {
-    const html = renderToString(h(TimeHistoryPlot, { seriesUrl: '/api/tests/12/series', channels: FIXTURE_CHANNELS, pressureUnit: 'MPa' }));
+    const html = renderToString(
+      h(TimeHistoryPlot, { seriesUrl: '/api/tests/12/series', channels: FIXTURE_CHANNELS, pressureUnit: 'MPa' }),
+    );
     expect(text(html)).toContain('Loading time history');
     expect(html.match(/type="checkbox"/g)).toHaveLength(FIXTURE_CHANNELS.length);
     expect(text(html)).toContain('Reset zoom');
@@ -77,7 +101,9 @@ describe('overview, map, table', () => {
     expect(text(html)).toContain('Rosette grids');
   });
   it('DevelopedShellMap: every placed gauge, the unplaced one listed, features labelled', () => {
-    const html = renderToString(h(DevelopedShellMap, { plan: FIXTURE_PLAN, results, edgeZoneDistance: 301.33, lengthUnit: 'mm' }));
+    const html = renderToString(
+      h(DevelopedShellMap, { plan: FIXTURE_PLAN, results, edgeZoneDistance: 301.33, lengthUnit: 'mm' }),
+    );
     for (const id of ['H1', 'H2', 'A1', 'R1', 'A2', 'H3']) expect(html).toContain(`data-gauge="${id}"`);
     const t = text(html);
     expect(t).toMatch(/No position in the plan: D1/);
@@ -86,15 +112,30 @@ describe('overview, map, table', () => {
     expect(t).toContain('Edge zone');
   });
   it('DevelopedShellMap: a sphere gets a note instead', () => {
-    const html = renderToString(h(DevelopedShellMap, { plan: { ...FIXTURE_PLAN, vessel: { ...FIXTURE_PLAN.vessel, shape: 'sphere' } }, results, edgeZoneDistance: 300, lengthUnit: 'mm' }));
+    const html = renderToString(
+      h(DevelopedShellMap, {
+        plan: { ...FIXTURE_PLAN, vessel: { ...FIXTURE_PLAN.vessel, shape: 'sphere' } },
+        results,
+        edgeZoneDistance: 300,
+        lengthUnit: 'mm',
+      }),
+    );
     expect(text(html)).toContain('A sphere has no developed shell map');
   });
   it('GaugeTable: sortable headers, flags and outcomes, and the actions slot', () => {
-    const html = renderToString(h(GaugeTable, { gauges: FIXTURE_GAUGES, pressureUnit: 'MPa', renderActions: (g) => h('span', null, `act-${g.id}`) }));
+    const html = renderToString(
+      h(GaugeTable, {
+        gauges: FIXTURE_GAUGES,
+        pressureUnit: 'MPa',
+        renderActions: (g) => h('span', null, `act-${g.id}`),
+      }),
+    );
     expect(html.match(/<tr/g)).toHaveLength(FIXTURE_GAUGES.length + 1);
-    expect(html).not.toContain("aria-sort"); // plan order until a header is chosen
+    expect(html).not.toContain('aria-sort'); // plan order until a header is chosen
     expect(html.match(/<th scope="col"[^>]*><button/g)).toHaveLength(10);
-    const sorted = renderToString(h(GaugeTable, { gauges: FIXTURE_GAUGES, pressureUnit: "MPa", initialSort: { key: "ratio", dir: "descending" } }));
+    const sorted = renderToString(
+      h(GaugeTable, { gauges: FIXTURE_GAUGES, pressureUnit: 'MPa', initialSort: { key: 'ratio', dir: 'descending' } }),
+    );
     expect(sorted).toContain('aria-sort="descending"');
     expect(sorted.indexOf('data-gauge="H3"')).toBeLessThan(sorted.indexOf('data-gauge="H1"'));
     expect(html).toContain('data-flag="reversed-sign"');

@@ -6,7 +6,11 @@ import type { Series } from '../../lib/reduction/types';
 export const SERIES_POINTS = 1500;
 
 /** `${seriesUrl}?points=1500`, or with `from` and `to` (seconds) for a zoomed window. */
-export function buildSeriesUrl(seriesUrl: string, range: { from: number; to: number } | null, points = SERIES_POINTS): string {
+export function buildSeriesUrl(
+  seriesUrl: string,
+  range: { from: number; to: number } | null,
+  points = SERIES_POINTS,
+): string {
   const params = new URLSearchParams();
   if (range) {
     params.set('from', String(roundTime(range.from)));
@@ -28,7 +32,10 @@ export interface PlotSeriesSpec {
 }
 
 /** Arrays in uPlot's order: t, then pressure max/min (if present), then each chosen channel max/min. */
-export function buildTimeHistoryData(series: Series, chosen: readonly string[]): { data: uPlot.AlignedData; specs: PlotSeriesSpec[] } {
+export function buildTimeHistoryData(
+  series: Series,
+  chosen: readonly string[],
+): { data: uPlot.AlignedData; specs: PlotSeriesSpec[] } {
   const specs: PlotSeriesSpec[] = [];
   const arrays: number[][] = [series.t];
   const add = (channel: string, scale: 'p' | 'y') => {
@@ -57,7 +64,11 @@ export function scaleWindow(current: [number, number], full: [number, number], f
  * Axis ranges that put zero strain and zero pressure at the same height, so a reader does not
  * take the pressure trace's baseline for a strain offset. Strain is padded by 5 %.
  */
-export function alignZeroRanges(strainMin: number, strainMax: number, pressureMax: number): { strain: [number, number]; pressure: [number, number] } {
+export function alignZeroRanges(
+  strainMin: number,
+  strainMax: number,
+  pressureMax: number,
+): { strain: [number, number]; pressure: [number, number] } {
   const lo0 = Math.min(0, strainMin);
   const hi0 = Math.max(0, strainMax);
   const pad = (hi0 - lo0) * 0.05 || 1;
@@ -70,13 +81,22 @@ export function alignZeroRanges(strainMin: number, strainMax: number, pressureMa
 
 /** Extent of the chosen strain channels and of pressure in a plot's arrays. */
 export function measureExtents(data: uPlot.AlignedData, specs: readonly PlotSeriesSpec[]) {
-  let sMin = Infinity, sMax = -Infinity, pMax = -Infinity;
+  let sMin = Infinity,
+    sMax = -Infinity,
+    pMax = -Infinity;
   specs.forEach((s, k) => {
     for (const v of data[k + 1] as (number | null)[]) {
       if (v === null || !Number.isFinite(v)) continue;
       if (s.scale === 'p') pMax = Math.max(pMax, v);
-      else { sMin = Math.min(sMin, v); sMax = Math.max(sMax, v); }
+      else {
+        sMin = Math.min(sMin, v);
+        sMax = Math.max(sMax, v);
+      }
     }
   });
-  return { strainMin: Number.isFinite(sMin) ? sMin : 0, strainMax: Number.isFinite(sMax) ? sMax : 0, pressureMax: Number.isFinite(pMax) ? pMax : 0 };
+  return {
+    strainMin: Number.isFinite(sMin) ? sMin : 0,
+    strainMax: Number.isFinite(sMax) ? sMax : 0,
+    pressureMax: Number.isFinite(pMax) ? pMax : 0,
+  };
 }

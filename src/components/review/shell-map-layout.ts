@@ -26,12 +26,27 @@ export interface ShellMapGauge {
 
 /** The plan fields the map needs (a parsed plan fits). */
 export interface ShellMapPlan {
-  vessel: { shape: 'cylinder' | 'sphere'; insideDiameter: number; wallThickness: number; length?: number; features?: ShellMapFeature[] };
+  vessel: {
+    shape: 'cylinder' | 'sphere';
+    insideDiameter: number;
+    wallThickness: number;
+    length?: number;
+    features?: ShellMapFeature[];
+  };
   gauges: ShellMapGauge[];
 }
 
-export interface RingZone { x0: number; x1: number; label: string }
-export interface PointZone { x: number; arc: number; radius: number; label: string }
+export interface RingZone {
+  x0: number;
+  x1: number;
+  label: string;
+}
+export interface PointZone {
+  x: number;
+  arc: number;
+  radius: number;
+  label: string;
+}
 
 export interface ShellMapLayout {
   length: number;
@@ -58,9 +73,12 @@ export function layoutShellMap(plan: ShellMapPlan, edgeZoneDistance: number): Sh
   if (v.shape !== 'cylinder' || !v.length || v.length <= 0) return null;
   const length = v.length;
   const circumference = Math.PI * (v.insideDiameter + 2 * v.wallThickness);
-  const arcOf = (clockDeg: number) => (((clockDeg % 360) + 360) % 360 / 360) * circumference;
+  const arcOf = (clockDeg: number) => ((((clockDeg % 360) + 360) % 360) / 360) * circumference;
   const ez = Math.max(0, edgeZoneDistance);
-  const seams = [{ x: 0, label: 'head seam' }, { x: length, label: 'head seam' }];
+  const seams = [
+    { x: 0, label: 'head seam' },
+    { x: length, label: 'head seam' },
+  ];
   const ringZones: RingZone[] = seams.map((s) => ({ x0: s.x - ez, x1: s.x + ez, label: 'edge zone' }));
   const pointZones: PointZone[] = [];
   const features = (v.features ?? []).map((f, i) => {
@@ -80,9 +98,16 @@ export function layoutShellMap(plan: ShellMapPlan, edgeZoneDistance: number): Sh
     else placed.push({ gauge: g, x: g.axialPosition, arc: arcOf(g.clockDeg) });
   }
   return {
-    length, circumference, seams,
-    ringZones: ringZones.map((z) => ({ ...z, x0: Math.max(0, z.x0), x1: Math.min(length, z.x1) })).filter((z) => z.x1 > z.x0),
-    pointZones, features, placed, unplaced,
+    length,
+    circumference,
+    seams,
+    ringZones: ringZones
+      .map((z) => ({ ...z, x0: Math.max(0, z.x0), x1: Math.min(length, z.x1) }))
+      .filter((z) => z.x1 > z.x0),
+    pointZones,
+    features,
+    placed,
+    unplaced,
   };
 }
 
@@ -95,14 +120,24 @@ export function niceStep(span: number, target = 6): number {
 }
 
 /** A plan gauge's outcome: its own result, or for a rosette the worst of its grids `{id}/A…C`. */
-export function resolveGaugeOutcome(gaugeId: string, results: Record<string, { outcome: GaugeOutcome } | undefined>): GaugeOutcome {
+export function resolveGaugeOutcome(
+  gaugeId: string,
+  results: Record<string, { outcome: GaugeOutcome } | undefined>,
+): GaugeOutcome {
   const own = results[gaugeId];
   if (own) return own.outcome;
-  const grids = Object.keys(results).filter((k) => k.startsWith(`${gaugeId}/`)).map((k) => results[k]!.outcome);
+  const grids = Object.keys(results)
+    .filter((k) => k.startsWith(`${gaugeId}/`))
+    .map((k) => results[k]!.outcome);
   return grids.length > 0 ? combineOutcomes(grids) : 'not-compared';
 }
 
-export interface TopLabel { text: string; x: number; anchor: 'start' | 'middle' | 'end'; row: number }
+export interface TopLabel {
+  text: string;
+  x: number;
+  anchor: 'start' | 'middle' | 'end';
+  row: number;
+}
 
 /** Put labels above the map in rows so that none overlaps (width estimated at 7 units a character). */
 export function stackTopLabels(labels: Omit<TopLabel, 'row'>[], charWidth = 7): TopLabel[] {
@@ -112,11 +147,13 @@ export function stackTopLabels(labels: Omit<TopLabel, 'row'>[], charWidth = 7): 
     return [x0, x0 + w] as const;
   };
   const rowsEnd: number[] = [];
-  return [...labels].sort((a, b) => span(a)[0] - span(b)[0]).map((l) => {
-    const [x0, x1] = span(l);
-    let row = rowsEnd.findIndex((end) => end + 6 <= x0);
-    if (row < 0) row = rowsEnd.length;
-    rowsEnd[row] = x1;
-    return { ...l, row };
-  });
+  return [...labels]
+    .sort((a, b) => span(a)[0] - span(b)[0])
+    .map((l) => {
+      const [x0, x1] = span(l);
+      let row = rowsEnd.findIndex((end) => end + 6 <= x0);
+      if (row < 0) row = rowsEnd.length;
+      rowsEnd[row] = x1;
+      return { ...l, row };
+    });
 }

@@ -23,7 +23,10 @@ export function pressureAxisMax(testPressure: number, pressures: readonly number
 
 export function buildStrainPlotData(gauge: GaugeResult, testPressure: number, slopeBand: number): StrainPlotData {
   const points = [...gauge.points].sort((a, b) => a.pressure - b.pressure);
-  const xMax = pressureAxisMax(testPressure, points.map((p) => p.pressure));
+  const xMax = pressureAxisMax(
+    testPressure,
+    points.map((p) => p.pressure),
+  );
   const x: number[] = [0];
   const loading: (number | null)[] = [null];
   const unloading: (number | null)[] = [null];

@@ -22,7 +22,13 @@ export function buildTimeHistoryOptions(opts: {
   const bands: uPlot.Band[] = [];
   opts.specs.forEach((s, k) => {
     const color = s.channel === 'pressure' ? CHART_COLORS.ink : channelColor(opts.channels, s.channel);
-    series.push({ label: `${s.channel} ${s.edge}`, scale: s.scale, stroke: color, width: s.channel === 'pressure' ? 2 : 1.25, points: { show: false } });
+    series.push({
+      label: `${s.channel} ${s.edge}`,
+      scale: s.scale,
+      stroke: color,
+      width: s.channel === 'pressure' ? 2 : 1.25,
+      points: { show: false },
+    });
     if (s.edge === 'max') bands.push({ series: [k + 1, k + 2], fill: `${color}33` });
   });
   const hasStrain = opts.specs.some((s) => s.scale === 'y');
@@ -30,23 +36,36 @@ export function buildTimeHistoryOptions(opts: {
   const ranges = alignZeroRanges(ext.strainMin, ext.strainMax, ext.pressureMax);
   const axes: uPlot.Axis[] = [styleAxis(opts.timeIsIndex ? 'Sample' : 'Time (s)')];
   if (hasStrain) axes.push(styleAxis('Strain (µε)', { scale: 'y', size: 64 }));
-  axes.push(styleAxis(`Pressure (${opts.pressureUnit})`, { scale: 'p', side: 1, size: 64, ...(hasStrain ? { grid: { show: false } } : {}) }));
+  axes.push(
+    styleAxis(`Pressure (${opts.pressureUnit})`, {
+      scale: 'p',
+      side: 1,
+      size: 64,
+      ...(hasStrain ? { grid: { show: false } } : {}),
+    }),
+  );
   return {
     legend: { show: false },
     cursor: { drag: { x: true, y: false, setScale: false }, points: { show: false } },
-    scales: { x: { time: false }, y: { range: () => (hasStrain ? ranges.strain : [0, 1]) }, p: { range: () => (hasStrain ? ranges.pressure : [0, ext.pressureMax > 0 ? ext.pressureMax * 1.08 : 1]) } },
+    scales: {
+      x: { time: false },
+      y: { range: () => (hasStrain ? ranges.strain : [0, 1]) },
+      p: { range: () => (hasStrain ? ranges.pressure : [0, ext.pressureMax > 0 ? ext.pressureMax * 1.08 : 1]) },
+    },
     axes,
     series,
     bands,
     hooks: {
-      setSelect: [(u) => {
-        const { left, width } = u.select;
-        if (width < 4) return;
-        const t0 = u.posToVal(left, 'x');
-        const t1 = u.posToVal(left + width, 'x');
-        u.setSelect({ left: 0, top: 0, width: 0, height: 0 }, false);
-        opts.onSelectWindow(t0, t1);
-      }],
+      setSelect: [
+        (u) => {
+          const { left, width } = u.select;
+          if (width < 4) return;
+          const t0 = u.posToVal(left, 'x');
+          const t1 = u.posToVal(left + width, 'x');
+          u.setSelect({ left: 0, top: 0, width: 0, height: 0 }, false);
+          opts.onSelectWindow(t0, t1);
+        },
+      ],
     },
   };
 }

@@ -16,18 +16,27 @@ export default function TestStatusSteps({ testId, initial }: { testId: number; i
   useEffect(() => {
     const onChange = (e: Event) => {
       if ((e as CustomEvent<{ testId: number }>).detail?.testId !== testId) return;
-      void api<{ status: Status }>(`/api/tests/${testId}`).then((t) => setStatus(t.status)).catch(() => undefined);
+      void api<{ status: Status }>(`/api/tests/${testId}`)
+        .then((t) => setStatus(t.status))
+        .catch(() => undefined);
     };
     window.addEventListener(EVENT, onChange);
     return () => window.removeEventListener(EVENT, onChange);
   }, [testId]);
   const at = STEPS.indexOf(status);
   return (
-    <ol className="mt-3 flex flex-wrap items-center gap-1 text-xs font-semibold uppercase tracking-wide" aria-label="Test status">
+    <ol
+      className="mt-3 flex flex-wrap items-center gap-1 text-xs font-semibold tracking-wide uppercase"
+      aria-label="Test status"
+    >
       {STEPS.map((s, i) => (
-        <li key={s} aria-current={i === at ? 'step' : undefined}
-          className={`flex items-center gap-1 rounded px-2 py-1 ${i < at ? 'bg-ink-100 text-ink-800' : i === at ? 'bg-ink-800 text-white' : 'border border-dashed border-ink-800/30 text-ink-700'}`}>
-          <span aria-hidden="true">{i < at ? '✓' : i === at ? '●' : '○'}</span>{s}
+        <li
+          key={s}
+          aria-current={i === at ? 'step' : undefined}
+          className={`flex items-center gap-1 rounded px-2 py-1 ${i < at ? 'bg-ink-100 text-ink-800' : i === at ? 'bg-ink-800 text-white' : 'border border-dashed border-ink-800/30 text-ink-700'}`}
+        >
+          <span aria-hidden="true">{i < at ? '✓' : i === at ? '●' : '○'}</span>
+          {s}
         </li>
       ))}
     </ol>

@@ -1,9 +1,18 @@
 // Upload with progress through XMLHttpRequest (fetch has no upload progress in browsers).
 
-export interface UploadProgress { sent: number; total: number; rateBytesPerSecond: number; secondsLeft: number | null }
+export interface UploadProgress {
+  sent: number;
+  total: number;
+  rateBytesPerSecond: number;
+  secondsLeft: number | null;
+}
 
 /** POST a file as multipart field `file`; resolves to {status, body}. */
-export function uploadWithProgress(url: string, file: File, onProgress: (p: UploadProgress) => void): Promise<{ status: number; body: any }> {
+export function uploadWithProgress(
+  url: string,
+  file: File,
+  onProgress: (p: UploadProgress) => void,
+): Promise<{ status: number; body: any }> {
   return new Promise((resolve, reject) => {
     const xhr = new XMLHttpRequest();
     const started = performance.now();
@@ -13,7 +22,12 @@ export function uploadWithProgress(url: string, file: File, onProgress: (p: Uplo
       const seconds = (performance.now() - started) / 1000;
       const rate = seconds > 0 ? e.loaded / seconds : 0;
       const total = e.lengthComputable ? e.total : file.size;
-      onProgress({ sent: e.loaded, total, rateBytesPerSecond: rate, secondsLeft: rate > 0 ? (total - e.loaded) / rate : null });
+      onProgress({
+        sent: e.loaded,
+        total,
+        rateBytesPerSecond: rate,
+        secondsLeft: rate > 0 ? (total - e.loaded) / rate : null,
+      });
     };
     xhr.onload = () => resolve({ status: xhr.status, body: xhr.response });
     xhr.onerror = () => reject(new Error('The upload was interrupted (network error). Nothing was stored; try again.'));

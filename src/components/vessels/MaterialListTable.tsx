@@ -8,15 +8,36 @@ export default function MaterialListTable({ materials, units }: { materials: Mat
     <div className="overflow-x-auto">
       <table className="table-base">
         <caption className="sr-only">Materials</caption>
-        <thead><tr><th scope="col">Name</th><th scope="col" className="text-right!">Elastic modulus E</th><th scope="col" className="text-right!">Poisson's ratio ν</th><th scope="col" className="text-right!">Yield strength</th></tr></thead>
+        <thead>
+          <tr>
+            <th scope="col">Name</th>
+            <th scope="col" className="text-right!">
+              Elastic modulus E
+            </th>
+            <th scope="col" className="text-right!">
+              Poisson's ratio ν
+            </th>
+            <th scope="col" className="text-right!">
+              Yield strength
+            </th>
+          </tr>
+        </thead>
         <tbody>
-          {materials.length === 0 && <tr><td colSpan={4} className="text-ink-700">No materials yet.</td></tr>}
+          {materials.length === 0 && (
+            <tr>
+              <td colSpan={4} className="text-ink-700">
+                No materials yet.
+              </td>
+            </tr>
+          )}
           {materials.map((m) => (
             <tr key={m.id}>
-              <th scope="row" className="bg-transparent! font-medium">{m.name}</th>
-              <td className="num whitespace-nowrap text-right">{formatStress(m.elasticModulusMPa, units)}</td>
+              <th scope="row" className="bg-transparent! font-medium">
+                {m.name}
+              </th>
+              <td className="num text-right whitespace-nowrap">{formatStress(m.elasticModulusMPa, units)}</td>
               <td className="num text-right">{formatFixed(m.poissonRatio, 3)}</td>
-              <td className="num whitespace-nowrap text-right">{formatStress(m.yieldStrengthMPa, units)}</td>
+              <td className="num text-right whitespace-nowrap">{formatStress(m.yieldStrengthMPa, units)}</td>
             </tr>
           ))}
         </tbody>

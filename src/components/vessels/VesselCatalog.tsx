@@ -18,7 +18,12 @@ export interface VesselCatalogProps {
 }
 
 /** The vessels and materials pages' lists, an SI / US toggle, and the create forms for engineers. */
-export default function VesselCatalog({ vessels, materials: initialMaterials, testCounts, canEdit }: VesselCatalogProps) {
+export default function VesselCatalog({
+  vessels,
+  materials: initialMaterials,
+  testCounts,
+  canEdit,
+}: VesselCatalogProps) {
   const [units, setUnits] = useState<PlanUnits>('SI');
   const [materials, setMaterials] = useState(initialMaterials);
   const [notice, setNotice] = useState<string | null>(null);
@@ -30,25 +35,48 @@ export default function VesselCatalog({ vessels, materials: initialMaterials, te
   return (
     <div className="space-y-6">
       <div className="flex flex-wrap items-center justify-between gap-3">
-        <UnitSystemToggle name="catalog-units" value={units} onChange={setUnits} hint="Values are stored in SI and converted exactly for display." />
-        {notice && <p role="status" className="text-sm font-medium text-ok">{notice}</p>}
+        <UnitSystemToggle
+          name="catalog-units"
+          value={units}
+          onChange={setUnits}
+          hint="Values are stored in SI and converted exactly for display."
+        />
+        {notice && (
+          <p role="status" className="text-sm font-medium text-ok">
+            {notice}
+          </p>
+        )}
       </div>
       <section aria-labelledby="vessels-h" className="card">
-        <h2 id="vessels-h" className="mb-3 text-lg font-semibold">Vessels</h2>
+        <h2 id="vessels-h" className="mb-3 text-lg font-semibold">
+          Vessels
+        </h2>
         <VesselListTable vessels={vessels} testCounts={testCounts} units={units} />
       </section>
       <section aria-labelledby="materials-h" className="card">
-        <h2 id="materials-h" className="mb-3 text-lg font-semibold">Materials</h2>
+        <h2 id="materials-h" className="mb-3 text-lg font-semibold">
+          Materials
+        </h2>
         <MaterialListTable materials={materials} units={units} />
       </section>
       {canEdit && (
         <div className="grid items-start gap-6 xl:grid-cols-[minmax(0,2fr)_minmax(0,1fr)]">
           <section aria-labelledby="new-vessel-h" className="card">
-            <h2 id="new-vessel-h" className="mb-3 text-lg font-semibold">New vessel</h2>
-            <VesselForm idPrefix="new-vessel" units={units} materials={materials} vessel={null} onSaved={(id) => window.location.assign(`/vessels/${id}`)} />
+            <h2 id="new-vessel-h" className="mb-3 text-lg font-semibold">
+              New vessel
+            </h2>
+            <VesselForm
+              idPrefix="new-vessel"
+              units={units}
+              materials={materials}
+              vessel={null}
+              onSaved={(id) => window.location.assign(`/vessels/${id}`)}
+            />
           </section>
           <section aria-labelledby="new-material-h" className="card">
-            <h2 id="new-material-h" className="mb-3 text-lg font-semibold">New material</h2>
+            <h2 id="new-material-h" className="mb-3 text-lg font-semibold">
+              New material
+            </h2>
             <MaterialForm idPrefix="new-material" units={units} onSaved={(id) => void materialSaved(id)} />
           </section>
         </div>

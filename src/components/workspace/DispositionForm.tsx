@@ -2,7 +2,12 @@ import { useState, type FormEvent } from 'react';
 import { api } from '../api';
 import type { RecordDisposition } from './record-types';
 
-interface Props { testId: number; gaugeId: string; current?: RecordDisposition; onSaved: () => void }
+interface Props {
+  testId: number;
+  gaugeId: string;
+  current?: RecordDisposition;
+  onSaved: () => void;
+}
 const OUTCOMES = [
   { value: 'accepted', label: 'Accept', help: 'the deviation is explained and acceptable' },
   { value: 'excluded', label: 'Exclude', help: 'the gauge is unreliable and is left out of the comparison' },
@@ -19,12 +24,23 @@ export default function DispositionForm({ testId, gaugeId, current, onSaved }: P
     e.preventDefault();
     const data = new FormData(e.currentTarget);
     const reason = String(data.get('reason') ?? '').trim();
-    if (reason.length < 3) { setError('Give the reason for this disposition (a few words at least).'); return; }
-    setBusy(true); setError(null);
+    if (reason.length < 3) {
+      setError('Give the reason for this disposition (a few words at least).');
+      return;
+    }
+    setBusy(true);
+    setError(null);
     try {
-      await api(`/api/tests/${testId}/dispositions`, { method: 'POST', jsonBody: { gaugeId, outcome: data.get('outcome'), reason } });
+      await api(`/api/tests/${testId}/dispositions`, {
+        method: 'POST',
+        jsonBody: { gaugeId, outcome: data.get('outcome'), reason },
+      });
       onSaved();
-    } catch (err) { setError((err as Error).message); } finally { setBusy(false); }
+    } catch (err) {
+      setError((err as Error).message);
+    } finally {
+      setBusy(false);
+    }
   }
 
   return (
@@ -34,19 +50,43 @@ export default function DispositionForm({ testId, gaugeId, current, onSaved }: P
         <div className="space-y-1">
           {OUTCOMES.map((o) => (
             <label key={o.value} className="flex items-start gap-2 text-sm">
-              <input type="radio" name="outcome" value={o.value} defaultChecked={(current?.outcome ?? 'accepted') === o.value} className="mt-1" />
-              <span><strong>{o.label}</strong> — {o.help}</span>
+              <input
+                type="radio"
+                name="outcome"
+                value={o.value}
+                defaultChecked={(current?.outcome ?? 'accepted') === o.value}
+                className="mt-1"
+              />
+              <span>
+                <strong>{o.label}</strong> — {o.help}
+              </span>
             </label>
           ))}
         </div>
       </fieldset>
       <div>
-        <label htmlFor={ids.reason} className="label">Reason (required)</label>
-        <textarea id={ids.reason} name="reason" rows={3} className="field" defaultValue={current?.reason ?? ''} aria-invalid={!!error} aria-describedby={error ? ids.err : undefined}
-          placeholder="e.g. UT at the gauge reads 13.1 mm against 12 mm nominal; the effective thickness agrees" />
-        {error && <p id={ids.err} role="alert" className="error-text">{error}</p>}
+        <label htmlFor={ids.reason} className="label">
+          Reason (required)
+        </label>
+        <textarea
+          id={ids.reason}
+          name="reason"
+          rows={3}
+          className="field"
+          defaultValue={current?.reason ?? ''}
+          aria-invalid={!!error}
+          aria-describedby={error ? ids.err : undefined}
+          placeholder="e.g. UT at the gauge reads 13.1 mm against 12 mm nominal; the effective thickness agrees"
+        />
+        {error && (
+          <p id={ids.err} role="alert" className="error-text">
+            {error}
+          </p>
+        )}
       </div>
-      <button type="submit" className="btn-primary" disabled={busy}>{busy ? 'Saving…' : current ? 'Record a new disposition' : 'Record disposition'}</button>
+      <button type="submit" className="btn-primary" disabled={busy}>
+        {busy ? 'Saving…' : current ? 'Record a new disposition' : 'Record disposition'}
+      </button>
     </form>
   );
 }

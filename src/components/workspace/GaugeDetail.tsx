@@ -6,44 +6,117 @@ import DispositionForm from './DispositionForm';
 import type { RecordDisposition, RecordGauge } from './record-types';
 
 interface Props {
-  gauge: RecordGauge; testId: number; testPressure: number; slopeBand: number; pressureUnit: 'MPa' | 'psi'; lengthUnit: string;
-  nominalThickness: number; disposition?: RecordDisposition; canDisposition: boolean; onChanged: () => void;
+  gauge: RecordGauge;
+  testId: number;
+  testPressure: number;
+  slopeBand: number;
+  pressureUnit: 'MPa' | 'psi';
+  lengthUnit: string;
+  nominalThickness: number;
+  disposition?: RecordDisposition;
+  canDisposition: boolean;
+  onChanged: () => void;
 }
-const fmt = (v: number | null | undefined, d = 2) => (v === null || v === undefined || !Number.isFinite(v) ? '—' : v.toFixed(d));
+const fmt = (v: number | null | undefined, d = 2) =>
+  v === null || v === undefined || !Number.isFinite(v) ? '—' : v.toFixed(d);
 
 /** One gauge: its strain–pressure plot, numbers, flags explained, disposition. */
-export default function GaugeDetail({ gauge: g, testId, testPressure, slopeBand, pressureUnit, lengthUnit, nominalThickness, disposition, canDisposition, onChanged }: Props) {
+export default function GaugeDetail({
+  gauge: g,
+  testId,
+  testPressure,
+  slopeBand,
+  pressureUnit,
+  lengthUnit,
+  nominalThickness,
+  disposition,
+  canDisposition,
+  onChanged,
+}: Props) {
   return (
     <div className="space-y-4" id={`gauge-${g.id}`}>
       <div className="flex flex-wrap items-center gap-3">
         <h3 className="text-xl font-bold">{g.id}</h3>
-        <span className="text-sm text-ink-700">channel {g.channel} · {g.angleDeg}° from the vessel axis</span>
+        <span className="text-sm text-ink-700">
+          channel {g.channel} · {g.angleDeg}° from the vessel axis
+        </span>
         <OutcomeBadge outcome={g.outcome} />
       </div>
       <StrainPressurePlot gauge={g} testPressure={testPressure} slopeBand={slopeBand} pressureUnit={pressureUnit} />
       <dl className="grid grid-cols-2 gap-x-6 gap-y-1 text-sm sm:grid-cols-4">
-        <div><dt className="text-ink-700">Predicted µε/{pressureUnit}</dt><dd className="num font-semibold">{fmt(g.predictedSlope)}</dd></div>
-        <div><dt className="text-ink-700">Measured µε/{pressureUnit}</dt><dd className="num font-semibold">{fmt(g.measuredSlope)}</dd></div>
-        <div><dt className="text-ink-700">Ratio (band ±{Math.round(slopeBand * 100)} %)</dt><dd className="num font-semibold">{fmt(g.ratio, 3)}</dd></div>
-        <div><dt className="text-ink-700">95 % interval</dt><dd className="num">{g.slopeCI95 ? `${fmt(g.slopeCI95[0])} – ${fmt(g.slopeCI95[1])}` : '—'}</dd></div>
-        <div><dt className="text-ink-700">R² loading</dt><dd className="num">{fmt(g.rSquared, 4)}</dd></div>
-        <div><dt className="text-ink-700">Hysteresis</dt><dd className="num">{g.hysteresis === null ? '—' : `${(g.hysteresis * 100).toFixed(1)} %`}</dd></div>
-        <div><dt className="text-ink-700">Zero shift</dt><dd className="num">{g.zeroShift === null ? '—' : `${fmt(g.zeroShift, 1)} µε`}</dd></div>
-        <div><dt className="text-ink-700">Effective wall</dt><dd className="num">{g.effectiveThickness === null ? '—' : `${fmt(g.effectiveThickness)} ${lengthUnit}`} <span className="text-ink-700">(nominal {nominalThickness})</span></dd></div>
+        <div>
+          <dt className="text-ink-700">Predicted µε/{pressureUnit}</dt>
+          <dd className="num font-semibold">{fmt(g.predictedSlope)}</dd>
+        </div>
+        <div>
+          <dt className="text-ink-700">Measured µε/{pressureUnit}</dt>
+          <dd className="num font-semibold">{fmt(g.measuredSlope)}</dd>
+        </div>
+        <div>
+          <dt className="text-ink-700">Ratio (band ±{Math.round(slopeBand * 100)} %)</dt>
+          <dd className="num font-semibold">{fmt(g.ratio, 3)}</dd>
+        </div>
+        <div>
+          <dt className="text-ink-700">95 % interval</dt>
+          <dd className="num">{g.slopeCI95 ? `${fmt(g.slopeCI95[0])} – ${fmt(g.slopeCI95[1])}` : '—'}</dd>
+        </div>
+        <div>
+          <dt className="text-ink-700">R² loading</dt>
+          <dd className="num">{fmt(g.rSquared, 4)}</dd>
+        </div>
+        <div>
+          <dt className="text-ink-700">Hysteresis</dt>
+          <dd className="num">{g.hysteresis === null ? '—' : `${(g.hysteresis * 100).toFixed(1)} %`}</dd>
+        </div>
+        <div>
+          <dt className="text-ink-700">Zero shift</dt>
+          <dd className="num">{g.zeroShift === null ? '—' : `${fmt(g.zeroShift, 1)} µε`}</dd>
+        </div>
+        <div>
+          <dt className="text-ink-700">Effective wall</dt>
+          <dd className="num">
+            {g.effectiveThickness === null ? '—' : `${fmt(g.effectiveThickness)} ${lengthUnit}`}{' '}
+            <span className="text-ink-700">(nominal {nominalThickness})</span>
+          </dd>
+        </div>
       </dl>
       {g.flags.length > 0 && (
         <div className="space-y-2">
           <h4 className="font-semibold">Flags</h4>
           <ul className="space-y-2">
             {g.flags.map((f) => (
-              <li key={f} className="text-sm"><FlagChip code={f} linkToGlossary /> <span className="ml-1">{FLAG_GLOSSARY[f].meaning}</span> <span className="text-ink-700">Usual causes: {FLAG_GLOSSARY[f].causes.join("; ")}.</span></li>
+              <li key={f} className="text-sm">
+                <FlagChip code={f} linkToGlossary /> <span className="ml-1">{FLAG_GLOSSARY[f].meaning}</span>{' '}
+                <span className="text-ink-700">Usual causes: {FLAG_GLOSSARY[f].causes.join('; ')}.</span>
+              </li>
             ))}
           </ul>
         </div>
       )}
-      {g.notes.length > 0 && <ul className="list-disc pl-5 text-xs text-ink-700">{g.notes.map((n, i) => <li key={i}>{n}</li>)}</ul>}
-      {disposition && <p className="rounded-md bg-ink-50 p-2 text-sm"><strong>Disposition: {disposition.outcome}</strong> — {disposition.reason} <span className="text-ink-700">({disposition.by}, {new Date(disposition.at).toLocaleString('en-GB')})</span></p>}
-      {canDisposition && <DispositionForm key={g.id + (disposition?.at ?? '')} testId={testId} gaugeId={g.id} current={disposition} onSaved={onChanged} />}
+      {g.notes.length > 0 && (
+        <ul className="list-disc pl-5 text-xs text-ink-700">
+          {g.notes.map((n, i) => (
+            <li key={i}>{n}</li>
+          ))}
+        </ul>
+      )}
+      {disposition && (
+        <p className="rounded-md bg-ink-50 p-2 text-sm">
+          <strong>Disposition: {disposition.outcome}</strong> — {disposition.reason}{' '}
+          <span className="text-ink-700">
+            ({disposition.by}, {new Date(disposition.at).toLocaleString('en-GB')})
+          </span>
+        </p>
+      )}
+      {canDisposition && (
+        <DispositionForm
+          key={g.id + (disposition?.at ?? '')}
+          testId={testId}
+          gaugeId={g.id}
+          current={disposition}
+          onSaved={onChanged}
+        />
+      )}
     </div>
   );
 }

@@ -12,10 +12,19 @@ export interface AuditInput {
 
 /** Append one event. The table has no update or delete path anywhere in the code. */
 export async function appendAuditEvent(db: Db, e: AuditInput): Promise<void> {
-  await db.insert(auditEvents).values({ userId: e.userId ?? null, actor: e.actor, action: e.action, testId: e.testId ?? null, details: e.details ?? {} });
+  await db.insert(auditEvents).values({
+    userId: e.userId ?? null,
+    actor: e.actor,
+    action: e.action,
+    testId: e.testId ?? null,
+    details: e.details ?? {},
+  });
 }
 
-export function listAuditEvents(db: Db, f: { testId?: number; action?: string; actor?: string; from?: Date; to?: Date; limit?: number; offset?: number }) {
+export function listAuditEvents(
+  db: Db,
+  f: { testId?: number; action?: string; actor?: string; from?: Date; to?: Date; limit?: number; offset?: number },
+) {
   const where: SQL[] = [];
   if (f.testId) where.push(eq(auditEvents.testId, f.testId));
   if (f.action) where.push(eq(auditEvents.action, f.action));

@@ -2,7 +2,8 @@ import { and, asc, eq } from 'drizzle-orm';
 import type { Db } from '../client.server';
 import { logFiles, type NewLogFile } from '../schema';
 
-export const listLogs = (db: Db, testId: number) => db.select().from(logFiles).where(eq(logFiles.testId, testId)).orderBy(asc(logFiles.id));
+export const listLogs = (db: Db, testId: number) =>
+  db.select().from(logFiles).where(eq(logFiles.testId, testId)).orderBy(asc(logFiles.id));
 
 export const findLogBySha = (db: Db, testId: number, sha256: string) =>
   db.query.logFiles.findFirst({ where: and(eq(logFiles.testId, testId), eq(logFiles.sha256, sha256)) });

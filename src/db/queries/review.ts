@@ -2,7 +2,17 @@ import { and, asc, desc, eq, isNull, lte, sql } from 'drizzle-orm';
 import type { Db } from '../client.server';
 import { dispositions, outbox, shareLinks, signatures, users, type DispositionOutcome } from '../schema';
 
-export async function insertDisposition(db: Db, d: { testId: number; reductionId: number; gaugeId: string; outcome: DispositionOutcome; reason: string; userId: number }) {
+export async function insertDisposition(
+  db: Db,
+  d: {
+    testId: number;
+    reductionId: number;
+    gaugeId: string;
+    outcome: DispositionOutcome;
+    reason: string;
+    userId: number;
+  },
+) {
   const [row] = await db.insert(dispositions).values(d).$returningId();
   return row!.id;
 }
@@ -10,58 +20,109 @@ export async function insertDisposition(db: Db, d: { testId: number; reductionId
 /** Every disposition of a reduction, oldest first, with who made it (the latest per gauge counts). */
 export const listDispositions = (db: Db, reductionId: number) =>
   db
-    .select({ id: dispositions.id, gaugeId: dispositions.gaugeId, outcome: dispositions.outcome, reason: dispositions.reason, createdAt: dispositions.createdAt, userId: dispositions.userId, by: users.name, byEmail: users.email })
+    .select({
+      id: dispositions.id,
+      gaugeId: dispositions.gaugeId,
+      outcome: dispositions.outcome,
+      reason: dispositions.reason,
+      createdAt: dispositions.createdAt,
+      userId: dispositions.userId,
+      by: users.name,
+      byEmail: users.email,
+    })
     .from(dispositions)
     .innerJoin(users, eq(users.id, dispositions.userId))
     .where(eq(dispositions.reductionId, reductionId))
     .orderBy(asc(dispositions.id));
 
-export async function insertSignature(db: Db, s: { testId: number; reductionId: number; kind: 'review' | 'release'; userId: number; statement: string }) {
+export async function insertSignature(
+  db: Db,
+  s: { testId: number; reductionId: number; kind: 'review' | 'release'; userId: number; statement: string },
+) {
   const [row] = await db.insert(signatures).values(s).$returningId();
   return row!.id;
 }
 
 export const listSignatures = (db: Db, testId: number) =>
   db
-    .select({ id: signatures.id, kind: signatures.kind, reductionId: signatures.reductionId, statement: signatures.statement, createdAt: signatures.createdAt, userId: signatures.userId, name: users.name, email: users.email })
+    .select({
+      id: signatures.id,
+      kind: signatures.kind,
+      reductionId: signatures.reductionId,
+      statement: signatures.statement,
+      createdAt: signatures.createdAt,
+      userId: signatures.userId,
+      name: users.name,
+      email: users.email,
+    })
     .from(signatures)
     .innerJoin(users, eq(users.id, signatures.userId))
     .where(eq(signatures.testId, testId))
     .orderBy(asc(signatures.id));
 
-export async function insertShareLink(db: Db, l: { testId: number; tokenHash: string; email: string | null; createdBy: number; expiresAt: Date }) {
+export async function insertShareLink(
+  db: Db,
+  l: { testId: number; tokenHash: string; email: string | null; createdBy: number; expiresAt: Date },
+) {
   const [row] = await db.insert(shareLinks).values(l).$returningId();
   return row!.id;
 }
 
-export const findShareLinkByHash = (db: Db, tokenHash: string) => db.query.shareLinks.findFirst({ where: eq(shareLinks.tokenHash, tokenHash) });
+export const findShareLinkByHash = (db: Db, tokenHash: string) =>
+  db.query.shareLinks.findFirst({ where: eq(shareLinks.tokenHash, tokenHash) });
 export const findShareLink = (db: Db, id: number) => db.query.shareLinks.findFirst({ where: eq(shareLinks.id, id) });
 
 export const listShareLinks = (db: Db, testId: number) =>
   db
-    .select({ id: shareLinks.id, email: shareLinks.email, createdAt: shareLinks.createdAt, expiresAt: shareLinks.expiresAt, revokedAt: shareLinks.revokedAt, lastUsedAt: shareLinks.lastUsedAt, useCount: shareLinks.useCount, createdBy: users.name })
+    .select({
+      id: shareLinks.id,
+      email: shareLinks.email,
+      createdAt: shareLinks.createdAt,
+      expiresAt: shareLinks.expiresAt,
+      revokedAt: shareLinks.revokedAt,
+      lastUsedAt: shareLinks.lastUsedAt,
+      useCount: shareLinks.useCount,
+      createdBy: users.name,
+    })
     .from(shareLinks)
     .innerJoin(users, eq(users.id, shareLinks.createdBy))
     .where(eq(shareLinks.testId, testId))
     .orderBy(desc(shareLinks.id));
 
 export async function revokeShareLink(db: Db, id: number) {
-  const [res] = await db.update(shareLinks).set({ revokedAt: new Date() }).where(and(eq(shareLinks.id, id), isNull(shareLinks.revokedAt)));
+  const [res] = await db
+    .update(shareLinks)
+    .set({ revokedAt: new Date() })
+    .where(and(eq(shareLinks.id, id), isNull(shareLinks.revokedAt)));
   return res.affectedRows > 0;
 }
 
 export async function touchShareLink(db: Db, id: number) {
-  await db.update(shareLinks).set({ lastUsedAt: new Date(), useCount: sql`${shareLinks.useCount} + 1` }).where(eq(shareLinks.id, id));
+  await db
+    .update(shareLinks)
+    .set({ lastUsedAt: new Date(), useCount: sql`${shareLinks.useCount} + 1` })
+    .where(eq(shareLinks.id, id));
 }
 
-export async function enqueueMail(db: Db, m: { toAddress: string; subject: string; textBody: string; testId?: number | null }) {
-  const [row] = await db.insert(outbox).values({ ...m, testId: m.testId ?? null }).$returningId();
+export async function enqueueMail(
+  db: Db,
+  m: { toAddress: string; subject: string; textBody: string; testId?: number | null },
+) {
+  const [row] = await db
+    .insert(outbox)
+    .values({ ...m, testId: m.testId ?? null })
+    .$returningId();
   return row!.id;
 }
 
 /** Messages due for (another) attempt, oldest first. */
 export const listDueMail = (db: Db, limit = 20) =>
-  db.select().from(outbox).where(and(eq(outbox.status, 'pending'), lte(outbox.nextAttemptAt, new Date()))).orderBy(asc(outbox.id)).limit(limit);
+  db
+    .select()
+    .from(outbox)
+    .where(and(eq(outbox.status, 'pending'), lte(outbox.nextAttemptAt, new Date())))
+    .orderBy(asc(outbox.id))
+    .limit(limit);
 
 /** Claim one message for sending (pending and due) by pushing its next attempt out; false if another sender has it. */
 export async function claimMail(db: Db, id: number, holdMs: number) {
@@ -77,7 +138,10 @@ export async function markMailSent(db: Db, id: number) {
 }
 
 export async function markMailRetry(db: Db, id: number, error: string, nextAttemptAt: Date, giveUp: boolean) {
-  await db.update(outbox).set({ lastError: error.slice(0, 2000), nextAttemptAt, status: giveUp ? 'failed' : 'pending' }).where(eq(outbox.id, id));
+  await db
+    .update(outbox)
+    .set({ lastError: error.slice(0, 2000), nextAttemptAt, status: giveUp ? 'failed' : 'pending' })
+    .where(eq(outbox.id, id));
 }
 
 export const listOutbox = (db: Db, limit = 200) => db.select().from(outbox).orderBy(desc(outbox.id)).limit(limit);

@@ -2,7 +2,12 @@ import { and, asc, count, desc, eq, inArray, type SQL } from 'drizzle-orm';
 import type { Db } from '../client.server';
 import { gauges, materials, notes, tests, users, vessels, type NewGauge, type TestStatus } from '../schema';
 
-export interface TestFilter { status?: TestStatus[]; vesselId?: number; limit: number; offset: number }
+export interface TestFilter {
+  status?: TestStatus[];
+  vesselId?: number;
+  limit: number;
+  offset: number;
+}
 
 export async function listTests(db: Db, f: TestFilter) {
   const where: SQL[] = [];
@@ -11,7 +16,19 @@ export async function listTests(db: Db, f: TestFilter) {
   const cond = where.length ? and(...where) : undefined;
   const [items, [total]] = await Promise.all([
     db
-      .select({ id: tests.id, name: tests.name, status: tests.status, verdict: tests.verdict, flaggedCount: tests.flaggedCount, vesselId: tests.vesselId, vesselTag: vessels.tag, vesselName: vessels.name, currentReductionId: tests.currentReductionId, createdAt: tests.createdAt, lastActivityAt: tests.lastActivityAt })
+      .select({
+        id: tests.id,
+        name: tests.name,
+        status: tests.status,
+        verdict: tests.verdict,
+        flaggedCount: tests.flaggedCount,
+        vesselId: tests.vesselId,
+        vesselTag: vessels.tag,
+        vesselName: vessels.name,
+        currentReductionId: tests.currentReductionId,
+        createdAt: tests.createdAt,
+        lastActivityAt: tests.lastActivityAt,
+      })
       .from(tests)
       .innerJoin(vessels, eq(vessels.id, tests.vesselId))
       .where(cond)
@@ -28,7 +45,12 @@ export const findTest = (db: Db, id: number) => db.query.tests.findFirst({ where
 /** The test with its vessel, material and owner, for pages and exports. */
 export async function findTestWithVessel(db: Db, id: number) {
   const [row] = await db
-    .select({ test: tests, vessel: vessels, material: materials, owner: { id: users.id, name: users.name, email: users.email } })
+    .select({
+      test: tests,
+      vessel: vessels,
+      material: materials,
+      owner: { id: users.id, name: users.name, email: users.email },
+    })
     .from(tests)
     .innerJoin(vessels, eq(vessels.id, tests.vesselId))
     .leftJoin(materials, eq(materials.id, vessels.materialId))
@@ -38,12 +60,18 @@ export async function findTestWithVessel(db: Db, id: number) {
 }
 
 export async function insertTest(db: Db, t: { name: string; vesselId: number; plan: unknown; ownerId: number }) {
-  const [row] = await db.insert(tests).values({ ...t, status: 'draft' }).$returningId();
+  const [row] = await db
+    .insert(tests)
+    .values({ ...t, status: 'draft' })
+    .$returningId();
   return row!.id;
 }
 
 export async function updateTest(db: Db, id: number, set: Partial<typeof tests.$inferInsert>) {
-  await db.update(tests).set({ ...set, updatedAt: new Date(), lastActivityAt: new Date() }).where(eq(tests.id, id));
+  await db
+    .update(tests)
+    .set({ ...set, updatedAt: new Date(), lastActivityAt: new Date() })
+    .where(eq(tests.id, id));
 }
 
 /** Rewrite the test's gauge rows from its plan (the installation as planned). */
@@ -54,12 +82,21 @@ export async function replaceGauges(db: Db, testId: number, rows: Omit<NewGauge,
   });
 }
 
-export const listGauges = (db: Db, testId: number) => db.select().from(gauges).where(eq(gauges.testId, testId)).orderBy(asc(gauges.id));
+export const listGauges = (db: Db, testId: number) =>
+  db.select().from(gauges).where(eq(gauges.testId, testId)).orderBy(asc(gauges.id));
 
-export async function insertNote(db: Db, n: { testId: number; userId: number; kind: (typeof notes.$inferInsert)['kind']; body: string }) {
+export async function insertNote(
+  db: Db,
+  n: { testId: number; userId: number; kind: (typeof notes.$inferInsert)['kind']; body: string },
+) {
   const [row] = await db.insert(notes).values(n).$returningId();
   return row!.id;
 }
 
 export const listNotes = (db: Db, testId: number) =>
-  db.select({ id: notes.id, kind: notes.kind, body: notes.body, createdAt: notes.createdAt, author: users.name }).from(notes).innerJoin(users, eq(users.id, notes.userId)).where(eq(notes.testId, testId)).orderBy(desc(notes.createdAt));
+  db
+    .select({ id: notes.id, kind: notes.kind, body: notes.body, createdAt: notes.createdAt, author: users.name })
+    .from(notes)
+    .innerJoin(users, eq(users.id, notes.userId))
+    .where(eq(notes.testId, testId))
+    .orderBy(desc(notes.createdAt));

@@ -12,13 +12,24 @@ export function findUserById(db: Db, id: number) {
 
 export function listUsers(db: Db) {
   return db
-    .select({ id: users.id, email: users.email, name: users.name, role: users.role, disabled: users.disabled, createdAt: users.createdAt, lastSignInAt: users.lastSignInAt })
+    .select({
+      id: users.id,
+      email: users.email,
+      name: users.name,
+      role: users.role,
+      disabled: users.disabled,
+      createdAt: users.createdAt,
+      lastSignInAt: users.lastSignInAt,
+    })
     .from(users)
     .orderBy(asc(users.email));
 }
 
 export async function createUser(db: Db, u: { email: string; name: string; role: Role; passwordHash: string }) {
-  const [row] = await db.insert(users).values({ ...u, email: u.email.trim().toLowerCase() }).$returningId();
+  const [row] = await db
+    .insert(users)
+    .values({ ...u, email: u.email.trim().toLowerCase() })
+    .$returningId();
   return row!.id;
 }
 
@@ -56,7 +67,14 @@ export async function insertApiToken(db: Db, t: { userId: number; name: string; 
 
 export function listApiTokens(db: Db, userId: number) {
   return db
-    .select({ id: apiTokens.id, name: apiTokens.name, prefix: apiTokens.prefix, createdAt: apiTokens.createdAt, lastUsedAt: apiTokens.lastUsedAt, revokedAt: apiTokens.revokedAt })
+    .select({
+      id: apiTokens.id,
+      name: apiTokens.name,
+      prefix: apiTokens.prefix,
+      createdAt: apiTokens.createdAt,
+      lastUsedAt: apiTokens.lastUsedAt,
+      revokedAt: apiTokens.revokedAt,
+    })
     .from(apiTokens)
     .where(eq(apiTokens.userId, userId))
     .orderBy(asc(apiTokens.createdAt));

@@ -22,22 +22,40 @@ export async function updateMaterial(db: Db, id: number, m: Partial<NewMaterial>
 }
 
 /** A material with the same name and values (within rounding), or undefined. */
-export async function matchMaterial(db: Db, m: { name: string; elasticModulusMPa: number; poissonRatio: number; yieldStrengthMPa: number }) {
+export async function matchMaterial(
+  db: Db,
+  m: { name: string; elasticModulusMPa: number; poissonRatio: number; yieldStrengthMPa: number },
+) {
   const same = (a: number, b: number) => Math.abs(a - b) <= 1e-6 * Math.max(1, Math.abs(b));
   const rows = await db.select().from(materials).where(eq(materials.name, m.name));
-  return rows.find((r) => same(r.elasticModulusMPa, m.elasticModulusMPa) && same(r.poissonRatio, m.poissonRatio) && same(r.yieldStrengthMPa, m.yieldStrengthMPa));
+  return rows.find(
+    (r) =>
+      same(r.elasticModulusMPa, m.elasticModulusMPa) &&
+      same(r.poissonRatio, m.poissonRatio) &&
+      same(r.yieldStrengthMPa, m.yieldStrengthMPa),
+  );
 }
 
 export async function listVessels(db: Db, page: { limit: number; offset: number }) {
   const [items, [total]] = await Promise.all([
-    db.select({ vessel: vessels, material: materials }).from(vessels).leftJoin(materials, eq(materials.id, vessels.materialId)).orderBy(asc(vessels.tag)).limit(page.limit).offset(page.offset),
+    db
+      .select({ vessel: vessels, material: materials })
+      .from(vessels)
+      .leftJoin(materials, eq(materials.id, vessels.materialId))
+      .orderBy(asc(vessels.tag))
+      .limit(page.limit)
+      .offset(page.offset),
     db.select({ n: count() }).from(vessels),
   ]);
   return { items: items.map((r) => ({ ...r.vessel, material: r.material })), total: total?.n ?? 0 };
 }
 
 export async function findVessel(db: Db, id: number) {
-  const [row] = await db.select({ vessel: vessels, material: materials }).from(vessels).leftJoin(materials, eq(materials.id, vessels.materialId)).where(eq(vessels.id, id));
+  const [row] = await db
+    .select({ vessel: vessels, material: materials })
+    .from(vessels)
+    .leftJoin(materials, eq(materials.id, vessels.materialId))
+    .where(eq(vessels.id, id));
   return row ? { ...row.vessel, material: row.material } : undefined;
 }
 
@@ -49,12 +67,33 @@ export async function insertVessel(db: Db, v: NewVessel) {
 }
 
 export async function updateVessel(db: Db, id: number, v: Partial<NewVessel>) {
-  await db.update(vessels).set({ ...v, updatedAt: new Date() }).where(eq(vessels.id, id));
+  await db
+    .update(vessels)
+    .set({ ...v, updatedAt: new Date() })
+    .where(eq(vessels.id, id));
 }
 
 /** A vessel with the same geometry and material, or undefined (plans carry no vessel id). */
-export async function matchVessel(db: Db, v: { shape: 'cylinder' | 'sphere'; ends: 'closed' | 'open'; insideDiameterMm: number; wallThicknessMm: number; lengthMm: number | null; materialId: number }) {
-  const same = (a: number | null, b: number | null) => (a === null || b === null ? a === b : Math.abs(a - b) <= 1e-6 * Math.max(1, Math.abs(b)));
+export async function matchVessel(
+  db: Db,
+  v: {
+    shape: 'cylinder' | 'sphere';
+    ends: 'closed' | 'open';
+    insideDiameterMm: number;
+    wallThicknessMm: number;
+    lengthMm: number | null;
+    materialId: number;
+  },
+) {
+  const same = (a: number | null, b: number | null) =>
+    a === null || b === null ? a === b : Math.abs(a - b) <= 1e-6 * Math.max(1, Math.abs(b));
   const rows = await db.select().from(vessels).where(eq(vessels.materialId, v.materialId));
-  return rows.find((r) => r.shape === v.shape && r.ends === v.ends && same(r.insideDiameterMm, v.insideDiameterMm) && same(r.wallThicknessMm, v.wallThicknessMm) && same(r.lengthMm, v.lengthMm));
+  return rows.find(
+    (r) =>
+      r.shape === v.shape &&
+      r.ends === v.ends &&
+      same(r.insideDiameterMm, v.insideDiameterMm) &&
+      same(r.wallThicknessMm, v.wallThicknessMm) &&
+      same(r.lengthMm, v.lengthMm),
+  );
 }

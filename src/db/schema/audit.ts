@@ -8,15 +8,24 @@ export const auditEvents = mysqlTable(
   'audit_events',
   {
     id: id(),
-    at: at('at').notNull().$defaultFn(() => new Date()),
+    at: at('at')
+      .notNull()
+      .$defaultFn(() => new Date()),
     userId: ref('user_id').references(() => users.id),
     /** who, in words: an e-mail, `share link #7`, `worker w-1` */
     actor: varchar('actor', { length: 254 }).notNull(),
     action: varchar('action', { length: 60 }).notNull(),
     testId: ref('test_id').references(() => tests.id),
-    details: json('details').$type<Record<string, unknown>>().notNull().$defaultFn(() => ({})),
+    details: json('details')
+      .$type<Record<string, unknown>>()
+      .notNull()
+      .$defaultFn(() => ({})),
   },
-  (t) => [index('audit_test_idx').on(t.testId, t.at), index('audit_at_idx').on(t.at), index('audit_action_idx').on(t.action)],
+  (t) => [
+    index('audit_test_idx').on(t.testId, t.at),
+    index('audit_at_idx').on(t.at),
+    index('audit_action_idx').on(t.action),
+  ],
 );
 
 export const outboxStatuses = ['pending', 'sent', 'failed'] as const;
@@ -31,7 +40,9 @@ export const outbox = mysqlTable(
     textBody: text('text_body').notNull(),
     status: mysqlEnum('status', outboxStatuses).notNull().default('pending'),
     attempts: int('attempts').notNull().default(0),
-    nextAttemptAt: at('next_attempt_at').notNull().$defaultFn(() => new Date()),
+    nextAttemptAt: at('next_attempt_at')
+      .notNull()
+      .$defaultFn(() => new Date()),
     lastError: text('last_error'),
     testId: ref('test_id').references(() => tests.id),
     createdAt: createdAt(),

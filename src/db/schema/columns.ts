@@ -5,7 +5,10 @@ import { bigint, customType, datetime } from 'drizzle-orm/mysql-core';
 export const id = () => bigint('id', { mode: 'number', unsigned: true }).autoincrement().primaryKey();
 export const ref = (name: string) => bigint(name, { mode: 'number', unsigned: true });
 export const at = (name: string) => datetime(name, { mode: 'date', fsp: 3 });
-export const createdAt = () => at('created_at').notNull().$defaultFn(() => new Date());
+export const createdAt = () =>
+  at('created_at')
+    .notNull()
+    .$defaultFn(() => new Date());
 
 /**
  * A JSON column that reads back as a value on MariaDB too: there JSON is LONGTEXT with a

@@ -7,7 +7,9 @@ export const logFiles = mysqlTable(
   'log_files',
   {
     id: id(),
-    testId: ref('test_id').notNull().references(() => tests.id),
+    testId: ref('test_id')
+      .notNull()
+      .references(() => tests.id),
     objectKey: varchar('object_key', { length: 400 }).notNull(),
     filename: varchar('filename', { length: 255 }).notNull(),
     sha256: varchar('sha256', { length: 64 }).notNull(),

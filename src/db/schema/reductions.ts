@@ -11,7 +11,9 @@ export const reductions = mysqlTable(
   'reductions',
   {
     id: id(),
-    testId: ref('test_id').notNull().references(() => tests.id),
+    testId: ref('test_id')
+      .notNull()
+      .references(() => tests.id),
     status: mysqlEnum('status', jobStatuses).notNull().default('queued'),
     progress: double('progress').notNull().default(0),
     leaseOwner: varchar('lease_owner', { length: 120 }),
@@ -37,7 +39,9 @@ export const gaugeResults = mysqlTable(
   'gauge_results',
   {
     id: id(),
-    reductionId: ref('reduction_id').notNull().references(() => reductions.id),
+    reductionId: ref('reduction_id')
+      .notNull()
+      .references(() => reductions.id),
     gaugeId: varchar('gauge_id', { length: 64 }).notNull(),
     channel: varchar('channel', { length: 120 }).notNull(),
     angleDeg: double('angle_deg').notNull(),
@@ -63,7 +67,9 @@ export const rosetteResults = mysqlTable(
   'rosette_results',
   {
     id: id(),
-    reductionId: ref('reduction_id').notNull().references(() => reductions.id),
+    reductionId: ref('reduction_id')
+      .notNull()
+      .references(() => reductions.id),
     rosetteId: varchar('rosette_id', { length: 60 }).notNull(),
     principalStrain1: double('principal_strain_1').notNull(),
     principalStrain2: double('principal_strain_2').notNull(),

@@ -12,12 +12,18 @@ export const dispositions = mysqlTable(
   'dispositions',
   {
     id: id(),
-    testId: ref('test_id').notNull().references(() => tests.id),
-    reductionId: ref('reduction_id').notNull().references(() => reductions.id),
+    testId: ref('test_id')
+      .notNull()
+      .references(() => tests.id),
+    reductionId: ref('reduction_id')
+      .notNull()
+      .references(() => reductions.id),
     gaugeId: varchar('gauge_id', { length: 64 }).notNull(),
     outcome: mysqlEnum('outcome', dispositionOutcomes).notNull(),
     reason: text('reason').notNull(),
-    userId: ref('user_id').notNull().references(() => users.id),
+    userId: ref('user_id')
+      .notNull()
+      .references(() => users.id),
     createdAt: createdAt(),
   },
   (t) => [index('dispositions_test_idx').on(t.testId, t.reductionId, t.gaugeId)],
@@ -29,10 +35,16 @@ export const signatures = mysqlTable(
   'signatures',
   {
     id: id(),
-    testId: ref('test_id').notNull().references(() => tests.id),
-    reductionId: ref('reduction_id').notNull().references(() => reductions.id),
+    testId: ref('test_id')
+      .notNull()
+      .references(() => tests.id),
+    reductionId: ref('reduction_id')
+      .notNull()
+      .references(() => reductions.id),
     kind: mysqlEnum('kind', signatureKinds).notNull(),
-    userId: ref('user_id').notNull().references(() => users.id),
+    userId: ref('user_id')
+      .notNull()
+      .references(() => users.id),
     statement: text('statement').notNull(),
     createdAt: createdAt(),
   },
@@ -43,11 +55,15 @@ export const shareLinks = mysqlTable(
   'share_links',
   {
     id: id(),
-    testId: ref('test_id').notNull().references(() => tests.id),
+    testId: ref('test_id')
+      .notNull()
+      .references(() => tests.id),
     /** sha256 hex of the 256-bit token; the token is only in the URL */
     tokenHash: varchar('token_hash', { length: 64 }).notNull(),
     email: varchar('email', { length: 254 }),
-    createdBy: ref('created_by').notNull().references(() => users.id),
+    createdBy: ref('created_by')
+      .notNull()
+      .references(() => users.id),
     createdAt: createdAt(),
     expiresAt: at('expires_at').notNull(),
     revokedAt: at('revoked_at'),

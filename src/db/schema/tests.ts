@@ -12,7 +12,9 @@ export const tests = mysqlTable(
   {
     id: id(),
     name: varchar('name', { length: 200 }).notNull(),
-    vesselId: ref('vessel_id').notNull().references(() => vessels.id),
+    vesselId: ref('vessel_id')
+      .notNull()
+      .references(() => vessels.id),
     status: mysqlEnum('status', testStatuses).notNull().default('draft'),
     /** the plan exactly as imported or last saved (DESIGN 4.1) */
     plan: json('plan').$type<unknown>().notNull(),
@@ -22,8 +24,12 @@ export const tests = mysqlTable(
     verdict: mysqlEnum('verdict', verdicts),
     flaggedCount: int('flagged_count').notNull().default(0),
     createdAt: createdAt(),
-    updatedAt: at('updated_at').notNull().$defaultFn(() => new Date()),
-    lastActivityAt: at('last_activity_at').notNull().$defaultFn(() => new Date()),
+    updatedAt: at('updated_at')
+      .notNull()
+      .$defaultFn(() => new Date()),
+    lastActivityAt: at('last_activity_at')
+      .notNull()
+      .$defaultFn(() => new Date()),
   },
   (t) => [
     index('tests_vessel_idx').on(t.vesselId),
@@ -39,7 +45,9 @@ export const gauges = mysqlTable(
   'gauges',
   {
     id: id(),
-    testId: ref('test_id').notNull().references(() => tests.id),
+    testId: ref('test_id')
+      .notNull()
+      .references(() => tests.id),
     gaugeId: varchar('gauge_id', { length: 60 }).notNull(),
     kind: mysqlEnum('kind', gaugeKinds).notNull(),
     channels: json('channels').$type<string[]>().notNull(),
@@ -60,8 +68,12 @@ export const notes = mysqlTable(
   'notes',
   {
     id: id(),
-    testId: ref('test_id').notNull().references(() => tests.id),
-    userId: ref('user_id').notNull().references(() => users.id),
+    testId: ref('test_id')
+      .notNull()
+      .references(() => tests.id),
+    userId: ref('user_id')
+      .notNull()
+      .references(() => users.id),
     kind: mysqlEnum('kind', noteKinds).notNull().default('general'),
     body: text('body').notNull(),
     createdAt: createdAt(),

@@ -23,7 +23,9 @@ export const apiTokens = mysqlTable(
   'api_tokens',
   {
     id: id(),
-    userId: ref('user_id').notNull().references(() => users.id),
+    userId: ref('user_id')
+      .notNull()
+      .references(() => users.id),
     name: varchar('name', { length: 120 }).notNull(),
     /** sha256 hex of the token; the token itself is shown once and never stored */
     tokenHash: varchar('token_hash', { length: 64 }).notNull(),

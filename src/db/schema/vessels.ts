@@ -31,12 +31,17 @@ export const vessels = mysqlTable(
     insideDiameterMm: double('inside_diameter_mm').notNull(),
     wallThicknessMm: double('wall_thickness_mm').notNull(),
     lengthMm: double('length_mm'),
-    features: json('features').$type<unknown[]>().notNull().$defaultFn(() => []),
+    features: json('features')
+      .$type<unknown[]>()
+      .notNull()
+      .$defaultFn(() => []),
     materialId: ref('material_id').references(() => materials.id),
     units: mysqlEnum('units', ['SI', 'US']).notNull().default('SI'),
     createdBy: ref('created_by').references(() => users.id),
     createdAt: createdAt(),
-    updatedAt: at('updated_at').notNull().$defaultFn(() => new Date()),
+    updatedAt: at('updated_at')
+      .notNull()
+      .$defaultFn(() => new Date()),
   },
   (t) => [uniqueIndex('vessels_tag_uq').on(t.tag), index('vessels_material_idx').on(t.materialId)],
 );

@@ -1,9 +1,18 @@
 import { describe, expect, it } from 'vitest';
-import { correctDelta, correctGaugeFactor, correctRectangular, correctPerpendicularPair, indicatedStrain, uniaxialTransverseFactor, correctionMatrix } from './corrections';
+import {
+  correctDelta,
+  correctGaugeFactor,
+  correctRectangular,
+  correctPerpendicularPair,
+  indicatedStrain,
+  uniaxialTransverseFactor,
+  correctionMatrix,
+} from './corrections';
 import { transformStrain } from './rosette';
 
 describe('gauge-factor mismatch — REFERENCES.md [memory]', () => {
-  it('1000 µε at instrument F 2.00 with a 2.10 gauge → 952.38 µε', () => expect(correctGaugeFactor(1000, 2.1, 2.0)).toBeCloseTo(952.381, 3));
+  it('1000 µε at instrument F 2.00 with a 2.10 gauge → 952.38 µε', () =>
+    expect(correctGaugeFactor(1000, 2.1, 2.0)).toBeCloseTo(952.381, 3));
 });
 
 describe('transverse sensitivity — REFERENCES.md, Micro-Measurements TN-509 [read for the method; equations memory]', () => {

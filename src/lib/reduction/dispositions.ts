@@ -18,7 +18,10 @@ export type DispositionedGauge = GaugeResult & { disposition?: Disposition };
  * The verdict is `conforms` only when no flagged gauge is left without accepted/excluded;
  * `incomplete` stays incomplete.
  */
-export function applyDispositions(result: Pick<ReductionResult, 'verdict' | 'gauges'>, dispositions: readonly Disposition[]): { verdict: TestVerdict; gauges: DispositionedGauge[] } {
+export function applyDispositions(
+  result: Pick<ReductionResult, 'verdict' | 'gauges'>,
+  dispositions: readonly Disposition[],
+): { verdict: TestVerdict; gauges: DispositionedGauge[] } {
   const byId = new Map<string, Disposition>();
   for (const d of dispositions) byId.set(d.gaugeId, d);
   const gauges = result.gauges.map((g): DispositionedGauge => {

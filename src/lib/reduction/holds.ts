@@ -61,7 +61,18 @@ export class HoldDetector {
     this.nSlots = nSlots;
     this.s = { maxGapSamples: 3, gapSeconds: 0.5, ...settings };
     for (let i = 0; i < MAX_BLOCKS; i++)
-      this.blocks.push({ n: 0, startIndex: 0, t0: 0, t1: 0, sumT: 0, sumP: 0, sumTT: 0, sumTP: 0, slotSum: new Float64Array(nSlots), slotCount: new Float64Array(nSlots) });
+      this.blocks.push({
+        n: 0,
+        startIndex: 0,
+        t0: 0,
+        t1: 0,
+        sumT: 0,
+        sumP: 0,
+        sumTT: 0,
+        sumTP: 0,
+        slotSum: new Float64Array(nSlots),
+        slotCount: new Float64Array(nSlots),
+      });
   }
 
   /** One sample: time, pressure (finite) and the slot values (NaN = missing). */
@@ -125,7 +136,8 @@ export class HoldDetector {
     b.sumP += p;
     b.sumTT += tr * tr;
     b.sumTP += tr * p;
-    const ss = b.slotSum, sc = b.slotCount;
+    const ss = b.slotSum,
+      sc = b.slotCount;
     for (let k = 0; k < this.nSlots; k++) {
       const v = slots[k]!;
       if (v === v) {
@@ -139,15 +151,27 @@ export class HoldDetector {
   private compact() {
     const bl = this.blocks;
     for (let i = 0; i < MAX_BLOCKS / 2; i++) {
-      const a = bl[2 * i]!, c = bl[2 * i + 1]!, dst = bl[i]!;
+      const a = bl[2 * i]!,
+        c = bl[2 * i + 1]!,
+        dst = bl[i]!;
       if (dst !== a) {
-        dst.n = a.n; dst.startIndex = a.startIndex; dst.t0 = a.t0; dst.t1 = a.t1;
-        dst.sumT = a.sumT; dst.sumP = a.sumP; dst.sumTT = a.sumTT; dst.sumTP = a.sumTP;
+        dst.n = a.n;
+        dst.startIndex = a.startIndex;
+        dst.t0 = a.t0;
+        dst.t1 = a.t1;
+        dst.sumT = a.sumT;
+        dst.sumP = a.sumP;
+        dst.sumTT = a.sumTT;
+        dst.sumTP = a.sumTP;
         dst.slotSum.set(a.slotSum);
         dst.slotCount.set(a.slotCount);
       }
-      dst.n += c.n; dst.t1 = c.t1;
-      dst.sumT += c.sumT; dst.sumP += c.sumP; dst.sumTT += c.sumTT; dst.sumTP += c.sumTP;
+      dst.n += c.n;
+      dst.t1 = c.t1;
+      dst.sumT += c.sumT;
+      dst.sumP += c.sumP;
+      dst.sumTT += c.sumTT;
+      dst.sumTP += c.sumTP;
       for (let k = 0; k < this.nSlots; k++) {
         dst.slotSum[k] += c.slotSum[k]!;
         dst.slotCount[k] += c.slotCount[k]!;
@@ -165,12 +189,20 @@ export class HoldDetector {
     const settleIndex = Math.ceil(this.s.settleFraction * runN);
     let first = 0;
     while (first < this.nb - 1 && this.blocks[first]!.startIndex < settleIndex) first++;
-    let n = 0, sumT = 0, sumP = 0, sumTT = 0, sumTP = 0;
+    let n = 0,
+      sumT = 0,
+      sumP = 0,
+      sumTT = 0,
+      sumTP = 0;
     const slotSum = new Float64Array(this.nSlots);
     const slotCount = new Float64Array(this.nSlots);
     for (let i = first; i < this.nb; i++) {
       const b = this.blocks[i]!;
-      n += b.n; sumT += b.sumT; sumP += b.sumP; sumTT += b.sumTT; sumTP += b.sumTP;
+      n += b.n;
+      sumT += b.sumT;
+      sumP += b.sumP;
+      sumTT += b.sumTT;
+      sumTP += b.sumTP;
       for (let k = 0; k < this.nSlots; k++) {
         slotSum[k] += b.slotSum[k]!;
         slotCount[k] += b.slotCount[k]!;
@@ -182,7 +214,15 @@ export class HoldDetector {
     const slope = denom > 0 ? (n * sumTP - sumT * sumP) / denom : 0;
     const drift = Math.abs(slope) * (this.lastInT - settledStart);
     if (drift > (atEnd ? 0.25 : 1) * this.s.bandAbs) return; // a ramp, not a hold
-    this.out.push({ start: this.runT0, end: this.lastInT, settledStart, pressure: sumP / n, samples: n, slotSum, slotCount });
+    this.out.push({
+      start: this.runT0,
+      end: this.lastInT,
+      settledStart,
+      pressure: sumP / n,
+      samples: n,
+      slotSum,
+      slotCount,
+    });
   }
 }
 
@@ -195,7 +235,11 @@ export interface ClassifiedHold extends RawHold {
  * Merge neighbouring holds at the same level, then name the branches: the highest hold splits
  * loading from unloading; holds at zero before it are `zero`, a last hold at zero is `return`.
  */
-export function classifyHolds(raw: readonly RawHold[], bandAbs: number, zeroBand: number): { holds: ClassifiedHold[]; peakIndex: number } {
+export function classifyHolds(
+  raw: readonly RawHold[],
+  bandAbs: number,
+  zeroBand: number,
+): { holds: ClassifiedHold[]; peakIndex: number } {
   const merged: RawHold[] = [];
   for (const h of raw) {
     const prev = merged[merged.length - 1];
@@ -233,7 +277,12 @@ export function classifyHolds(raw: readonly RawHold[], bandAbs: number, zeroBand
 }
 
 /** Detect and classify holds in arrays of time and pressure (for tests and small logs). */
-export function detectHolds(t: readonly number[], p: readonly number[], settings: HoldSettings, zeroBand = 2 * settings.bandAbs): ClassifiedHold[] {
+export function detectHolds(
+  t: readonly number[],
+  p: readonly number[],
+  settings: HoldSettings,
+  zeroBand = 2 * settings.bandAbs,
+): ClassifiedHold[] {
   const det = new HoldDetector(0, settings);
   const none = new Float64Array(0);
   for (let i = 0; i < Math.min(t.length, p.length); i++) if (Number.isFinite(p[i]!)) det.push(t[i]!, p[i]!, none);

@@ -2,7 +2,15 @@
 // 422 before storing the file.
 import { InputError } from './errors';
 import type { Plan } from './plan';
-import { assertTextString, findHeaderLine, mapColumns, parseNumberText, resolvePressureUnit, splitCells, type Delimiter } from './text';
+import {
+  assertTextString,
+  findHeaderLine,
+  mapColumns,
+  parseNumberText,
+  resolvePressureUnit,
+  splitCells,
+  type Delimiter,
+} from './text';
 
 export interface LogHeadInfo {
   delimiter: Delimiter;
@@ -21,7 +29,12 @@ export interface LogHeadInfo {
 /** Throws InputError when the head is not delimited text or no line holds the pressure column. */
 export function inspectLogHead(plan: Plan, headText: string): LogHeadInfo {
   const text = headText.replace(/^\uFEFF/, '');
-  if (text.startsWith('PK\u0003\u0004')) throw new InputError('not-delimited-text', 'the log is a ZIP archive (an .xlsx workbook?), not delimited text: export it as CSV', { line: 1 });
+  if (text.startsWith('PK\u0003\u0004'))
+    throw new InputError(
+      'not-delimited-text',
+      'the log is a ZIP archive (an .xlsx workbook?), not delimited text: export it as CSV',
+      { line: 1 },
+    );
   assertTextString(text);
   const lines = text.split('\n').map((l) => (l.endsWith('\r') ? l.slice(0, -1) : l));
   // the last line may be cut off by the 64 KB window
@@ -29,20 +42,29 @@ export function inspectLogHead(plan: Plan, headText: string): LogHeadInfo {
   const { strong, weak } = findHeaderLine(plan, lines);
   const found = strong ?? weak;
   if (!found)
-    throw new InputError('pressure-column-not-found', `no header line holds the pressure column '${plan.columns.pressure}' (plan.columns.pressure) in the first ${lines.length} lines`, {
-      column: plan.columns.pressure,
-      line: lines.length,
-    });
+    throw new InputError(
+      'pressure-column-not-found',
+      `no header line holds the pressure column '${plan.columns.pressure}' (plan.columns.pressure) in the first ${lines.length} lines`,
+      {
+        column: plan.columns.pressure,
+        line: lines.length,
+      },
+    );
   const headerLine = found.index + 1;
   const m = mapColumns(plan, found.cells);
-  const pressureUnit = m.pressure >= 0 ? resolvePressureUnit(m.pressureUnit, found.cells[m.pressure]!, headerLine) : null;
+  const pressureUnit =
+    m.pressure >= 0 ? resolvePressureUnit(m.pressureUnit, found.cells[m.pressure]!, headerLine) : null;
   const previewRows: string[][] = [];
   let decimalComma = false;
   for (let i = found.index + 1; i < lines.length && previewRows.length < 5; i++) {
     if (!lines[i]!.trim()) continue;
     const cells = splitCells(lines[i]!, found.delimiter);
     previewRows.push(cells);
-    if (found.delimiter !== ',' && cells.some((c) => /^\s*[+-]?\d*,\d+\s*$/.test(c) && !Number.isNaN(parseNumberText(c, true)))) decimalComma = true;
+    if (
+      found.delimiter !== ',' &&
+      cells.some((c) => /^\s*[+-]?\d*,\d+\s*$/.test(c) && !Number.isNaN(parseNumberText(c, true)))
+    )
+      decimalComma = true;
   }
   return {
     delimiter: found.delimiter,

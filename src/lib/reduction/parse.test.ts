@@ -20,7 +20,14 @@ describe('inspectLogHead', () => {
   it('preamble, semicolon, decimal comma, bracketed unit', () => {
     const head = 'Device;DAQ\nStart;2025-01-01\n\ntime_s;P [bar];SG1;SG2\n0;0,1;1,5;2\n1;0,2;1,6;2,1\n2;0,3';
     const info = inspectLogHead(small, head);
-    expect(info).toMatchObject({ delimiter: ';', decimalComma: true, headerLine: 4, pressureUnit: 'bar', missingColumns: [], duplicateColumns: [] });
+    expect(info).toMatchObject({
+      delimiter: ';',
+      decimalComma: true,
+      headerLine: 4,
+      pressureUnit: 'bar',
+      missingColumns: [],
+      duplicateColumns: [],
+    });
     expect(info.columns).toEqual(['time_s', 'P [bar]', 'SG1', 'SG2']);
     expect(info.previewRows.length).toBe(2); // the cut-off last line is dropped
   });
@@ -50,7 +57,14 @@ async function reduceText(text: string, plan = small) {
 }
 async function inputError(text: string | Uint8Array, plan = small): Promise<InputError> {
   try {
-    await reduceLog(plan, typeof text === 'string' ? chunked(text, 64) : (async function* () { yield text; })());
+    await reduceLog(
+      plan,
+      typeof text === 'string'
+        ? chunked(text, 64)
+        : (async function* () {
+            yield text;
+          })(),
+    );
   } catch (e) {
     if (e instanceof InputError) return e;
     throw e;
@@ -61,14 +75,59 @@ async function inputError(text: string | Uint8Array, plan = small): Promise<Inpu
 describe('log errors name the line and the column (DESIGN 5)', () => {
   const good = syntheticLog(small, { rateHz: 1 });
   it.each([
-    ['a missing mapped column', 'x\ntime_s,P [MPa],SG1\n0,0,1\n', 'missing-column', 2, 'SG2', /line 2, column 'SG2': the header has no column 'SG2'/],
-    ['a duplicated mapped column', 'time_s,P [MPa],SG1,SG2,SG2\n0,0,1,2,3\n', 'duplicate-column', 1, 'SG2', /line 1, column 'SG2': the header names column 'SG2' more than once/],
-    ['a column with no number at all', good.split('\n').map((l, i) => (i === 0 || !l ? l : l.replace(/[^,]*$/, 'n/a'))).join('\n'), 'empty-column', 1, 'SG2', /line 1, column 'SG2': the column has no numeric value/],
-    ['not delimited text', '\u0001\u0002\u0003\u0004\u0005\u0006\u0007\u0008 binary', 'not-delimited-text', 1, undefined, /not delimited text/],
-    ['no pressure column anywhere', 'a,b\n1,2\n', 'pressure-column-not-found', undefined, 'P [MPa]', /pressure column 'P \[MPa\]'/],
+    [
+      'a missing mapped column',
+      'x\ntime_s,P [MPa],SG1\n0,0,1\n',
+      'missing-column',
+      2,
+      'SG2',
+      /line 2, column 'SG2': the header has no column 'SG2'/,
+    ],
+    [
+      'a duplicated mapped column',
+      'time_s,P [MPa],SG1,SG2,SG2\n0,0,1,2,3\n',
+      'duplicate-column',
+      1,
+      'SG2',
+      /line 1, column 'SG2': the header names column 'SG2' more than once/,
+    ],
+    [
+      'a column with no number at all',
+      good
+        .split('\n')
+        .map((l, i) => (i === 0 || !l ? l : l.replace(/[^,]*$/, 'n/a')))
+        .join('\n'),
+      'empty-column',
+      1,
+      'SG2',
+      /line 1, column 'SG2': the column has no numeric value/,
+    ],
+    [
+      'not delimited text',
+      '\u0001\u0002\u0003\u0004\u0005\u0006\u0007\u0008 binary',
+      'not-delimited-text',
+      1,
+      undefined,
+      /not delimited text/,
+    ],
+    [
+      'no pressure column anywhere',
+      'a,b\n1,2\n',
+      'pressure-column-not-found',
+      undefined,
+      'P [MPa]',
+      /pressure column 'P \[MPa\]'/,
+    ],
     ['an empty file', '', 'no-data', undefined, undefined, /empty/],
     ['header only', 'time_s,P [MPa],SG1,SG2\n', 'no-data', 1, undefined, /no data rows/],
-    ['fewer than three pressure levels', 'time_s,P [MPa],SG1,SG2\n' + Array.from({ length: 100 }, (_, i) => `${i},${i < 50 ? 0 : 1.7},${i},1`).join('\n'), 'too-few-levels', undefined, 'P [MPa]', /2 distinct pressure levels/],
+    [
+      'fewer than three pressure levels',
+      'time_s,P [MPa],SG1,SG2\n' + Array.from({ length: 100 }, (_, i) => `${i},${i < 50 ? 0 : 1.7},${i},1`).join('\n'),
+      'too-few-levels',
+      undefined,
+      'P [MPa]',
+      /2 distinct pressure levels/,
+    ],
   ])('%s', async (_n, text, code, line, column, message) => {
     const e = await inputError(text);
     expect(e.code).toBe(code);
@@ -106,7 +165,17 @@ describe('cells', () => {
   ])('ISO %s', (cell, ms) => expect(parseIsoMillis(cell)).toEqual(ms));
   it('quoted cells go through the general path and give the same numbers', async () => {
     const csv = syntheticLog(small, { seed: 5 });
-    const quoted = csv.split('\n').map((l, i) => (i === 0 || !l ? l : l.split(',').map((c) => `"${c}"`).join(','))).join('\n');
+    const quoted = csv
+      .split('\n')
+      .map((l, i) =>
+        i === 0 || !l
+          ? l
+          : l
+              .split(',')
+              .map((c) => `"${c}"`)
+              .join(','),
+      )
+      .join('\n');
     const a = (await reduceText(csv)).result.gauges.map((g) => g.measuredSlope);
     const b = (await reduceText(quoted)).result.gauges.map((g) => g.measuredSlope);
     b.forEach((s, i) => expect(s).toBeCloseTo(a[i]!, 10));
@@ -130,7 +199,14 @@ describe('cells', () => {
       u16[3 + 2 * i] = csv.charCodeAt(i) >> 8;
     }
     const a = (await reduceLog(plan, chunked(csv))).result;
-    const b = (await reduceLog(plan, (async function* () { for (let i = 0; i < u16.length; i += 1001) yield u16.subarray(i, i + 1001); })())).result;
+    const b = (
+      await reduceLog(
+        plan,
+        (async function* () {
+          for (let i = 0; i < u16.length; i += 1001) yield u16.subarray(i, i + 1001);
+        })(),
+      )
+    ).result;
     b.gauges.forEach((g, i) => expect(g.measuredSlope).toBeCloseTo(a.gauges[i]!.measuredSlope!, 10));
   });
 });

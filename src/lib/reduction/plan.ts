@@ -11,9 +11,7 @@ const expect = (what: string) => ({
 const quote = (v: unknown) => (typeof v === 'string' ? `'${v}'` : JSON.stringify(v));
 const oneOf = (values: readonly string[]) => ({
   error: (iss: IssueLike) =>
-    iss.input === undefined
-      ? 'is required'
-      : `must be one of ${values.join(', ')} (got ${quote(iss.input)})`,
+    iss.input === undefined ? 'is required' : `must be one of ${values.join(', ')} (got ${quote(iss.input)})`,
 });
 
 const num = () => z.number(expect('a number'));
@@ -61,7 +59,10 @@ export const materialSchema = z.object({
 
 /** Acceptance thresholds (DESIGN 3.3); every one has the default stated there. */
 export const tolerancesSchema = z.object({
-  slopeBand: num().gt(0, 'must be greater than 0').lte(1, 'must be at most 1 (a fraction: 0.10 for ±10 %)').default(0.1),
+  slopeBand: num()
+    .gt(0, 'must be greater than 0')
+    .lte(1, 'must be at most 1 (a fraction: 0.10 for ±10 %)')
+    .default(0.1),
   minRSquared: fraction().default(0.995),
   hysteresis: fraction().default(0.05),
   zeroShiftMicrostrain: nonNegative().default(20),
@@ -76,7 +77,10 @@ export const tolerancesSchema = z.object({
  * without drifting more than the band; its first settleFraction is dropped before averaging.
  */
 export const holdDetectionSchema = z.object({
-  band: num().gt(0, 'must be greater than 0').lte(0.25, 'must be at most 0.25 (a fraction of test pressure)').default(0.02),
+  band: num()
+    .gt(0, 'must be greater than 0')
+    .lte(0.25, 'must be at most 0.25 (a fraction of test pressure)')
+    .default(0.02),
   minDurationSeconds: nonNegative().default(10),
   minSamples: z.number(expect('a whole number')).int('must be a whole number').gte(2, 'must be at least 2').default(5),
   settleFraction: num().gte(0, 'must not be negative').lte(0.9, 'must be at most 0.9').default(0.3),
@@ -126,14 +130,19 @@ export const planSchema = z
     gauges: z.array(gaugeSchema, expect('a list of gauges')).min(1, 'must list at least one gauge'),
   })
   .superRefine((plan, ctx) => {
-    const issue = (path: (string | number)[], message: string) =>
-      ctx.addIssue({ code: 'custom', path, message });
+    const issue = (path: (string | number)[], message: string) => ctx.addIssue({ code: 'custom', path, message });
     const { vessel, material } = plan;
     // Plausibility of E catches GPa (or Msi) typed where MPa (psi) is expected.
     if (plan.units === 'SI' && material.elasticModulus < 500)
-      issue(['material', 'elasticModulus'], `${material.elasticModulus} MPa is implausibly low: enter MPa (200 GPa = 200000)`);
+      issue(
+        ['material', 'elasticModulus'],
+        `${material.elasticModulus} MPa is implausibly low: enter MPa (200 GPa = 200000)`,
+      );
     if (plan.units === 'US' && material.elasticModulus < 70000)
-      issue(['material', 'elasticModulus'], `${material.elasticModulus} psi is implausibly low: enter psi (29.5 Msi = 29500000)`);
+      issue(
+        ['material', 'elasticModulus'],
+        `${material.elasticModulus} psi is implausibly low: enter psi (29.5 Msi = 29500000)`,
+      );
     if (material.yieldStrength >= material.elasticModulus)
       issue(['material', 'yieldStrength'], 'must be smaller than the elastic modulus (same unit)');
     if (vessel.shape === 'cylinder' && vessel.length === undefined)
@@ -155,11 +164,16 @@ export const planSchema = z
         );
       g.channels.forEach((c, k) => {
         if (reserved.has(c)) issue(['gauges', i, 'channels', k], `'${c}' is the pressure or time column`);
-        else if (channels.has(c)) issue(['gauges', i, 'channels', k], `channel '${c}' is already used by gauge ${channels.get(c)}`);
+        else if (channels.has(c))
+          issue(['gauges', i, 'channels', k], `channel '${c}' is already used by gauge ${channels.get(c)}`);
         else channels.set(c, g.id);
       });
-      if (g.axialPosition !== undefined && vessel.length !== undefined && vessel.shape === 'cylinder' &&
-        (g.axialPosition < 0 || g.axialPosition > vessel.length))
+      if (
+        g.axialPosition !== undefined &&
+        vessel.length !== undefined &&
+        vessel.shape === 'cylinder' &&
+        (g.axialPosition < 0 || g.axialPosition > vessel.length)
+      )
         issue(['gauges', i, 'axialPosition'], `must be between 0 and the vessel length ${vessel.length}`);
     });
   })

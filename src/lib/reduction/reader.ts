@@ -167,7 +167,11 @@ export class LogReader {
       }
       if (pos < n) {
         if (n - pos > MAX_LINE_BYTES)
-          throw new InputError('not-delimited-text', `${this.where(this.lineNo + 1)}: a line longer than 1 MB (not a delimited log?)`, { line: this.lineNo + 1, source: index });
+          throw new InputError(
+            'not-delimited-text',
+            `${this.where(this.lineNo + 1)}: a line longer than 1 MB (not a delimited log?)`,
+            { line: this.lineNo + 1, source: index },
+          );
         carry = buf.slice(pos);
       } else carry = null;
     };
@@ -209,7 +213,12 @@ export class LogReader {
     };
 
     for await (const chunk of source) {
-      const raw = typeof chunk === 'string' ? encoder.encode(chunk) : chunk instanceof Uint8Array ? chunk : new Uint8Array(chunk as ArrayBuffer);
+      const raw =
+        typeof chunk === 'string'
+          ? encoder.encode(chunk)
+          : chunk instanceof Uint8Array
+            ? chunk
+            : new Uint8Array(chunk as ArrayBuffer);
       if (raw.length === 0) continue;
       this.bytesRead += raw.length;
       handle(raw, false);
@@ -219,11 +228,17 @@ export class LogReader {
     const leftover = carry as Uint8Array | null;
     if (leftover && leftover.length) processBytes(leftover, true);
     if (inPreamble) {
-      if (this.lineNo === 0) throw new InputError('no-data', index > 0 ? `log ${index + 1} is empty` : 'the log is empty', { line: 1, source: index });
+      if (this.lineNo === 0)
+        throw new InputError('no-data', index > 0 ? `log ${index + 1} is empty` : 'the log is empty', {
+          line: 1,
+          source: index,
+        });
       this.failNoHeader(weak);
     }
     if (this.repeatedHeaders > 0) {
-      this.warnings.push(`${this.repeatedHeaders} repeated header line${this.repeatedHeaders > 1 ? 's' : ''} in the data skipped`);
+      this.warnings.push(
+        `${this.repeatedHeaders} repeated header line${this.repeatedHeaders > 1 ? 's' : ''} in the data skipped`,
+      );
       this.repeatedHeaders = 0;
     }
   }
@@ -234,7 +249,14 @@ export class LogReader {
       const name = m.missing[0] ?? this.plan.columns.pressure;
       throw new InputError(
         'missing-column',
-        `${this.where(weak.line, name)}: the header has no column '${name}'${m.missing.length > 1 ? ` (nor ${m.missing.slice(1).map((x) => `'${x}'`).join(', ')})` : ''}`,
+        `${this.where(weak.line, name)}: the header has no column '${name}'${
+          m.missing.length > 1
+            ? ` (nor ${m.missing
+                .slice(1)
+                .map((x) => `'${x}'`)
+                .join(', ')})`
+            : ''
+        }`,
         { line: weak.line, column: name, source: this.src },
       );
     }
@@ -249,19 +271,35 @@ export class LogReader {
     const m = mapColumns(this.plan, found.cells);
     if (m.duplicate.length) {
       const name = m.duplicate[0]!;
-      throw new InputError('duplicate-column', `${this.where(line, name)}: the header names column '${name}' more than once`, { line, column: name, source: this.src });
+      throw new InputError(
+        'duplicate-column',
+        `${this.where(line, name)}: the header names column '${name}' more than once`,
+        { line, column: name, source: this.src },
+      );
     }
     if (m.missing.length) {
       const name = m.missing[0]!;
-      const more = m.missing.length > 1 ? ` (nor ${m.missing.slice(1).map((x) => `'${x}'`).join(', ')})` : '';
-      throw new InputError('missing-column', `${this.where(line, name)}: the header has no column '${name}'${more}`, { line, column: name, source: this.src });
+      const more =
+        m.missing.length > 1
+          ? ` (nor ${m.missing
+              .slice(1)
+              .map((x) => `'${x}'`)
+              .join(', ')})`
+          : '';
+      throw new InputError('missing-column', `${this.where(line, name)}: the header has no column '${name}'${more}`, {
+        line,
+        column: name,
+        source: this.src,
+      });
     }
     const pressureHeader = found.cells[m.pressure]!;
     const unit = resolvePressureUnit(m.pressureUnit, pressureHeader, line);
     const planUnit = planPressureUnit(this.plan.units);
     this.factor = unit ? pressureFactor(unit, planUnit) : 1;
     if (unit && unit !== planUnit)
-      this.warnings.push(`${this.segments.length ? `log ${this.src + 1}: ` : ''}pressure column '${pressureHeader}' is in ${unit}; converted to ${planUnit} (the plan's pressure unit)`);
+      this.warnings.push(
+        `${this.segments.length ? `log ${this.src + 1}: ` : ''}pressure column '${pressureHeader}' is in ${unit}; converted to ${planUnit} (the plan's pressure unit)`,
+      );
     this.delim = found.delimiter.charCodeAt(0);
     this.allowComma = found.delimiter !== ',';
     const maxIndex = Math.max(m.time, m.pressure, ...m.channels);
@@ -317,7 +355,11 @@ export class LogReader {
       neg = true;
       j++;
     } else if (c === 43) j++;
-    let mant = 0, digits = 0, frac = 0, sep = false, comma = false;
+    let mant = 0,
+      digits = 0,
+      frac = 0,
+      sep = false,
+      comma = false;
     for (; j < e; j++) {
       c = buf[j]!;
       if (c >= 48 && c <= 57) {
@@ -469,7 +511,9 @@ export class LogReader {
       }
       if (t < this.lastT && !this.backwardsWarned) {
         this.backwardsWarned = true;
-        this.warnings.push(`${this.where(this.lineNo, this.plan.columns.time)}: time goes backwards (holds use the time column as given)`);
+        this.warnings.push(
+          `${this.where(this.lineNo, this.plan.columns.time)}: time goes backwards (holds use the time column as given)`,
+        );
       }
     }
     if (this.firstT !== this.firstT) this.firstT = t;

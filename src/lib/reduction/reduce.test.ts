@@ -8,7 +8,10 @@ import { predictForPlan } from './shell';
 import type { ReductionResult } from './types';
 
 async function reduce(planIn: PlanInput | ReturnType<typeof demoPlan>, opts: SyntheticOptions = {}) {
-  const plan = 'tolerances' in planIn && planIn.tolerances && 'slopeBand' in planIn.tolerances && planIn.holdDetection ? (planIn as ReturnType<typeof demoPlan>) : parsePlan(planIn);
+  const plan =
+    'tolerances' in planIn && planIn.tolerances && 'slopeBand' in planIn.tolerances && planIn.holdDetection
+      ? (planIn as ReturnType<typeof demoPlan>)
+      : parsePlan(planIn);
   const csv = syntheticLog(plan, opts);
   const { result, series } = await reduceLog(plan, chunked(csv, 4096));
   return { plan, result, series, truth: syntheticTruth(plan, opts), csv };
@@ -22,7 +25,17 @@ const gauge = (r: ReductionResult, id: string) => {
 describe('healthy vessel (DESIGN 4.1 example, Lamé): every gauge in band, verdict conforms', async () => {
   const { result, truth } = await reduce(demoPlan(), { gauges: { H1: { offset: 120 }, A1: { offset: -40 } } });
   it('nine holds with branches zero, loading ×4, unloading ×3, return', () => {
-    expect(result.holds.map((h) => h.branch)).toEqual(['zero', 'loading', 'loading', 'loading', 'loading', 'unloading', 'unloading', 'unloading', 'return']);
+    expect(result.holds.map((h) => h.branch)).toEqual([
+      'zero',
+      'loading',
+      'loading',
+      'loading',
+      'loading',
+      'unloading',
+      'unloading',
+      'unloading',
+      'return',
+    ]);
     expect(result.log.usedHolds).toBe(true);
   });
   it.each(Object.keys(truth))('%s: measured slope within 0.5 % of the truth, CI holds it', (id) => {
@@ -79,7 +92,19 @@ describe('faulty gauges are flagged with the right code', async () => {
 
 describe('corrections', async () => {
   it('gauge-factor mismatch: gauge 2.10 on an instrument set to 2.00 is corrected back to the truth', async () => {
-    const input = { ...demoPlanInput, gauges: [{ id: 'H1', kind: 'uniaxial' as const, channels: ['SG1'], angleDeg: 90, gaugeFactor: 2.1, instrumentGaugeFactor: 2.0 }] };
+    const input = {
+      ...demoPlanInput,
+      gauges: [
+        {
+          id: 'H1',
+          kind: 'uniaxial' as const,
+          channels: ['SG1'],
+          angleDeg: 90,
+          gaugeFactor: 2.1,
+          instrumentGaugeFactor: 2.0,
+        },
+      ],
+    };
     const { result, truth } = await reduce(input);
     const g = gauge(result, 'H1');
     expect(g.measuredSlope! / truth.H1! - 1).toBeCloseTo(0, 2);
@@ -89,13 +114,22 @@ describe('corrections', async () => {
     const input: PlanInput = {
       ...demoPlanInput,
       gauges: [
-        { id: 'R1', kind: 'rosette-rectangular', channels: ['SG4', 'SG5', 'SG6'], angleDeg: 0, transverseSensitivity: 0.03 },
+        {
+          id: 'R1',
+          kind: 'rosette-rectangular',
+          channels: ['SG4', 'SG5', 'SG6'],
+          angleDeg: 0,
+          transverseSensitivity: 0.03,
+        },
         { id: 'A1', kind: 'uniaxial', channels: ['SG3'], angleDeg: 0, transverseSensitivity: 0.03 },
       ],
     };
     const { result, truth } = await reduce(input, { strainNoise: 0.2 });
-    for (const id of ['R1/A', 'R1/B', 'R1/C', 'A1']) expect(gauge(result, id).measuredSlope! / truth[id]! - 1).toBeCloseTo(0, 2);
-    expect(result.warnings.join(' ')).toMatch(/uniaxial gauge A1: transverse sensitivity corrected with the lame model's predicted transverse strain/);
+    for (const id of ['R1/A', 'R1/B', 'R1/C', 'A1'])
+      expect(gauge(result, id).measuredSlope! / truth[id]! - 1).toBeCloseTo(0, 2);
+    expect(result.warnings.join(' ')).toMatch(
+      /uniaxial gauge A1: transverse sensitivity corrected with the lame model's predicted transverse strain/,
+    );
     expect(gauge(result, 'A1').notes.join(' ')).toMatch(/transverse sensitivity Kt 3 %/);
   });
 });
@@ -103,7 +137,10 @@ describe('corrections', async () => {
 describe('edge zone: a gauge near the head seam is reported, not compared', async () => {
   const input: PlanInput = {
     ...demoPlanInput,
-    gauges: [...demoPlanInput.gauges, { id: 'E1', kind: 'uniaxial', channels: ['SG20'], angleDeg: 90, axialPosition: 100, clockDeg: 0 }],
+    gauges: [
+      ...demoPlanInput.gauges,
+      { id: 'E1', kind: 'uniaxial', channels: ['SG20'], angleDeg: 90, axialPosition: 100, clockDeg: 0 },
+    ],
   };
   const { result } = await reduce(input, { gauges: { E1: { scale: 0.6 } } });
   it('E1 gets edge-zone and outcome not-compared; the verdict ignores it', () => {
@@ -118,7 +155,13 @@ describe('edge zone: a gauge near the head seam is reported, not compared', asyn
 });
 
 describe('thick-walled cylinder (r/t 3): Lamé predicts the truth, membrane is far off', async () => {
-  const input: PlanInput = { ...demoPlanInput, vessel: { shape: 'cylinder', ends: 'closed', insideDiameter: 200, wallThickness: 40, length: 1000 }, testPressure: 80, material: { elasticModulus: 200000, poissonRatio: 0.3, yieldStrength: 600 }, gauges: [demoPlanInput.gauges[0]!, demoPlanInput.gauges[2]!] };
+  const input: PlanInput = {
+    ...demoPlanInput,
+    vessel: { shape: 'cylinder', ends: 'closed', insideDiameter: 200, wallThickness: 40, length: 1000 },
+    testPressure: 80,
+    material: { elasticModulus: 200000, poissonRatio: 0.3, yieldStrength: 600 },
+    gauges: [demoPlanInput.gauges[0]!, demoPlanInput.gauges[2]!],
+  };
   const { result } = await reduce(input);
   it('in band with Lamé; the membrane model over-predicts by more than 40 %', () => {
     expect(gauge(result, 'H1').outcome).toBe('in-band');
@@ -204,11 +247,14 @@ describe('the same log in every format gives the same result', async () => {
     const lines = base.split('\n');
     const header = lines[0]!;
     const cut = 800;
-    const second = lines.slice(cut).filter(Boolean).map((l) => {
-      const cells = l.split(',');
-      cells[0] = (Number(cells[0]) - 400).toFixed(4);
-      return cells.join(',');
-    });
+    const second = lines
+      .slice(cut)
+      .filter(Boolean)
+      .map((l) => {
+        const cells = l.split(',');
+        cells[0] = (Number(cells[0]) - 400).toFixed(4);
+        return cells.join(',');
+      });
     const a = lines.slice(0, cut).join('\n') + '\n';
     const b = [header, ...second].join('\n') + '\n';
     const r = (await reduceLog(plan, [chunked(a), chunked(b)])).result;
@@ -225,7 +271,9 @@ describe('missing samples are counted and named', async () => {
   const { result } = await reduceLog(plan, chunked(lines.join('\n')));
   it('warning names how many and the first line and column', () => {
     expect(result.log.missingSamples).toBe(2);
-    expect(result.warnings.join(' ')).toMatch(/2 missing samples \(empty or non-numeric cells\), the first at line 11, column 'SG10'/);
+    expect(result.warnings.join(' ')).toMatch(
+      /2 missing samples \(empty or non-numeric cells\), the first at line 11, column 'SG10'/,
+    );
   });
 });
 

@@ -57,13 +57,18 @@ function buildSlots(plan: Plan, grids: PlannedGrid[], warnings: string[]): Slot[
     myGrids.forEach((grid, k) => {
       const notes: string[] = [];
       if (g.gaugeFactor !== g.instrumentGaugeFactor)
-        notes.push(`gauge factor ${g.gaugeFactor} against instrument setting ${g.instrumentGaugeFactor}: readings scaled by ${fmt(g.instrumentGaugeFactor / g.gaugeFactor, 4)}`);
+        notes.push(
+          `gauge factor ${g.gaugeFactor} against instrument setting ${g.instrumentGaugeFactor}: readings scaled by ${fmt(g.instrumentGaugeFactor / g.gaugeFactor, 4)}`,
+        );
       if (g.transverseSensitivity !== 0) {
         if (g.kind === 'uniaxial')
           notes.push(
             `transverse sensitivity Kt ${fmt(g.transverseSensitivity * 100)} % corrected with the ${plan.model} model's predicted transverse/along strain ratio ${fmt(ratio, 4)} (factor ${fmt(uniaxialTransverseFactor(g.transverseSensitivity, ratio), 5)})`,
           );
-        else notes.push(`transverse sensitivity Kt ${fmt(g.transverseSensitivity * 100)} % corrected from the three grids (TN-509, ${g.kind === 'rosette-delta' ? 'delta' : 'rectangular'} rosette)`);
+        else
+          notes.push(
+            `transverse sensitivity Kt ${fmt(g.transverseSensitivity * 100)} % corrected from the three grids (TN-509, ${g.kind === 'rosette-delta' ? 'delta' : 'rectangular'} rosette)`,
+          );
       }
       const terms = M[k]!.map((coef, j) => ({ ch: offset + j, coef })).filter((x) => x.coef !== 0);
       slots.push({ grid, gaugeIndex, terms, notes });
@@ -71,7 +76,9 @@ function buildSlots(plan: Plan, grids: PlannedGrid[], warnings: string[]): Slot[
     offset += n;
   });
   if (uniaxialKt.length)
-    warnings.push(`uniaxial gauge${uniaxialKt.length > 1 ? 's' : ''} ${uniaxialKt.join(', ')}: transverse sensitivity corrected with the ${plan.model} model's predicted transverse strain, not a measured one`);
+    warnings.push(
+      `uniaxial gauge${uniaxialKt.length > 1 ? 's' : ''} ${uniaxialKt.join(', ')}: transverse sensitivity corrected with the ${plan.model} model's predicted transverse strain, not a measured one`,
+    );
   return slots;
 }
 
@@ -104,10 +111,13 @@ function hysteresisGap(loading: Pt[], unloading: Pt[], peakPressure: number): nu
   if (loading.length < 2 || unloading.length < 2) return null;
   const L = [...loading].sort((a, b) => a.p - b.p);
   const U = [...unloading].sort((a, b) => a.p - b.p);
-  const lx = L.map((x) => x.p), ly = L.map((x) => x.e);
-  const ux = U.map((x) => x.p), uy = U.map((x) => x.e);
+  const lx = L.map((x) => x.p),
+    ly = L.map((x) => x.e);
+  const ux = U.map((x) => x.p),
+    uy = U.map((x) => x.e);
   let gap: number | null = null;
-  const lo = 0.02 * peakPressure, hi = 0.98 * peakPressure;
+  const lo = 0.02 * peakPressure,
+    hi = 0.98 * peakPressure;
   const probe = (pts: Pt[], xs: number[], ys: number[]) => {
     for (const q of pts) {
       if (q.p <= lo || q.p >= hi) continue;
@@ -143,7 +153,11 @@ function saturationPressure(loading: Pt[], predictedSlope: number): number | nul
 }
 
 /** Reduce a log (one or several consecutive segments) against a plan. */
-export async function reduceLog(plan: Plan, sources: ChunkSource[] | ChunkSource, options: ReduceOptions = {}): Promise<{ result: ReductionResult; series: Series }> {
+export async function reduceLog(
+  plan: Plan,
+  sources: ChunkSource[] | ChunkSource,
+  options: ReduceOptions = {},
+): Promise<{ result: ReductionResult; series: Series }> {
   const warnings: string[] = [];
   const { predicted, gauges: grids } = predictForPlan(plan);
   const shell = shellInputFromPlan(plan);
@@ -329,23 +343,37 @@ export async function reduceLog(plan: Plan, sources: ChunkSource[] | ChunkSource
   warnings.push(...read.warnings);
   const firstSeg = read.segments[0]!;
   if (read.rows === 0 || usedRows === 0 || !detector)
-    throw new InputError('no-data', `the log has a header (line ${firstSeg.headerLine}) but no data rows with a pressure value`, { line: firstSeg.headerLine, column: plan.columns.pressure });
+    throw new InputError(
+      'no-data',
+      `the log has a header (line ${firstSeg.headerLine}) but no data rows with a pressure value`,
+      { line: firstSeg.headerLine, column: plan.columns.pressure },
+    );
   for (const [name, count] of read.validCounts)
     if (count === 0)
-      throw new InputError('empty-column', `line ${firstSeg.headerLine}, column '${name}': the column has no numeric value`, { line: firstSeg.headerLine, column: name });
+      throw new InputError(
+        'empty-column',
+        `line ${firstSeg.headerLine}, column '${name}': the column has no numeric value`,
+        { line: firstSeg.headerLine, column: name },
+      );
   if (read.missingSamples > 0 && read.firstMissing) {
     const fm = read.firstMissing;
     warnings.push(
       `${read.missingSamples} missing sample${read.missingSamples > 1 ? 's' : ''} (empty or non-numeric cells), the first at ${read.segments.length > 1 ? `log ${fm.source + 1}, ` : ''}line ${fm.line}, column '${fm.column}'`,
     );
   }
-  if (read.timeMode === 'index') warnings.push(`no time column: time is the sample index and a hold must last ${Math.max(hs.minSamples, hs.minDurationSeconds)} samples`);
+  if (read.timeMode === 'index')
+    warnings.push(
+      `no time column: time is the sample index and a hold must last ${Math.max(hs.minSamples, hs.minDurationSeconds)} samples`,
+    );
 
   // holds and branches
   const det = detector as HoldDetector;
   const { holds: cHolds, peakIndex } = classifyHolds(det.finish(), bandAbs, zeroBand);
   const loadingHolds = cHolds.filter((h) => h.index <= peakIndex);
-  const holdLevels = distinctLevels(loadingHolds.map((h) => h.pressure), bandAbs);
+  const holdLevels = distinctLevels(
+    loadingHolds.map((h) => h.pressure),
+    bandAbs,
+  );
   const usedHolds = holdLevels >= 3;
   if (!usedHolds) {
     const sampleLevels = levels.size;
@@ -362,15 +390,22 @@ export async function reduceLog(plan: Plan, sources: ChunkSource[] | ChunkSource
     );
   }
 
-  const peakPressure = bmMax[nS]! > -Infinity ? Math.max(bmMax[nS]!, usedHolds ? cHolds[peakIndex]!.pressure : -Infinity) : maxP;
+  const peakPressure =
+    bmMax[nS]! > -Infinity ? Math.max(bmMax[nS]!, usedHolds ? cHolds[peakIndex]!.pressure : -Infinity) : maxP;
   const lastHold = cHolds[cHolds.length - 1];
   const returnHold = usedHolds && lastHold?.branch === 'return' ? lastHold : null;
   const tailOk = tailN >= hs.minSamples && maxP > zeroBand && peakPressure > zeroBand;
   const returned = !!returnHold || tailOk;
   const reached = peakPressure >= 0.95 * tp;
-  if (peakPressure > 1.05 * tp) warnings.push(`peak pressure ${fmt(peakPressure, 4)} ${planPressureUnit(plan.units)} exceeds the test pressure by ${fmt((peakPressure / tp - 1) * 100, 2)} %`);
+  if (peakPressure > 1.05 * tp)
+    warnings.push(
+      `peak pressure ${fmt(peakPressure, 4)} ${planPressureUnit(plan.units)} exceeds the test pressure by ${fmt((peakPressure / tp - 1) * 100, 2)} %`,
+    );
   const incomplete = !reached || !returned;
-  if (!reached) warnings.push(`incomplete: the log has reached ${fmt(peakPressure, 4)} of ${tp} ${planPressureUnit(plan.units)} test pressure so far`);
+  if (!reached)
+    warnings.push(
+      `incomplete: the log has reached ${fmt(peakPressure, 4)} of ${tp} ${planPressureUnit(plan.units)} test pressure so far`,
+    );
   else if (!returned) warnings.push('incomplete: the log has not come back to zero pressure yet');
 
   // zero reading per slot (grids and raw channels)
@@ -388,12 +423,26 @@ export async function reduceLog(plan: Plan, sources: ChunkSource[] | ChunkSource
       if (k < nS) zeroFromSamples++;
     }
   }
-  if (usedHolds && !zeroHold) warnings.push(zeroFromSamples ? 'no zero-pressure hold before loading: zeroed on the first samples at zero pressure' : 'no zero-pressure reading before loading: strains are not zeroed');
+  if (usedHolds && !zeroHold)
+    warnings.push(
+      zeroFromSamples
+        ? 'no zero-pressure hold before loading: zeroed on the first samples at zero pressure'
+        : 'no zero-pressure reading before loading: strains are not zeroed',
+    );
   if (!usedHolds && !zeroFromSamples) warnings.push('the log does not start at zero pressure: strains are not zeroed');
-  if (!returnHold && tailOk && usedHolds) warnings.push(`return to zero read from the last ${tailN} samples at zero pressure (no final hold)`);
+  if (!returnHold && tailOk && usedHolds)
+    warnings.push(`return to zero read from the last ${tailN} samples at zero pressure (no final hold)`);
 
-  const holdsOut: Hold[] = cHolds.map((h) => ({ index: h.index, pressure: h.pressure, start: h.start, end: h.end, branch: h.branch, samples: h.samples }));
-  const holdMean = (h: ClassifiedHold, s: number) => (h.slotCount[s]! > 0 ? h.slotSum[s]! / h.slotCount[s]! - zero[s]! : null);
+  const holdsOut: Hold[] = cHolds.map((h) => ({
+    index: h.index,
+    pressure: h.pressure,
+    start: h.start,
+    end: h.end,
+    branch: h.branch,
+    samples: h.samples,
+  }));
+  const holdMean = (h: ClassifiedHold, s: number) =>
+    h.slotCount[s]! > 0 ? h.slotSum[s]! / h.slotCount[s]! - zero[s]! : null;
   const tol = plan.tolerances;
 
   // per grid: fits, derived values
@@ -425,8 +474,17 @@ export async function reduceLog(plan: Plan, sources: ChunkSource[] | ChunkSource
         if (i >= peakIndex) unloadingPts.push({ p: h.pressure, e });
         if (Math.abs(e) > Math.abs(peak)) peak = e;
       });
-      load = fitLine(loadingPts.map((x) => x.p), loadingPts.map((x) => x.e));
-      unload = unloadingPts.length >= 2 ? fitLine(unloadingPts.map((x) => x.p), unloadingPts.map((x) => x.e)) : null;
+      load = fitLine(
+        loadingPts.map((x) => x.p),
+        loadingPts.map((x) => x.e),
+      );
+      unload =
+        unloadingPts.length >= 2
+          ? fitLine(
+              unloadingPts.map((x) => x.p),
+              unloadingPts.map((x) => x.e),
+            )
+          : null;
       intercept = load ? load.intercept : null;
       if (returnHold) zeroShift = holdStrains[returnHold.index] ?? null;
     } else {
@@ -447,10 +505,12 @@ export async function reduceLog(plan: Plan, sources: ChunkSource[] | ChunkSource
       };
       loadingPts = binPts(loadBins);
       unloadingPts = binPts(postBins);
-      const hi = bmMax[s]! - zero[s]!, lo = bmMin[s]! - zero[s]!;
+      const hi = bmMax[s]! - zero[s]!,
+        lo = bmMin[s]! - zero[s]!;
       if (Number.isFinite(hi) && Number.isFinite(lo)) peak = Math.abs(hi) >= Math.abs(lo) ? hi : lo;
     }
-    if (zeroShift === null && tailOk && tailZero[2 * s + 1]! > 0 && zeroKnown[s]) zeroShift = tailZero[2 * s]! / tailZero[2 * s + 1]! - zero[s]!;
+    if (zeroShift === null && tailOk && tailZero[2 * s + 1]! > 0 && zeroKnown[s])
+      zeroShift = tailZero[2 * s]! / tailZero[2 * s + 1]! - zero[s]!;
     const pk = usedHolds ? cHolds[peakIndex]!.pressure : peakPressure;
     const hGap = hysteresisGap(loadingPts, unloadingPts, pk);
     const hysteresis = hGap !== null && peak !== 0 ? hGap / Math.abs(peak) : null;
@@ -458,11 +518,24 @@ export async function reduceLog(plan: Plan, sources: ChunkSource[] | ChunkSource
       ...loadingPts.map((x) => ({ pressure: x.p, strain: x.e, branch: 'loading' as const })),
       ...unloadingPts.map((x) => ({ pressure: x.p, strain: x.e, branch: 'unloading' as const })),
     ];
-    return { slot, load, unload, intercept, peak, zeroShift, hysteresis, points, holdStrains, saturatedAt: saturationPressure(loadingPts, slot.grid.predictedSlope) };
+    return {
+      slot,
+      load,
+      unload,
+      intercept,
+      peak,
+      zeroShift,
+      hysteresis,
+      points,
+      holdStrains,
+      saturatedAt: saturationPressure(loadingPts, slot.grid.predictedSlope),
+    };
   });
 
   // rosettes (from the corrected grid slopes)
-  const E = plan.material.elasticModulus, nu = plan.material.poissonRatio, Sy = plan.material.yieldStrength;
+  const E = plan.material.elasticModulus,
+    nu = plan.material.poissonRatio,
+    Sy = plan.material.yieldStrength;
   const m = predicted[plan.model];
   const rosettes: RosetteResult[] = [];
   const rosetteYield = new Map<string, number>();
@@ -479,7 +552,8 @@ export async function reduceLog(plan: Plan, sources: ChunkSource[] | ChunkSource
     const [s1, s2] = planeStress(pr.e1 * 1e-6 * tp, pr.e2 * 1e-6 * tp, E, nu);
     const vm = vonMisesPlane(s1, s2);
     rosetteYield.set(g.id, vm / Sy);
-    const ph = m.hoopStrainPerPressure, pa = m.axialStrainPerPressure;
+    const ph = m.hoopStrainPerPressure,
+      pa = m.axialStrainPerPressure;
     rosettes.push({
       id: g.id,
       kind: g.kind,
@@ -512,14 +586,21 @@ export async function reduceLog(plan: Plan, sources: ChunkSource[] | ChunkSource
       notes.push(
         `${fmt(grid.distanceToDiscontinuity!, 4)} ${lengthUnit} from the nearest discontinuity (${grid.distanceTo}), inside the edge zone 2.5·√(r t) = ${fmt(predicted.edgeZoneDistance, 4)} ${lengthUnit}: membrane prediction not valid; reported, not compared`,
       );
-    } else if (grid.distanceToDiscontinuity === null && g.axialPosition === undefined) notes.push('distance to the nearest discontinuity not given: assumed outside the edge zone');
+    } else if (grid.distanceToDiscontinuity === null && g.axialPosition === undefined)
+      notes.push('distance to the nearest discontinuity not given: assumed outside the edge zone');
     if (dead) {
       flags.push('no-response');
-      notes.push(measured === null ? 'no slope could be fitted (too few readings)' : `peak strain ${fmt(it.peak)} µε is below the ${tol.noResponseMicrostrain} µε floor: dead, disconnected or unbonded channel?`);
+      notes.push(
+        measured === null
+          ? 'no slope could be fitted (too few readings)'
+          : `peak strain ${fmt(it.peak)} µε is below the ${tol.noResponseMicrostrain} µε floor: dead, disconnected or unbonded channel?`,
+      );
     } else {
       if (it.saturatedAt !== null) {
         flags.push('no-response');
-        notes.push(`strain stops changing above ${fmt(it.saturatedAt, 4)} ${pUnit}: saturated amplifier or debonded gauge?`);
+        notes.push(
+          `strain stops changing above ${fmt(it.saturatedAt, 4)} ${pUnit}: saturated amplifier or debonded gauge?`,
+        );
       }
       if (!grid.edgeZone && measured !== null && predictedSlope !== 0) {
         if (Math.sign(measured) !== Math.sign(predictedSlope)) {
@@ -528,9 +609,14 @@ export async function reduceLog(plan: Plan, sources: ChunkSource[] | ChunkSource
         }
         if (ratio !== null && Math.abs(ratio - 1) > tol.slopeBand) flags.push('outside-band');
       }
-      if (load?.rSquared !== null && load?.rSquared !== undefined && load.rSquared < tol.minRSquared) flags.push('nonlinear');
+      if (load?.rSquared !== null && load?.rSquared !== undefined && load.rSquared < tol.minRSquared)
+        flags.push('nonlinear');
       if (it.hysteresis !== null && it.hysteresis > tol.hysteresis) flags.push('hysteresis');
-      if (it.zeroShift !== null && Math.abs(it.zeroShift) > Math.max(tol.zeroShiftMicrostrain, tol.zeroShiftFraction * Math.abs(it.peak))) flags.push('zero-shift');
+      if (
+        it.zeroShift !== null &&
+        Math.abs(it.zeroShift) > Math.max(tol.zeroShiftMicrostrain, tol.zeroShiftFraction * Math.abs(it.peak))
+      )
+        flags.push('zero-shift');
     }
     const yieldShare = g.kind === 'uniaxial' ? predicted.membrane.yieldFraction : rosetteYield.get(g.id);
     if (yieldShare !== undefined && yieldShare > tol.yieldFraction) {
@@ -541,7 +627,8 @@ export async function reduceLog(plan: Plan, sources: ChunkSource[] | ChunkSource
           : `von Mises stress from the rosette at test pressure is ${fmt(yieldShare * 100)} % of yield`,
       );
     }
-    if (usedHolds && zeroHold === undefined && !zeroKnown[slots.indexOf(slot)]) notes.push('not zeroed: no zero-pressure reading before loading');
+    if (usedHolds && zeroHold === undefined && !zeroKnown[slots.indexOf(slot)])
+      notes.push('not zeroed: no zero-pressure reading before loading');
     const outcome = grid.edgeZone ? 'not-compared' : flags.length ? 'flagged' : 'in-band';
     const effT = measured !== null && !dead ? effectiveThickness(shell, plan.model, grid.angleDeg, measured) : null;
     return {
@@ -576,7 +663,9 @@ export async function reduceLog(plan: Plan, sources: ChunkSource[] | ChunkSource
     r.flags = [...f];
   }
   if (predicted.membrane.yieldFraction > tol.yieldFraction)
-    warnings.push(`predicted membrane stress at test pressure is ${fmt(predicted.membrane.yieldFraction * 100)} % of yield (limit ${fmt(tol.yieldFraction * 100)} %)`);
+    warnings.push(
+      `predicted membrane stress at test pressure is ${fmt(predicted.membrane.yieldFraction * 100)} % of yield (limit ${fmt(tol.yieldFraction * 100)} %)`,
+    );
 
   const verdict = incomplete ? 'incomplete' : gaugesOut.some((x) => x.outcome === 'flagged') ? 'flagged' : 'conforms';
 

@@ -30,7 +30,7 @@ export function wrapAxisAngle(deg: number): number {
 export function principalRectangular(eA: number, eB: number, eC: number): Principal {
   const mean = (eA + eC) / 2;
   const rad = Math.SQRT1_2 * Math.sqrt((eA - eB) ** 2 + (eB - eC) ** 2);
-  const angle = 0.5 * Math.atan2(2 * eB - eA - eC, eA - eC) / RAD;
+  const angle = (0.5 * Math.atan2(2 * eB - eA - eC, eA - eC)) / RAD;
   return { e1: mean + rad, e2: mean - rad, angleDeg: wrapAxisAngle(angle) };
 }
 
@@ -38,7 +38,7 @@ export function principalRectangular(eA: number, eB: number, eC: number): Princi
 export function principalDelta(eA: number, eB: number, eC: number): Principal {
   const mean = (eA + eB + eC) / 3;
   const rad = (Math.SQRT2 / 3) * Math.sqrt((eA - eB) ** 2 + (eB - eC) ** 2 + (eC - eA) ** 2);
-  const angle = 0.5 * Math.atan2(Math.sqrt(3) * (eB - eC), 2 * eA - eB - eC) / RAD;
+  const angle = (0.5 * Math.atan2(Math.sqrt(3) * (eB - eC), 2 * eA - eB - eC)) / RAD;
   return { e1: mean + rad, e2: mean - rad, angleDeg: wrapAxisAngle(angle) };
 }
 

@@ -13,7 +13,12 @@ export class SeriesBuilder {
   private w: number;
   private used = 0;
 
-  constructor(private readonly channels: string[], maxBuckets: number, private readonly timeIsIndex: boolean, initialWidth = timeIsIndex ? 1 : 0.001) {
+  constructor(
+    private readonly channels: string[],
+    maxBuckets: number,
+    private readonly timeIsIndex: boolean,
+    initialWidth = timeIsIndex ? 1 : 0.001,
+  ) {
     this.nC = channels.length;
     this.maxB = Math.max(2, Math.floor(maxBuckets / 2) * 2);
     this.min = new Float64Array(this.maxB * this.nC).fill(Infinity);
@@ -32,7 +37,8 @@ export class SeriesBuilder {
     }
     const nC = this.nC;
     const base = idx * nC;
-    const mn = this.min, mx = this.max;
+    const mn = this.min,
+      mx = this.max;
     for (let k = 0; k < nC; k++) {
       const v = values[k]!;
       if (v < mn[base + k]!) mn[base + k] = v;
@@ -43,10 +49,14 @@ export class SeriesBuilder {
   }
 
   private compress() {
-    const nC = this.nC, half = this.maxB / 2;
-    const mn = this.min, mx = this.max;
+    const nC = this.nC,
+      half = this.maxB / 2;
+    const mn = this.min,
+      mx = this.max;
     for (let i = 0; i < half; i++) {
-      const a = 2 * i * nC, b = (2 * i + 1) * nC, d = i * nC;
+      const a = 2 * i * nC,
+        b = (2 * i + 1) * nC,
+        d = i * nC;
       for (let k = 0; k < nC; k++) {
         mn[d + k] = Math.min(mn[a + k]!, mn[b + k]!);
         mx[d + k] = Math.max(mx[a + k]!, mx[b + k]!);
@@ -72,9 +82,11 @@ export class SeriesBuilder {
       out.t.push(this.t0 + i * this.w);
       this.channels.forEach((c, k) => {
         const tr = transform?.[k] ?? { offset: 0, scale: 1 };
-        let lo = this.min[i * this.nC + k]!, hi = this.max[i * this.nC + k]!;
+        let lo = this.min[i * this.nC + k]!,
+          hi = this.max[i * this.nC + k]!;
         if (lo === Infinity) lo = hi = NaN; // channel missing in this bucket (JSON: null)
-        const a = (lo - tr.offset) * tr.scale, b = (hi - tr.offset) * tr.scale;
+        const a = (lo - tr.offset) * tr.scale,
+          b = (hi - tr.offset) * tr.scale;
         out.min[c]!.push(Math.min(a, b));
         out.max[c]!.push(Math.max(a, b));
       });
@@ -86,7 +98,8 @@ export class SeriesBuilder {
 /** Re-bucket a stored series to at most `points` buckets over [from, to], keeping each bucket's min and max. */
 export function decimateSeries(series: Series, opts: { from?: number; to?: number; points: number }): Series {
   const points = Math.floor(opts.points);
-  if (!(points >= 1)) throw new InputError('invalid-series-request', 'points: must be a whole number of at least 1', { path: 'points' });
+  if (!(points >= 1))
+    throw new InputError('invalid-series-request', 'points: must be a whole number of at least 1', { path: 'points' });
   const n = series.t.length;
   const from = opts.from ?? (n ? series.t[0]! : 0);
   const to = opts.to ?? (n ? series.t[n - 1]! : 0);
@@ -113,8 +126,10 @@ export function decimateSeries(series: Series, opts: { from?: number; to?: numbe
     }
     const last = out.t.length - 1;
     for (const c of series.channels) {
-      const lo = series.min[c]?.[i] ?? NaN, hi = series.max[c]?.[i] ?? NaN;
-      const mn = out.min[c]!, mx = out.max[c]!;
+      const lo = series.min[c]?.[i] ?? NaN,
+        hi = series.max[c]?.[i] ?? NaN;
+      const mn = out.min[c]!,
+        mx = out.max[c]!;
       if (lo === lo && (mn[last]! !== mn[last]! || lo < mn[last]!)) mn[last] = lo;
       if (hi === hi && (mx[last]! !== mx[last]! || hi > mx[last]!)) mx[last] = hi;
     }

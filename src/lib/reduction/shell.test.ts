@@ -1,5 +1,16 @@
 import { describe, expect, it } from 'vitest';
-import { membraneState, lameOuterState, lameStressAt, predictShell, strainAtAngle, effectiveThickness, edgeZoneDistance, distanceToNearestDiscontinuity, predictForPlan, type ShellInput } from './shell';
+import {
+  membraneState,
+  lameOuterState,
+  lameStressAt,
+  predictShell,
+  strainAtAngle,
+  effectiveThickness,
+  edgeZoneDistance,
+  distanceToNearestDiscontinuity,
+  predictForPlan,
+  type ShellInput,
+} from './shell';
 import { demoPlan } from './testing/fixtures';
 
 const micro = (x: number) => x * 1e6;
@@ -22,7 +33,8 @@ describe('thin shells — REFERENCES.md "Elastic shells", Roark 7th ed. Table 13
     expect(micro(open.hoopStrain)).toBeCloseTo(500, 6);
     expect(micro(open.axialStrain)).toBeCloseTo(-150, 6);
   });
-  it('sphere: 175.0 µε', () => expect(micro(membraneState(2, 500, 10, 200000, 0.3, 'sphere').hoopStrain)).toBeCloseTo(175, 6));
+  it('sphere: 175.0 µε', () =>
+    expect(micro(membraneState(2, 500, 10, 200000, 0.3, 'sphere').hoopStrain)).toBeCloseTo(175, 6));
 });
 
 describe('Lamé — REFERENCES.md, Timoshenko Strength of Materials II [memory], check [derived]', () => {
@@ -49,7 +61,17 @@ describe('membrane over-prediction at the outer surface = (r_mean / a)² — REF
     [20, 0.050625],
   ])('a/t %d → +%f', (aOverT, want) => {
     const t = 10;
-    const input: ShellInput = { shape: 'cylinder', ends: 'closed', insideDiameter: 2 * aOverT * t, wallThickness: t, length: 1000, elasticModulus: 200000, poissonRatio: 0.3, yieldStrength: 300, testPressure: 1 };
+    const input: ShellInput = {
+      shape: 'cylinder',
+      ends: 'closed',
+      insideDiameter: 2 * aOverT * t,
+      wallThickness: t,
+      length: 1000,
+      elasticModulus: 200000,
+      poissonRatio: 0.3,
+      yieldStrength: 300,
+      testPressure: 1,
+    };
     const lame = predictShell(input, 'lame');
     const mem = predictShell(input, 'membrane');
     expect(mem.hoopStrainPerPressure / lame.hoopStrainPerPressure - 1).toBeCloseTo(want, 10);
@@ -68,7 +90,17 @@ describe('strain at a gauge angle ε(θ) = εa cos²θ + εh sin²θ (DESIGN 3.1
 });
 
 describe('effective thickness (solves the model backwards)', () => {
-  const base: ShellInput = { shape: 'cylinder', ends: 'closed', insideDiameter: 1800, wallThickness: 16, length: 6000, elasticModulus: 200000, poissonRatio: 0.3, yieldStrength: 260, testPressure: 3.4 };
+  const base: ShellInput = {
+    shape: 'cylinder',
+    ends: 'closed',
+    insideDiameter: 1800,
+    wallThickness: 16,
+    length: 6000,
+    elasticModulus: 200000,
+    poissonRatio: 0.3,
+    yieldStrength: 260,
+    testPressure: 3.4,
+  };
   it.each([
     ['lame', 90, 14],
     ['lame', 0, 20],
@@ -88,19 +120,37 @@ describe('effective thickness (solves the model backwards)', () => {
 });
 
 describe('edge zone and distance to discontinuities (DESIGN 3.3, 4.1)', () => {
-  it('2.5·√(r t) with the mean radius', () => expect(edgeZoneDistance(1800, 16)).toBeCloseTo(2.5 * Math.sqrt(908 * 16), 10));
+  it('2.5·√(r t) with the mean radius', () =>
+    expect(edgeZoneDistance(1800, 16)).toBeCloseTo(2.5 * Math.sqrt(908 * 16), 10));
   const plan = demoPlan({
     vessel: {
-      shape: 'cylinder', ends: 'closed', insideDiameter: 1800, wallThickness: 16, length: 6000,
-      features: [{ kind: 'nozzle', id: 'N1', axialPosition: 3000, clockDeg: 0, size: 200 }, { kind: 'support', axialPosition: 1000 }],
+      shape: 'cylinder',
+      ends: 'closed',
+      insideDiameter: 1800,
+      wallThickness: 16,
+      length: 6000,
+      features: [
+        { kind: 'nozzle', id: 'N1', axialPosition: 3000, clockDeg: 0, size: 200 },
+        { kind: 'support', axialPosition: 1000 },
+      ],
     },
   });
   it.each([
     ['near the left head seam', { axialPosition: 150, clockDeg: 90 }, 150, 'head seam at 0'],
     ['near the right head seam', { axialPosition: 5900 }, 100, 'head seam at 6000'],
     ['a ring support (no clock)', { axialPosition: 1100, clockDeg: 45 }, 100, 'support 2'],
-    ['beside the nozzle, arc length at the outer radius minus half the size', { axialPosition: 3000, clockDeg: 10 }, (916 * 10 * Math.PI) / 180 - 100, 'nozzle N1'],
-    ['nozzle, across 0/360', { axialPosition: 3300, clockDeg: 355 }, Math.hypot(300, (916 * 5 * Math.PI) / 180) - 100, 'nozzle N1'],
+    [
+      'beside the nozzle, arc length at the outer radius minus half the size',
+      { axialPosition: 3000, clockDeg: 10 },
+      (916 * 10 * Math.PI) / 180 - 100,
+      'nozzle N1',
+    ],
+    [
+      'nozzle, across 0/360',
+      { axialPosition: 3300, clockDeg: 355 },
+      Math.hypot(300, (916 * 5 * Math.PI) / 180) - 100,
+      'nozzle N1',
+    ],
   ])('%s', (_n, g, d, to) => {
     const r = distanceToNearestDiscontinuity(plan, g)!;
     expect(r.distance).toBeCloseTo(d as number, 6);

@@ -40,7 +40,15 @@ function surfaceState(sh: number, sa: number, E: number, nu: number): ShellState
 }
 
 /** Thin shell with radius r (Roark Table 13.1): σh = p r/t, σa = p r/2t (closed), sphere p r/2t. */
-export function membraneState(p: number, r: number, t: number, E: number, nu: number, shape: Shape, ends: Ends = 'closed'): ShellState {
+export function membraneState(
+  p: number,
+  r: number,
+  t: number,
+  E: number,
+  nu: number,
+  shape: Shape,
+  ends: Ends = 'closed',
+): ShellState {
   let sh: number, sa: number;
   if (shape === 'sphere') sh = sa = (p * r) / (2 * t);
   else {
@@ -51,7 +59,15 @@ export function membraneState(p: number, r: number, t: number, E: number, nu: nu
 }
 
 /** Lamé thick shell at the outer surface r = b (σr = 0 there); a inner, b outer radius. */
-export function lameOuterState(p: number, a: number, b: number, E: number, nu: number, shape: Shape, ends: Ends = 'closed'): ShellState {
+export function lameOuterState(
+  p: number,
+  a: number,
+  b: number,
+  E: number,
+  nu: number,
+  shape: Shape,
+  ends: Ends = 'closed',
+): ShellState {
   let sh: number, sa: number;
   if (shape === 'sphere') {
     const B = (p * a ** 3) / (b ** 3 - a ** 3);
@@ -97,8 +113,10 @@ export function predictShell(input: ShellInput, model: ShellModel): ModelPredict
   const p = input.testPressure;
   const a = Di / 2;
   const b = a + t;
-  const perUnit = model === 'lame' ? lameOuterState(1, a, b, E, nu, shape, ends) : membraneState(1, a + t / 2, t, E, nu, shape, ends);
-  const atTest = model === 'lame' ? lameOuterState(p, a, b, E, nu, shape, ends) : membraneState(p, a + t / 2, t, E, nu, shape, ends);
+  const perUnit =
+    model === 'lame' ? lameOuterState(1, a, b, E, nu, shape, ends) : membraneState(1, a + t / 2, t, E, nu, shape, ends);
+  const atTest =
+    model === 'lame' ? lameOuterState(p, a, b, E, nu, shape, ends) : membraneState(p, a + t / 2, t, E, nu, shape, ends);
   let diameterChange: number, thicknessChange: number, yieldFraction: number;
   if (model === 'lame') {
     diameterChange = atTest.hoopStrain * 2 * b; // outer diameter
@@ -177,7 +195,12 @@ export function predictedSlopeAt(input: ShellInput, model: ShellModel, angleDeg:
  * (bisection on log t; the predicted slope falls monotonically with t). Null when no positive
  * thickness matches (opposite sign, or a direction where the prediction is about zero).
  */
-export function effectiveThickness(input: ShellInput, model: ShellModel, angleDeg: number, measuredSlope: number): number | null {
+export function effectiveThickness(
+  input: ShellInput,
+  model: ShellModel,
+  angleDeg: number,
+  measuredSlope: number,
+): number | null {
   if (!Number.isFinite(measuredSlope) || measuredSlope === 0) return null;
   const f = (t: number) => predictedSlopeAt({ ...input, wallThickness: t }, model, angleDeg) - measuredSlope;
   let lo = Math.log(input.insideDiameter * 1e-6);
@@ -208,7 +231,10 @@ export interface DiscontinuityDistance {
  * clockDeg) count the axial difference only; point features add the arc length at the outer radius
  * and, for nozzles, subtract half the feature's size. Null without axialPosition.
  */
-export function distanceToNearestDiscontinuity(plan: Plan, gauge: Pick<PlanGauge, 'axialPosition' | 'clockDeg'>): DiscontinuityDistance | null {
+export function distanceToNearestDiscontinuity(
+  plan: Plan,
+  gauge: Pick<PlanGauge, 'axialPosition' | 'clockDeg'>,
+): DiscontinuityDistance | null {
   if (gauge.axialPosition === undefined) return null;
   const z = gauge.axialPosition;
   const ro = plan.vessel.insideDiameter / 2 + plan.vessel.wallThickness;
@@ -273,7 +299,11 @@ export function predictForPlan(plan: Plan): { predicted: PredictedBlock; gauges:
     const angles = gridAngles(g);
     angles.forEach((angleDeg, k) => {
       const lame = strainAtAngle(predicted.lame.axialStrainPerPressure, predicted.lame.hoopStrainPerPressure, angleDeg);
-      const membrane = strainAtAngle(predicted.membrane.axialStrainPerPressure, predicted.membrane.hoopStrainPerPressure, angleDeg);
+      const membrane = strainAtAngle(
+        predicted.membrane.axialStrainPerPressure,
+        predicted.membrane.hoopStrainPerPressure,
+        angleDeg,
+      );
       const rosette = g.kind !== 'uniaxial';
       gauges.push({
         id: rosette ? `${g.id}/${GRID_NAMES[k]}` : g.id,

@@ -5,8 +5,15 @@ import { linearRegression, rSquared } from 'simple-statistics';
 import { fitLine, fitThroughOrigin, tQuantile975, fitFromSums, interpolateSorted } from './stats';
 
 // NIST StRD "Norris" (public domain), tests/fixtures/nist-strd-norris.dat — REFERENCES.md [read]
-const text = readFileSync(fileURLToPath(new URL('../../../tests/fixtures/nist-strd-norris.dat', import.meta.url)), 'utf8');
-const rows = text.split('\n').slice(60).map((l) => l.trim().split(/\s+/).map(Number)).filter((r) => r.length === 2 && r.every(Number.isFinite));
+const text = readFileSync(
+  fileURLToPath(new URL('../../../tests/fixtures/nist-strd-norris.dat', import.meta.url)),
+  'utf8',
+);
+const rows = text
+  .split('\n')
+  .slice(60)
+  .map((l) => l.trim().split(/\s+/).map(Number))
+  .filter((r) => r.length === 2 && r.every(Number.isFinite));
 const ys = rows.map((r) => r[0]!);
 const xs = rows.map((r) => r[1]!);
 
@@ -34,14 +41,25 @@ describe('NIST StRD Norris — certified values (REFERENCES.md)', () => {
   it('agrees with simple-statistics', () => {
     const ss = linearRegression(rows.map((r) => [r[1]!, r[0]!]));
     expect(fit.slope).toBeCloseTo(ss.m, 9);
-    expect(fit.rSquared!).toBeCloseTo(rSquared(rows.map((r) => [r[1]!, r[0]!]), (x) => ss.m * x + ss.b), 9);
+    expect(fit.rSquared!).toBeCloseTo(
+      rSquared(
+        rows.map((r) => [r[1]!, r[0]!]),
+        (x) => ss.m * x + ss.b,
+      ),
+      9,
+    );
   });
   it('the streaming sums give the same fit', () => {
     const sums = new Float64Array(6);
     const y0 = ys[0]!;
     xs.forEach((x, i) => {
       const y = ys[i]! - y0;
-      sums[0]++; sums[1] += x; sums[2] += y; sums[3] += x * x; sums[4] += x * y; sums[5] += y * y;
+      sums[0]++;
+      sums[1] += x;
+      sums[2] += y;
+      sums[3] += x * x;
+      sums[4] += x * y;
+      sums[5] += y * y;
     });
     const f = fitFromSums(sums, 0)!;
     expect(f.slope).toBeCloseTo(fit.slope, 9);

@@ -20,7 +20,14 @@ export function tQuantile975(dof: number): number {
 }
 
 /** Fit from centred sums (Sxx = Σ(x−x̄)², Sxy, Syy): shared by the point and the streaming fits. */
-export function fitFromMoments(n: number, meanX: number, meanY: number, sxx: number, sxy: number, syy: number): LineFit | null {
+export function fitFromMoments(
+  n: number,
+  meanX: number,
+  meanY: number,
+  sxx: number,
+  sxy: number,
+  syy: number,
+): LineFit | null {
   if (n < 2 || !(sxx > 0)) return null;
   const slope = sxy / sxx;
   const intercept = meanY - slope * meanX;
@@ -30,21 +37,32 @@ export function fitFromMoments(n: number, meanX: number, meanY: number, sxx: num
   const residualSD = Math.sqrt(sse / (n - 2));
   const slopeSE = residualSD / Math.sqrt(sxx);
   const tq = tQuantile975(n - 2);
-  return { n, slope, intercept, rSquared, residualSD, slopeSE, slopeCI95: [slope - tq * slopeSE, slope + tq * slopeSE] };
+  return {
+    n,
+    slope,
+    intercept,
+    rSquared,
+    residualSD,
+    slopeSE,
+    slopeCI95: [slope - tq * slopeSE, slope + tq * slopeSE],
+  };
 }
 
 /** Ordinary least squares y = intercept + slope·x (two-pass, centred). Null with fewer than 2 distinct x. */
 export function fitLine(xs: readonly number[], ys: readonly number[]): LineFit | null {
   const n = Math.min(xs.length, ys.length);
   if (n < 2) return null;
-  let mx = 0, my = 0;
+  let mx = 0,
+    my = 0;
   for (let i = 0; i < n; i++) {
     mx += xs[i]!;
     my += ys[i]!;
   }
   mx /= n;
   my /= n;
-  let sxx = 0, sxy = 0, syy = 0;
+  let sxx = 0,
+    sxy = 0,
+    syy = 0;
   for (let i = 0; i < n; i++) {
     const dx = xs[i]! - mx;
     const dy = ys[i]! - my;
@@ -56,9 +74,13 @@ export function fitLine(xs: readonly number[], ys: readonly number[]): LineFit |
 }
 
 /** Least squares through the origin y = slope·x, with the slope's standard deviation (NIST NoInt). */
-export function fitThroughOrigin(xs: readonly number[], ys: readonly number[]): { slope: number; slopeSE: number | null; residualSD: number | null } | null {
+export function fitThroughOrigin(
+  xs: readonly number[],
+  ys: readonly number[],
+): { slope: number; slopeSE: number | null; residualSD: number | null } | null {
   const n = Math.min(xs.length, ys.length);
-  let sxx = 0, sxy = 0;
+  let sxx = 0,
+    sxy = 0;
   for (let i = 0; i < n; i++) {
     sxx += xs[i]! * xs[i]!;
     sxy += xs[i]! * ys[i]!;
@@ -82,8 +104,10 @@ export const SUMS_STRIDE = 6;
 export function fitFromSums(sums: Float64Array, offset: number): LineFit | null {
   const n = sums[offset]!;
   if (n < 2) return null;
-  const sx = sums[offset + 1]!, sy = sums[offset + 2]!;
-  const mx = sx / n, my = sy / n;
+  const sx = sums[offset + 1]!,
+    sy = sums[offset + 2]!;
+  const mx = sx / n,
+    my = sy / n;
   const sxx = sums[offset + 3]! - sx * mx;
   const sxy = sums[offset + 4]! - sx * my;
   const syy = Math.max(0, sums[offset + 5]! - sy * my);
@@ -95,13 +119,15 @@ export function interpolateSorted(xs: readonly number[], ys: readonly number[], 
   const n = xs.length;
   if (n === 0 || x < xs[0]! || x > xs[n - 1]!) return null;
   if (n === 1) return ys[0]!;
-  let lo = 0, hi = n - 1;
+  let lo = 0,
+    hi = n - 1;
   while (hi - lo > 1) {
     const mid = (lo + hi) >> 1;
     if (xs[mid]! <= x) lo = mid;
     else hi = mid;
   }
-  const x0 = xs[lo]!, x1 = xs[hi]!;
+  const x0 = xs[lo]!,
+    x1 = xs[hi]!;
   if (x1 === x0) return (ys[lo]! + ys[hi]!) / 2;
   return ys[lo]! + ((ys[hi]! - ys[lo]!) * (x - x0)) / (x1 - x0);
 }

@@ -12,20 +12,33 @@ export type Encoding = 'utf-8' | 'utf-16le' | 'utf-16be' | 'windows-1252';
 
 /** Look at the first bytes: BOM, encoding, and whether this is text at all (throws InputError if not). */
 export function sniffBytes(head: Uint8Array): { encoding: Encoding; bomLength: number } {
-  if (head.length >= 3 && head[0] === 0xef && head[1] === 0xbb && head[2] === 0xbf) return { encoding: 'utf-8', bomLength: 3 };
+  if (head.length >= 3 && head[0] === 0xef && head[1] === 0xbb && head[2] === 0xbf)
+    return { encoding: 'utf-8', bomLength: 3 };
   if (head.length >= 2 && head[0] === 0xff && head[1] === 0xfe) return { encoding: 'utf-16le', bomLength: 2 };
   if (head.length >= 2 && head[0] === 0xfe && head[1] === 0xff) return { encoding: 'utf-16be', bomLength: 2 };
   const sig = (...b: number[]) => b.every((v, i) => head[i] === v);
   if (sig(0x50, 0x4b, 0x03, 0x04))
-    throw new InputError('not-delimited-text', 'the log is a ZIP archive (an .xlsx workbook?), not delimited text: export it as CSV', { line: 1 });
+    throw new InputError(
+      'not-delimited-text',
+      'the log is a ZIP archive (an .xlsx workbook?), not delimited text: export it as CSV',
+      { line: 1 },
+    );
   if (sig(0xd0, 0xcf, 0x11, 0xe0))
-    throw new InputError('not-delimited-text', 'the log is an old Excel (.xls) workbook, not delimited text: export it as CSV', { line: 1 });
+    throw new InputError(
+      'not-delimited-text',
+      'the log is an old Excel (.xls) workbook, not delimited text: export it as CSV',
+      { line: 1 },
+    );
   if (sig(0x25, 0x50, 0x44, 0x46))
-    throw new InputError('not-delimited-text', 'the log is a PDF, not delimited text: upload the data file (CSV)', { line: 1 });
+    throw new InputError('not-delimited-text', 'the log is a PDF, not delimited text: upload the data file (CSV)', {
+      line: 1,
+    });
   assertTextBytes(head, 0, Math.min(head.length, 8192), 1);
   let utf8 = true;
   try {
-    new TextDecoder('utf-8', { fatal: true }).decode(head.subarray(0, trimIncompleteUtf8(head, Math.min(head.length, 65536))));
+    new TextDecoder('utf-8', { fatal: true }).decode(
+      head.subarray(0, trimIncompleteUtf8(head, Math.min(head.length, 65536))),
+    );
   } catch {
     utf8 = false;
   }
@@ -51,12 +64,19 @@ export function assertTextBytes(buf: Uint8Array, from: number, to: number, first
   for (let i = from; i < to; i++) {
     const c = buf[i]!;
     if (c === 10) line++;
-    else if (c === 0) throw new InputError('not-delimited-text', `the log is not delimited text (binary data at line ${line})`, { line });
+    else if (c === 0)
+      throw new InputError('not-delimited-text', `the log is not delimited text (binary data at line ${line})`, {
+        line,
+      });
     else if (c < 32 && c !== 9 && c !== 13 && c !== 12) ctrl++;
   }
   const n = to - from;
   if (n > 0 && ctrl > Math.max(2, n * 0.01))
-    throw new InputError('not-delimited-text', `the log is not delimited text (${ctrl} control characters in its first ${n} bytes)`, { line: firstLine });
+    throw new InputError(
+      'not-delimited-text',
+      `the log is not delimited text (${ctrl} control characters in its first ${n} bytes)`,
+      { line: firstLine },
+    );
 }
 
 /** Throw not-delimited-text for decoded text that holds NUL or many control characters. */
@@ -67,11 +87,18 @@ export function assertTextString(text: string): void {
   for (let i = 0; i < n; i++) {
     const c = text.charCodeAt(i);
     if (c === 10) line++;
-    else if (c === 0) throw new InputError('not-delimited-text', `the log is not delimited text (binary data at line ${line})`, { line });
+    else if (c === 0)
+      throw new InputError('not-delimited-text', `the log is not delimited text (binary data at line ${line})`, {
+        line,
+      });
     else if ((c < 32 && c !== 9 && c !== 13 && c !== 12) || c === 0xfffd) ctrl++;
   }
   if (n > 0 && ctrl > Math.max(2, n * 0.01))
-    throw new InputError('not-delimited-text', `the log is not delimited text (${ctrl} control characters in its first ${n} characters)`, { line: 1 });
+    throw new InputError(
+      'not-delimited-text',
+      `the log is not delimited text (${ctrl} control characters in its first ${n} characters)`,
+      { line: 1 },
+    );
 }
 
 /** Cells of one line. Lines with quotes go through papaparse; others are split directly. */
@@ -157,7 +184,10 @@ export interface HeaderFound {
  * other mapped column (so a preamble line that merely mentions the pressure channel is skipped).
  * Returns the first line that holds the pressure column alone as `weak` when no better line is seen.
  */
-export function findHeaderLine(plan: Plan, lines: readonly string[]): { strong: HeaderFound | null; weak: HeaderFound | null } {
+export function findHeaderLine(
+  plan: Plan,
+  lines: readonly string[],
+): { strong: HeaderFound | null; weak: HeaderFound | null } {
   const others = [plan.columns.time, ...planChannels(plan)].filter((x): x is string => !!x);
   let weak: HeaderFound | null = null;
   for (let i = 0; i < lines.length; i++) {
@@ -169,7 +199,8 @@ export function findHeaderLine(plan: Plan, lines: readonly string[]): { strong: 
       const cells = splitCells(line, d);
       if (findColumn(cells, plan.columns.pressure).length === 0) continue;
       const score = others.reduce((s, o) => s + (findColumn(cells, o).length > 0 ? 1 : 0), 0);
-      if (!best || score > best.score || (score === best.score && cells.length > best.cells.length)) best = { d, cells, score };
+      if (!best || score > best.score || (score === best.score && cells.length > best.cells.length))
+        best = { d, cells, score };
     }
     if (!best) continue;
     const found = { index: i, delimiter: best.d, cells: best.cells.map(cleanCell) };
@@ -184,7 +215,11 @@ export function resolvePressureUnit(unit: string | null, column: string, line: n
   if (unit === null) return null;
   const u = normalizePressureUnit(unit);
   if (!u)
-    throw new InputError('unknown-pressure-unit', `line ${line}, column '${column}': unknown pressure unit [${unit}] (use MPa, kPa, bar or psi)`, { line, column });
+    throw new InputError(
+      'unknown-pressure-unit',
+      `line ${line}, column '${column}': unknown pressure unit [${unit}] (use MPa, kPa, bar or psi)`,
+      { line, column },
+    );
   return u;
 }
 

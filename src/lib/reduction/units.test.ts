@@ -1,5 +1,14 @@
 import { describe, expect, it } from 'vitest';
-import { PSI_IN_PA, psiToMPa, mpaToPsi, inToMm, mmToIn, barToMPa, normalizePressureUnit, pressureFactor } from './units';
+import {
+  PSI_IN_PA,
+  psiToMPa,
+  mpaToPsi,
+  inToMm,
+  mmToIn,
+  barToMPa,
+  normalizePressureUnit,
+  pressureFactor,
+} from './units';
 
 describe('units — NIST SP 811 appendix B.8 [read] (REFERENCES.md)', () => {
   it('1 psi = 6894.757293168 Pa exactly', () => expect(PSI_IN_PA).toBe(6894.757293168));

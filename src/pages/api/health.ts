@@ -5,7 +5,10 @@ import { storageAnswers } from '../../server/storage.server';
 
 async function databaseAnswers(): Promise<boolean> {
   try {
-    await Promise.race([getPool().query('SELECT 1'), new Promise((_, reject) => setTimeout(() => reject(new Error('timeout')), 2000))]);
+    await Promise.race([
+      getPool().query('SELECT 1'),
+      new Promise((_, reject) => setTimeout(() => reject(new Error('timeout')), 2000)),
+    ]);
     return true;
   } catch {
     return false;

@@ -7,7 +7,12 @@ import { audit } from '../audit.server';
 import { verifyPassword } from './passwords.server';
 import { clearSignInFailures, recordSignInFailure, signInWaitMs } from './throttle.server';
 
-export interface SignedInUser { id: string; email: string; name: string; role: string }
+export interface SignedInUser {
+  id: string;
+  email: string;
+  name: string;
+  role: string;
+}
 
 export async function checkCredentials(emailRaw: unknown, passwordRaw: unknown): Promise<SignedInUser | null> {
   if (typeof emailRaw !== 'string' || typeof passwordRaw !== 'string') return null;

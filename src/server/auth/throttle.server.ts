@@ -7,7 +7,10 @@ const WINDOW_MS = 15 * 60_000;
 const BASE_WAIT_MS = 30_000;
 const MAX_WAIT_MS = 15 * 60_000;
 
-interface Entry { failures: number; lastFailureAt: number }
+interface Entry {
+  failures: number;
+  lastFailureAt: number;
+}
 const entries = new Map<string, Entry>();
 
 const key = (email: string) => email.trim().toLowerCase();

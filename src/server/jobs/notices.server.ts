@@ -23,7 +23,12 @@ export const reductionNotices: JobHooks = {
         test.id,
       );
     } else {
-      await queueMail(owner.email, `Hoopline: reduction of "${test.name}" failed`, `The reduction ${job.id} of "${test.name}" failed:\n${detail.error}\n\nSee: ${link}\n\n— Hoopline`, test.id);
+      await queueMail(
+        owner.email,
+        `Hoopline: reduction of "${test.name}" failed`,
+        `The reduction ${job.id} of "${test.name}" failed:\n${detail.error}\n\nSee: ${link}\n\n— Hoopline`,
+        test.id,
+      );
     }
   },
 };

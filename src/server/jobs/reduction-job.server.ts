@@ -3,7 +3,14 @@
 // result — or fails the job with a clear message (bad input: for good; a fault: retried).
 import { inArray } from 'drizzle-orm';
 import { getDb } from '../../db/client.server';
-import { claimNextReduction, completeReduction, failReduction, heartbeatReduction, type GaugeResultInput, type RosetteResultInput } from '../../db/queries/reductions';
+import {
+  claimNextReduction,
+  completeReduction,
+  failReduction,
+  heartbeatReduction,
+  type GaugeResultInput,
+  type RosetteResultInput,
+} from '../../db/queries/reductions';
 import { logFiles, type Reduction } from '../../db/schema';
 import { ENGINE_VERSION, parsePlan, reduceLog } from '../../lib/reduction';
 import type { ReductionResult } from '../../lib/reduction/types';
@@ -29,17 +36,36 @@ async function* lazyObject(key: string): AsyncIterable<Uint8Array> {
 
 function gaugeRows(result: ReductionResult): GaugeResultInput[] {
   return result.gauges.map((g) => ({
-    gaugeId: g.id, channel: g.channel, angleDeg: g.angleDeg, measuredSlope: g.measuredSlope, predictedSlope: g.predictedSlope,
-    ratio: g.ratio, deviation: g.deviation, ciLow: g.slopeCI95?.[0] ?? null, ciHigh: g.slopeCI95?.[1] ?? null, rSquared: g.rSquared,
-    unloadingSlope: g.unloadingSlope, hysteresis: g.hysteresis, zeroShift: g.zeroShift, peakStrain: g.peakStrain,
-    effectiveThickness: g.effectiveThickness, flags: g.flags, outcome: g.outcome,
+    gaugeId: g.id,
+    channel: g.channel,
+    angleDeg: g.angleDeg,
+    measuredSlope: g.measuredSlope,
+    predictedSlope: g.predictedSlope,
+    ratio: g.ratio,
+    deviation: g.deviation,
+    ciLow: g.slopeCI95?.[0] ?? null,
+    ciHigh: g.slopeCI95?.[1] ?? null,
+    rSquared: g.rSquared,
+    unloadingSlope: g.unloadingSlope,
+    hysteresis: g.hysteresis,
+    zeroShift: g.zeroShift,
+    peakStrain: g.peakStrain,
+    effectiveThickness: g.effectiveThickness,
+    flags: g.flags,
+    outcome: g.outcome,
   }));
 }
 
 function rosetteRows(result: ReductionResult): RosetteResultInput[] {
   return result.rosettes.map((r) => ({
-    rosetteId: r.id, principalStrain1: r.principalStrains[0], principalStrain2: r.principalStrains[1], principalAngleDeg: r.principalAngleDeg,
-    principalStress1: r.principalStresses[0], principalStress2: r.principalStresses[1], vonMises: r.vonMises, flags: r.flags,
+    rosetteId: r.id,
+    principalStrain1: r.principalStrains[0],
+    principalStrain2: r.principalStrains[1],
+    principalAngleDeg: r.principalAngleDeg,
+    principalStress1: r.principalStresses[0],
+    principalStress2: r.principalStresses[1],
+    vonMises: r.vonMises,
+    flags: r.flags,
   }));
 }
 
@@ -47,7 +73,11 @@ export interface JobHooks {
   /** called as soon as a job is claimed (the worker remembers it to give it back on shutdown) */
   onClaimed?: (reductionId: number) => void;
   /** called after a job is stored (e-mail notices); failures here never fail the job */
-  onFinished?: (job: Reduction, outcome: 'done' | 'failed', detail: { result?: ReductionResult; error?: string }) => Promise<void>;
+  onFinished?: (
+    job: Reduction,
+    outcome: 'done' | 'failed',
+    detail: { result?: ReductionResult; error?: string },
+  ) => Promise<void>;
 }
 
 /** Claim and run one job. Resolves to the job id handled, or null when the queue is empty. */
@@ -61,7 +91,8 @@ export async function runNextReduction(workerId: string, hooks: JobHooks = {}): 
   try {
     const plan = parsePlan(job.parameters.plan);
     const logs = await logsOf(job);
-    if (!logs.length) throw Object.assign(new Error('The test has no logs to reduce.'), { name: 'InputError', code: 'no-data' });
+    if (!logs.length)
+      throw Object.assign(new Error('The test has no logs to reduce.'), { name: 'InputError', code: 'no-data' });
     const total = logs.reduce((s, l) => s + l.sizeBytes, 0) || 1;
     let lastBeat = Date.now();
     let beating: Promise<void> | null = null;
@@ -71,19 +102,41 @@ export async function runNextReduction(workerId: string, hooks: JobHooks = {}): 
       if (Date.now() - lastBeat < 1000 || beating) return;
       lastBeat = Date.now();
       beating = heartbeatReduction(db, job.id, workerId, Math.min(0.98, bytesRead / total), lease)
-        .then((held) => { if (!held) lost = true; })
+        .then((held) => {
+          if (!held) lost = true;
+        })
         .catch(() => undefined)
-        .finally(() => { beating = null; });
+        .finally(() => {
+          beating = null;
+        });
     };
-    const { result, series } = await reduceLog(plan, logs.map((l) => lazyObject(l.objectKey)), { onProgress, seriesBuckets: 20_000 });
+    const { result, series } = await reduceLog(
+      plan,
+      logs.map((l) => lazyObject(l.objectKey)),
+      { onProgress, seriesBuckets: 20_000 },
+    );
     if (beating) await beating;
     if (lost) throw new LeaseLost();
     const seriesKey = `reductions/${job.id}/series.json`;
     await putObject(seriesKey, JSON.stringify(series));
     const stored = await completeReduction(db, {
-      id: job.id, testId: job.testId, workerId, engineVersion: result.engineVersion ?? ENGINE_VERSION, result, seriesKey, gauges: gaugeRows(result), rosettes: rosetteRows(result),
-      audit: { actor, details: { reductionId: job.id, verdict: result.verdict, attempt: job.attempts, worker: workerId } },
-      summary: { verdict: result.verdict, flaggedCount: result.gauges.filter((g) => g.outcome === 'flagged').length, logIds: job.parameters.logIds },
+      id: job.id,
+      testId: job.testId,
+      workerId,
+      engineVersion: result.engineVersion ?? ENGINE_VERSION,
+      result,
+      seriesKey,
+      gauges: gaugeRows(result),
+      rosettes: rosetteRows(result),
+      audit: {
+        actor,
+        details: { reductionId: job.id, verdict: result.verdict, attempt: job.attempts, worker: workerId },
+      },
+      summary: {
+        verdict: result.verdict,
+        flaggedCount: result.gauges.filter((g) => g.outcome === 'flagged').length,
+        logIds: job.parameters.logIds,
+      },
     });
     if (!stored.stored) throw new LeaseLost();
     await hooks.onFinished?.(job, 'done', { result }).catch((e) => console.error('notice after reduction failed:', e));
@@ -93,15 +146,22 @@ export async function runNextReduction(workerId: string, hooks: JobHooks = {}): 
       return job.id;
     }
     const isInput = (err as { name?: string }).name === 'InputError';
-    const message = isInput ? (err as Error).message : `Internal fault while reducing: ${(err as Error).message ?? String(err)}`;
+    const message = isInput
+      ? (err as Error).message
+      : `Internal fault while reducing: ${(err as Error).message ?? String(err)}`;
     if (!isInput) console.error(`[${workerId}] reduction ${job.id} failed:`, err);
     const outcome = await failReduction(db, { id: job.id, workerId, error: message, retry: !isInput });
     if (outcome === 'failed') {
-      await audit({ actor, action: 'reduction-failed', testId: job.testId, details: { reductionId: job.id, error: message } });
-      await hooks.onFinished?.(job, 'failed', { error: message }).catch((e) => console.error('notice after reduction failed:', e));
+      await audit({
+        actor,
+        action: 'reduction-failed',
+        testId: job.testId,
+        details: { reductionId: job.id, error: message },
+      });
+      await hooks
+        .onFinished?.(job, 'failed', { error: message })
+        .catch((e) => console.error('notice after reduction failed:', e));
     }
   }
   return job.id;
 }
-
-

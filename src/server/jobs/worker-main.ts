@@ -25,15 +25,24 @@ async function stop() {
 process.on('SIGINT', stop);
 process.on('SIGTERM', stop);
 
-console.log(`[${workerId}] reduction worker started (lease ${config.WORKER_LEASE_SECONDS} s, poll ${config.WORKER_POLL_MS} ms)`);
+console.log(
+  `[${workerId}] reduction worker started (lease ${config.WORKER_LEASE_SECONDS} s, poll ${config.WORKER_POLL_MS} ms)`,
+);
 let lastMailAt = 0;
 while (!stopping) {
   if (Date.now() - lastMailAt >= config.WORKER_POLL_MS) {
     lastMailAt = Date.now();
-    await deliverDueMail().catch((err) => console.error(`[${workerId}] outbox:`, err instanceof Error ? err.message : err));
+    await deliverDueMail().catch((err) =>
+      console.error(`[${workerId}] outbox:`, err instanceof Error ? err.message : err),
+    );
   }
   try {
-    const handled = await runNextReduction(workerId, { ...reductionNotices, onClaimed: (id) => { current = id; } });
+    const handled = await runNextReduction(workerId, {
+      ...reductionNotices,
+      onClaimed: (id) => {
+        current = id;
+      },
+    });
     current = null;
     if (handled !== null) {
       console.log(`[${workerId}] handled reduction ${handled}`);

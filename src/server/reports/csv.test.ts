@@ -3,7 +3,13 @@ import { describe, expect, it } from 'vitest';
 import { renderSummaryCsv } from './csv';
 import { REPORT_CAUTION, formatFixed } from './format';
 import { ReportInputError, type ReportInput } from './report-input';
-import { ACCEPT_REASON, EXCLUDE_REASON, buildReleasedReportInput, buildSiReportInput, buildUsReportInput } from './testing/report-fixture';
+import {
+  ACCEPT_REASON,
+  EXCLUDE_REASON,
+  buildReleasedReportInput,
+  buildSiReportInput,
+  buildUsReportInput,
+} from './testing/report-fixture';
 
 interface ParsedCsv {
   raw: string;
@@ -41,10 +47,28 @@ function parseSummary(csv: string): ParsedCsv {
 }
 
 const SI_GAUGE_COLUMNS = [
-  'gauge_id', 'channel', 'angle_deg', 'predicted_slope_ue_per_MPa', 'measured_slope_ue_per_MPa', 'ratio', 'deviation_pct',
-  'slope_ci95_low_ue_per_MPa', 'slope_ci95_high_ue_per_MPa', 'r_squared', 'unloading_slope_ue_per_MPa', 'hysteresis_pct',
-  'zero_shift_ue', 'peak_strain_ue', 'effective_thickness_mm', 'distance_to_discontinuity_mm', 'flags', 'outcome',
-  'disposition', 'disposition_reason', 'disposed_by', 'disposed_at',
+  'gauge_id',
+  'channel',
+  'angle_deg',
+  'predicted_slope_ue_per_MPa',
+  'measured_slope_ue_per_MPa',
+  'ratio',
+  'deviation_pct',
+  'slope_ci95_low_ue_per_MPa',
+  'slope_ci95_high_ue_per_MPa',
+  'r_squared',
+  'unloading_slope_ue_per_MPa',
+  'hysteresis_pct',
+  'zero_shift_ue',
+  'peak_strain_ue',
+  'effective_thickness_mm',
+  'distance_to_discontinuity_mm',
+  'flags',
+  'outcome',
+  'disposition',
+  'disposition_reason',
+  'disposed_by',
+  'disposed_at',
 ];
 
 describe.each([
@@ -95,7 +119,9 @@ describe.each([
     expect(h2.disposition_reason).toBe(ACCEPT_REASON);
     expect(h2.disposed_by).toBe('Ines Okafor');
     expect(h2.disposed_at).toBe('2026-12-02T16:40:00Z');
-    expect(csv.raw).toContain('"Gauge sits 40 mm from the ""repad"" edge, where the wall is locally stiffer; accepted, see note 4"');
+    expect(csv.raw).toContain(
+      '"Gauge sits 40 mm from the ""repad"" edge, where the wall is locally stiffer; accepted, see note 4"',
+    );
   });
 
   it('writes the header block: test, vessel, material, model, pressure with unit, tolerances, logs, verdict, signatures', () => {
@@ -157,7 +183,9 @@ describe('renderSummaryCsv edge cases', () => {
     const input = buildSiReportInput();
     input.dispositions.H2!.reason = '=HYPERLINK("http://example.com","x")';
     const csv = parseSummary(renderSummaryCsv(input));
-    expect(csv.gauges.find((g) => g.gauge_id === 'H2')!.disposition_reason).toBe(`'=HYPERLINK("http://example.com","x")`);
+    expect(csv.gauges.find((g) => g.gauge_id === 'H2')!.disposition_reason).toBe(
+      `'=HYPERLINK("http://example.com","x")`,
+    );
     // Negative numbers are numbers, not formulas: left alone.
     expect(csv.gauges.find((g) => g.gauge_id === 'H1')!.deviation_pct).toMatch(/^-\d/);
   });
@@ -179,7 +207,11 @@ describe('renderSummaryCsv edge cases', () => {
 
   it.each<[string, (i: ReportInput) => void, RegExp]>([
     ['units', (i) => (i.units = 'US'), /units say US but the reduction result is in SI/],
-    ['a disposition for an unknown gauge', (i) => (i.dispositions.X9 = { ...i.dispositions.H2! }), /disposition for gauge 'X9'/],
+    [
+      'a disposition for an unknown gauge',
+      (i) => (i.dispositions.X9 = { ...i.dispositions.H2! }),
+      /disposition for gauge 'X9'/,
+    ],
     ['model', (i) => (i.model = 'membrane'), /model says membrane but the reduction used lame/],
   ])('refuses a record whose %s contradicts the result', (_, spoil, message) => {
     const input = buildSiReportInput();

@@ -37,7 +37,9 @@ describe('number formatting', () => {
 
   it('names the download from the test, reduction and draft state in ASCII', () => {
     const input = buildSiReportInput();
-    expect(buildExportFilename(input, 'pdf')).toBe('hoopline-test-12-hydrotest-t-101-after-nozzle-repair-r34-draft.pdf');
+    expect(buildExportFilename(input, 'pdf')).toBe(
+      'hoopline-test-12-hydrotest-t-101-after-nozzle-repair-r34-draft.pdf',
+    );
     input.draft = false;
     input.test.name = 'Prüfung Behälter Nr. 7';
     expect(buildExportFilename(input, 'csv')).toBe('hoopline-test-12-prufung-behalter-nr-7-r34.csv');
@@ -83,6 +85,8 @@ describe('decodeWoff', () => {
   });
 
   it('names the problem for a file that is not WOFF 1.0', () => {
-    expect(() => decodeWoff(readFileSync(interFontPath('latin', 400).replace(/\.woff$/, '.woff2')))).toThrow(/not a WOFF 1\.0 font/);
+    expect(() => decodeWoff(readFileSync(interFontPath('latin', 400).replace(/\.woff$/, '.woff2')))).toThrow(
+      /not a WOFF 1\.0 font/,
+    );
   });
 });

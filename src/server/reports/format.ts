@@ -1,6 +1,13 @@
 // Formatting shared by the CSV and PDF renderers, so both show the same numbers with the same
 // precision, and the column list that both tables are built from.
-import type { FlagCode, GaugeOutcome, GaugeResult, RosetteResult, ShellModel, TestVerdict } from '../../lib/reduction/types';
+import type {
+  FlagCode,
+  GaugeOutcome,
+  GaugeResult,
+  RosetteResult,
+  ShellModel,
+  TestVerdict,
+} from '../../lib/reduction/types';
 import { outcomeOf, unitLabels, type ReportInput, type UnitSystem } from './report-input';
 
 /** Decimal places per quantity; US slopes (µε/psi) are ~145× smaller than SI ones (µε/MPa). */
@@ -12,7 +19,9 @@ export interface Precision {
 }
 
 export function precisionFor(units: UnitSystem): Precision {
-  return units === 'SI' ? { slope: 2, stress: 1, length: 2, distance: 0 } : { slope: 4, stress: 0, length: 4, distance: 2 };
+  return units === 'SI'
+    ? { slope: 2, stress: 1, length: 2, distance: 0 }
+    : { slope: 4, stress: 0, length: 4, distance: 2 };
 }
 
 /** Fixed decimals, '' for null or non-finite, and never "-0.00". */

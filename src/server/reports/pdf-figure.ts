@@ -75,7 +75,10 @@ export function drawStrainPressureFigure(doc: Doc, box: Box, gauge: GaugeResult,
   // Title: id, channel, angle; the outcome on the right in its colour.
   drawTextLine(doc, gauge.id, box.x, box.y, { size: 9.5, weight: 700 });
   const idWidth = measureText(doc, gauge.id, { size: 9.5, weight: 700 });
-  drawTextLine(doc, `${gauge.channel} · ${formatFixed(gauge.angleDeg, 0)}° from axis`, box.x + idWidth + 6, box.y + 2, { size: 7.5, color: COLOR.muted });
+  drawTextLine(doc, `${gauge.channel} · ${formatFixed(gauge.angleDeg, 0)}° from axis`, box.x + idWidth + 6, box.y + 2, {
+    size: 7.5,
+    color: COLOR.muted,
+  });
   drawTextLine(doc, OUTCOME_LABELS[ctx.outcome].toUpperCase(), box.x, box.y + 2, {
     size: 7,
     weight: 700,
@@ -103,22 +106,48 @@ export function drawStrainPressureFigure(doc: Doc, box: Box, gauge: GaugeResult,
   const xDecimals = decimalsForStep(xAxis.step);
   const yDecimals = decimalsForStep(yAxis.step);
   for (let v = xAxis.min; v <= xAxis.max + xAxis.step / 2; v += xAxis.step) {
-    doc.moveTo(sx(v), plot.y).lineTo(sx(v), plot.y + plot.height).stroke();
+    doc
+      .moveTo(sx(v), plot.y)
+      .lineTo(sx(v), plot.y + plot.height)
+      .stroke();
   }
   for (let v = yAxis.min; v <= yAxis.max + yAxis.step / 2; v += yAxis.step) {
-    doc.moveTo(plot.x, sy(v)).lineTo(plot.x + plot.width, sy(v)).stroke();
+    doc
+      .moveTo(plot.x, sy(v))
+      .lineTo(plot.x + plot.width, sy(v))
+      .stroke();
   }
   doc.restore();
   for (let v = xAxis.min; v <= xAxis.max + xAxis.step / 2; v += xAxis.step) {
-    drawTextLine(doc, formatTick(v, xDecimals), sx(v) - 20, plot.y + plot.height + 3, { size: 6.5, color: COLOR.muted, align: 'center', width: 40 });
+    drawTextLine(doc, formatTick(v, xDecimals), sx(v) - 20, plot.y + plot.height + 3, {
+      size: 6.5,
+      color: COLOR.muted,
+      align: 'center',
+      width: 40,
+    });
   }
   for (let v = yAxis.min; v <= yAxis.max + yAxis.step / 2; v += yAxis.step) {
-    drawTextLine(doc, formatTick(v, yDecimals), plot.x - 34, sy(v) - 3.6, { size: 6.5, color: COLOR.muted, align: 'right', width: 30 });
+    drawTextLine(doc, formatTick(v, yDecimals), plot.x - 34, sy(v) - 3.6, {
+      size: 6.5,
+      color: COLOR.muted,
+      align: 'right',
+      width: 30,
+    });
   }
-  drawTextLine(doc, `Pressure (${ctx.pressureUnit})`, plot.x, plot.y + plot.height + 12, { size: 7, color: COLOR.muted, align: 'center', width: plot.width });
+  drawTextLine(doc, `Pressure (${ctx.pressureUnit})`, plot.x, plot.y + plot.height + 12, {
+    size: 7,
+    color: COLOR.muted,
+    align: 'center',
+    width: plot.width,
+  });
   doc.save();
   doc.rotate(-90, { origin: [box.x + 2, plot.y + plot.height / 2] });
-  drawTextLine(doc, 'Strain (µε)', box.x + 2 - plot.height / 2, plot.y + plot.height / 2 - 1, { size: 7, color: COLOR.muted, align: 'center', width: plot.height });
+  drawTextLine(doc, 'Strain (µε)', box.x + 2 - plot.height / 2, plot.y + plot.height / 2 - 1, {
+    size: 7,
+    color: COLOR.muted,
+    align: 'center',
+    width: plot.height,
+  });
   doc.restore();
 
   // Everything data-like is clipped to the plot area.
@@ -126,26 +155,50 @@ export function drawStrainPressureFigure(doc: Doc, box: Box, gauge: GaugeResult,
   doc.rect(plot.x, plot.y, plot.width, plot.height).clip();
   const x0 = Math.max(0, xAxis.min);
   doc
-    .polygon([sx(x0), sy(k * x0 * (1 + ctx.slopeBand))], [sx(xEnd), sy(k * xEnd * (1 + ctx.slopeBand))], [sx(xEnd), sy(k * xEnd * (1 - ctx.slopeBand))], [sx(x0), sy(k * x0 * (1 - ctx.slopeBand))])
+    .polygon(
+      [sx(x0), sy(k * x0 * (1 + ctx.slopeBand))],
+      [sx(xEnd), sy(k * xEnd * (1 + ctx.slopeBand))],
+      [sx(xEnd), sy(k * xEnd * (1 - ctx.slopeBand))],
+      [sx(x0), sy(k * x0 * (1 - ctx.slopeBand))],
+    )
     .fill(COLOR.band);
-  doc.lineWidth(0.5).strokeColor(COLOR.ink).moveTo(plot.x, sy(0)).lineTo(plot.x + plot.width, sy(0)).stroke();
+  doc
+    .lineWidth(0.5)
+    .strokeColor(COLOR.ink)
+    .moveTo(plot.x, sy(0))
+    .lineTo(plot.x + plot.width, sy(0))
+    .stroke();
   doc.lineWidth(0.9).strokeColor(COLOR.muted).dash(3.5, { space: 2 });
-  doc.moveTo(sx(x0), sy(k * x0)).lineTo(sx(xEnd), sy(k * xEnd)).stroke();
+  doc
+    .moveTo(sx(x0), sy(k * x0))
+    .lineTo(sx(xEnd), sy(k * xEnd))
+    .stroke();
   doc.undash();
   if (gauge.measuredSlope !== null) {
     const c = gauge.intercept ?? 0;
     const pMax = Math.max(...pressures, ctx.testPressure);
     doc.lineWidth(1.2).strokeColor(COLOR.accent);
-    doc.moveTo(sx(0), sy(c)).lineTo(sx(pMax), sy(c + gauge.measuredSlope * pMax)).stroke();
+    doc
+      .moveTo(sx(0), sy(c))
+      .lineTo(sx(pMax), sy(c + gauge.measuredSlope * pMax))
+      .stroke();
   }
   doc.restore();
   // Markers are not clipped: a point on the axis line stays whole.
   for (const p of gauge.points) {
     if (p.branch === 'loading') doc.circle(sx(p.pressure), sy(p.strain), 2.3).fill(COLOR.accent);
-    else doc.lineWidth(0.9).rect(sx(p.pressure) - 2.3, sy(p.strain) - 2.3, 4.6, 4.6).stroke(COLOR.unloading);
+    else
+      doc
+        .lineWidth(0.9)
+        .rect(sx(p.pressure) - 2.3, sy(p.strain) - 2.3, 4.6, 4.6)
+        .stroke(COLOR.unloading);
   }
   doc.save().lineWidth(0.6).strokeColor(COLOR.muted);
-  doc.moveTo(plot.x, plot.y).lineTo(plot.x, plot.y + plot.height).lineTo(plot.x + plot.width, plot.y + plot.height).stroke();
+  doc
+    .moveTo(plot.x, plot.y)
+    .lineTo(plot.x, plot.y + plot.height)
+    .lineTo(plot.x + plot.width, plot.y + plot.height)
+    .stroke();
   doc.restore();
 
   // Caption under the plot: the numbers the figure shows.
@@ -153,12 +206,21 @@ export function drawStrainPressureFigure(doc: Doc, box: Box, gauge: GaugeResult,
   const measured = gauge.measuredSlope === null ? 'no fit' : formatFixed(gauge.measuredSlope, ctx.slopeDecimals);
   const ratio = gauge.ratio === null ? '' : ` · ratio ${formatFixed(gauge.ratio, 3)}`;
   const capY = plot.y + plot.height + 23;
-  drawTextLine(doc, `measured ${measured} · predicted ${formatFixed(k, ctx.slopeDecimals)} ${unit}${ratio}`, box.x, capY, {
-    size: 7,
-    color: COLOR.ink,
-  });
+  drawTextLine(
+    doc,
+    `measured ${measured} · predicted ${formatFixed(k, ctx.slopeDecimals)} ${unit}${ratio}`,
+    box.x,
+    capY,
+    {
+      size: 7,
+      color: COLOR.ink,
+    },
+  );
   if (gauge.flags.length > 0)
-    drawTextLine(doc, `flags: ${gauge.flags.join(', ')}`, box.x, capY + 9.5, { size: 6.8, color: OUTCOME_COLOR.flagged });
+    drawTextLine(doc, `flags: ${gauge.flags.join(', ')}`, box.x, capY + 9.5, {
+      size: 6.8,
+      color: OUTCOME_COLOR.flagged,
+    });
 }
 
 /** One legend line for a page of figures. */
@@ -170,10 +232,30 @@ export function drawFigureLegend(doc: Doc, x: number, y: number, slopeBand: numb
     cx += drawTextLine(doc, label, cx, y, { size: 7.5, color: COLOR.ink }) + 16;
   };
   item((mx, my) => doc.circle(mx + 7, my, 2.3).fill(COLOR.accent), 'loading hold');
-  item((mx, my) => doc.lineWidth(0.9).rect(mx + 4.7, my - 2.3, 4.6, 4.6).stroke(COLOR.unloading), 'unloading hold');
-  item((mx, my) => doc.lineWidth(1.2).moveTo(mx, my).lineTo(mx + 14, my).stroke(COLOR.accent), 'fitted loading line');
+  item(
+    (mx, my) =>
+      doc
+        .lineWidth(0.9)
+        .rect(mx + 4.7, my - 2.3, 4.6, 4.6)
+        .stroke(COLOR.unloading),
+    'unloading hold',
+  );
+  item(
+    (mx, my) =>
+      doc
+        .lineWidth(1.2)
+        .moveTo(mx, my)
+        .lineTo(mx + 14, my)
+        .stroke(COLOR.accent),
+    'fitted loading line',
+  );
   item((mx, my) => {
-    doc.lineWidth(0.9).dash(3.5, { space: 2 }).moveTo(mx, my).lineTo(mx + 14, my).stroke(COLOR.muted);
+    doc
+      .lineWidth(0.9)
+      .dash(3.5, { space: 2 })
+      .moveTo(mx, my)
+      .lineTo(mx + 14, my)
+      .stroke(COLOR.muted);
     doc.undash();
   }, 'predicted');
   item((mx, my) => doc.rect(mx, my - 3.5, 14, 7).fill(COLOR.band), `±${formatPlain(slopeBand * 100)} % band`);

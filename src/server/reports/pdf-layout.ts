@@ -25,7 +25,14 @@ export class PageFlow {
     if (this.y > MARGIN.top) this.y += 10;
     drawTextLine(this.doc, text, MARGIN.left, this.y, { size: 11.5, weight: 700, color: COLOR.accent });
     this.y += 16;
-    this.doc.save().lineWidth(0.6).strokeColor(COLOR.rule).moveTo(MARGIN.left, this.y).lineTo(MARGIN.left + CONTENT_WIDTH, this.y).stroke().restore();
+    this.doc
+      .save()
+      .lineWidth(0.6)
+      .strokeColor(COLOR.rule)
+      .moveTo(MARGIN.left, this.y)
+      .lineTo(MARGIN.left + CONTENT_WIDTH, this.y)
+      .stroke()
+      .restore();
     this.y += 6;
   }
 
@@ -61,7 +68,12 @@ const PAD_X = 3;
 const PAD_Y = 2.6;
 
 /** Draw a table at the flow's cursor, breaking pages between rows and repeating the header. */
-export function drawTable(flow: PageFlow, columns: TableColumn[], rows: (TableCell | string)[][], options: TableOptions = {}): void {
+export function drawTable(
+  flow: PageFlow,
+  columns: TableColumn[],
+  rows: (TableCell | string)[][],
+  options: TableOptions = {},
+): void {
   const { doc } = flow;
   const size = options.size ?? 7.4;
   const headerSize = size - 0.6;
@@ -69,7 +81,9 @@ export function drawTable(flow: PageFlow, columns: TableColumn[], rows: (TableCe
   const widths = columns.map((c) => (c.width / total) * CONTENT_WIDTH);
   const lefts = widths.map((_, i) => MARGIN.left + widths.slice(0, i).reduce((a, w) => a + w, 0));
 
-  const headerLines = columns.map((c, i) => wrapText(doc, c.label, widths[i]! - 2 * PAD_X, { size: headerSize, weight: 600 }));
+  const headerLines = columns.map((c, i) =>
+    wrapText(doc, c.label, widths[i]! - 2 * PAD_X, { size: headerSize, weight: 600 }),
+  );
   const headerHeight = Math.max(...headerLines.map((l) => l.length)) * lineHeight(headerSize) + 2 * PAD_Y;
 
   const drawHeader = () => {
@@ -86,11 +100,20 @@ export function drawTable(flow: PageFlow, columns: TableColumn[], rows: (TableCe
       ),
     );
     flow.y += headerHeight;
-    doc.save().lineWidth(0.6).strokeColor(COLOR.muted).moveTo(MARGIN.left, flow.y).lineTo(MARGIN.left + CONTENT_WIDTH, flow.y).stroke().restore();
+    doc
+      .save()
+      .lineWidth(0.6)
+      .strokeColor(COLOR.muted)
+      .moveTo(MARGIN.left, flow.y)
+      .lineTo(MARGIN.left + CONTENT_WIDTH, flow.y)
+      .stroke()
+      .restore();
   };
 
   const cells = rows.map((row) => row.map((c) => (typeof c === 'string' ? { text: c } : c)));
-  const wrapped = cells.map((row) => row.map((c, i) => wrapText(doc, c.text, widths[i]! - 2 * PAD_X, { size, weight: c.weight ?? 400 })));
+  const wrapped = cells.map((row) =>
+    row.map((c, i) => wrapText(doc, c.text, widths[i]! - 2 * PAD_X, { size, weight: c.weight ?? 400 })),
+  );
   const heights = wrapped.map((row) => Math.max(1, ...row.map((l) => l.length)) * lineHeight(size) + 2 * PAD_Y);
 
   flow.ensureSpace(headerHeight + (heights[0] ?? 0));
@@ -114,7 +137,14 @@ export function drawTable(flow: PageFlow, columns: TableColumn[], rows: (TableCe
       ),
     );
     flow.y += height;
-    doc.save().lineWidth(0.3).strokeColor(COLOR.rule).moveTo(MARGIN.left, flow.y).lineTo(MARGIN.left + CONTENT_WIDTH, flow.y).stroke().restore();
+    doc
+      .save()
+      .lineWidth(0.3)
+      .strokeColor(COLOR.rule)
+      .moveTo(MARGIN.left, flow.y)
+      .lineTo(MARGIN.left + CONTENT_WIDTH, flow.y)
+      .stroke()
+      .restore();
   });
   flow.y += 6;
 }

@@ -89,7 +89,8 @@ function useFont(doc: PDFKit.PDFDocument, subset: Subset, weight: Weight, size: 
 
 function subsetOf(codePoint: number): Subset | null {
   const { ranges } = locateFontFiles();
-  for (const subset of SUBSETS) if (ranges[subset].some(([lo, hi]) => codePoint >= lo && codePoint <= hi)) return subset;
+  for (const subset of SUBSETS)
+    if (ranges[subset].some(([lo, hi]) => codePoint >= lo && codePoint <= hi)) return subset;
   return null;
 }
 
@@ -188,7 +189,14 @@ export function lineHeight(size: number): number {
 }
 
 /** Draw wrapped text with its top at y; returns the height used. */
-export function drawParagraph(doc: Doc, text: string, x: number, y: number, width: number, options: PlaceOptions): number {
+export function drawParagraph(
+  doc: Doc,
+  text: string,
+  x: number,
+  y: number,
+  width: number,
+  options: PlaceOptions,
+): number {
   const lines = wrapText(doc, text, width, options);
   lines.forEach((line, i) => drawTextLine(doc, line, x, y + i * lineHeight(options.size), { ...options, width }));
   return lines.length * lineHeight(options.size);

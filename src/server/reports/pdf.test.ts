@@ -129,7 +129,11 @@ describe('renderReportPdf variants', () => {
   it('wraps a long gauge list onto more pages and repeats the table header on each', async () => {
     const input = buildSiReportInput();
     const template = input.result.gauges[0]!;
-    const many: GaugeResult[] = Array.from({ length: 60 }, (_, i) => ({ ...template, id: `G${String(i + 1).padStart(2, '0')}`, channel: `CH${i + 1}` }));
+    const many: GaugeResult[] = Array.from({ length: 60 }, (_, i) => ({
+      ...template,
+      id: `G${String(i + 1).padStart(2, '0')}`,
+      channel: `CH${i + 1}`,
+    }));
     input.result.gauges = many;
     input.result.rosettes = [];
     input.dispositions = {};
@@ -156,7 +160,8 @@ describe('Inter glyph coverage', () => {
     const sample = 'µε/MPa σh σa ν R² ±10 % 90° 1–2 · × − ½ … ≤ ≥ √ 水 Łó Зоя';
     for (const run of splitTextRuns(sample)) {
       const font = fontkit.openSync(interFontPath(run.subset, weight));
-      for (const ch of run.text) expect(font.hasGlyphForCodePoint(ch.codePointAt(0)!), `${ch} in ${run.subset} ${weight}`).toBe(true);
+      for (const ch of run.text)
+        expect(font.hasGlyphForCodePoint(ch.codePointAt(0)!), `${ch} in ${run.subset} ${weight}`).toBe(true);
     }
   });
 

@@ -118,14 +118,23 @@ function drawTitleBlock(flow: PageFlow, input: ReportInput): void {
   const meta = `Vessel ${input.vessel.tag} · ${input.vessel.name} · test #${input.test.id} (${input.test.status}) · reduction #${input.reductionId} · generated ${formatDateTimeUtc(input.generatedAt)}`;
   y += drawParagraph(doc, meta, x, y, CONTENT_WIDTH, { size: 8.5, color: COLOR.muted });
   y += 6;
-  doc.save().lineWidth(1.2).strokeColor(COLOR.accent).moveTo(x, y).lineTo(x + CONTENT_WIDTH, y).stroke().restore();
+  doc
+    .save()
+    .lineWidth(1.2)
+    .strokeColor(COLOR.accent)
+    .moveTo(x, y)
+    .lineTo(x + CONTENT_WIDTH, y)
+    .stroke()
+    .restore();
   flow.y = y + 12;
 }
 
 function drawVerdictBox(flow: PageFlow, input: ReportInput): void {
   const { doc } = flow;
   const counts = countOutcomes(input);
-  const disposed = input.result.gauges.filter((g) => outcomeOf(input, g.id) === 'flagged' && input.dispositions[g.id]).length;
+  const disposed = input.result.gauges.filter(
+    (g) => outcomeOf(input, g.id) === 'flagged' && input.dispositions[g.id],
+  ).length;
   const color = VERDICT_COLOR[input.verdict];
   const x = MARGIN.left;
   const textX = x + 16;
@@ -135,7 +144,11 @@ function drawVerdictBox(flow: PageFlow, input: ReportInput): void {
   flow.ensureSpace(height + 12);
   const y = flow.y;
   doc.save().lineWidth(1).roundedRect(x, y, CONTENT_WIDTH, height, 3).fillAndStroke('#fbfcfd', color).restore();
-  doc.save().rect(x + 0.5, y + 0.5, 6, height - 1).fill(color).restore();
+  doc
+    .save()
+    .rect(x + 0.5, y + 0.5, 6, height - 1)
+    .fill(color)
+    .restore();
   drawTextLine(doc, 'VERDICT', textX, y + 9, { size: 7, weight: 600, color: COLOR.muted });
   drawTextLine(doc, VERDICT_LABELS[input.verdict].toUpperCase(), textX, y + 19, { size: 18, weight: 700, color });
   drawParagraph(doc, explanation, textX, y + 42, textWidth, { size: 8.5, color: COLOR.ink });
@@ -147,7 +160,11 @@ function drawVerdictBox(flow: PageFlow, input: ReportInput): void {
     ['excluded', String(counts.excluded), OUTCOME_COLOR.excluded],
     ['not compared', String(counts['not-compared']), OUTCOME_COLOR['not-compared']],
   ];
-  drawTextLine(doc, `Gauge channels (${input.result.gauges.length})`, rightX, y + 9, { size: 7, weight: 600, color: COLOR.muted });
+  drawTextLine(doc, `Gauge channels (${input.result.gauges.length})`, rightX, y + 9, {
+    size: 7,
+    weight: 600,
+    color: COLOR.muted,
+  });
   lines.forEach(([label, value, c], i) => {
     const ly = y + 21 + i * 11;
     doc.circle(rightX + 3, ly + 4, 2.5).fill(c);
@@ -165,7 +182,10 @@ function drawDefinitionColumns(flow: PageFlow, blocks: { title: string; rows: [s
   const labelWidth = 92;
   const size = 8;
   const heights = blocks.map((b) =>
-    b.rows.reduce((a, [, v]) => a + Math.max(lineHeight(size), measureParagraph(doc, v, blockWidth - labelWidth, { size })) + 2, 16),
+    b.rows.reduce(
+      (a, [, v]) => a + Math.max(lineHeight(size), measureParagraph(doc, v, blockWidth - labelWidth, { size })) + 2,
+      16,
+    ),
   );
   flow.ensureSpace(Math.max(...heights));
   const top = flow.y;
@@ -215,11 +235,26 @@ function drawTestHeader(flow: PageFlow, input: ReportInput): void {
       rows: [
         ['Test pressure', `${formatPlain(input.testPressure)} ${u.pressure}`],
         ['Model', `${MODEL_LABELS[input.model]} (${input.units} units)`],
-        ['Predicted hoop', `${formatFixed(used.hoopStrainPerPressure, p.slope)} ${slopeUnit} (${other} ${formatFixed(predicted[other].hoopStrainPerPressure, p.slope)})`],
-        ['Predicted axial', `${formatFixed(used.axialStrainPerPressure, p.slope)} ${slopeUnit} (${other} ${formatFixed(predicted[other].axialStrainPerPressure, p.slope)})`],
-        ['Membrane vs Lamé', `membrane predicts ${showNumber(formatPercent(predicted.membraneOverLame, 2))} % more hoop strain at the outer surface`],
-        ['At test pressure', `σh ${showNumber(formatFixed(used.hoopStress, p.stress))} ${u.stress}, σa ${showNumber(formatFixed(used.axialStress, p.stress))} ${u.stress}; ${formatPercent(used.yieldFraction, 1)} % of yield`],
-        ['Edge-zone distance', `${formatFixed(predicted.edgeZoneDistance, p.length)} ${u.length} (2.5·(r·t)^½, r mean radius)`],
+        [
+          'Predicted hoop',
+          `${formatFixed(used.hoopStrainPerPressure, p.slope)} ${slopeUnit} (${other} ${formatFixed(predicted[other].hoopStrainPerPressure, p.slope)})`,
+        ],
+        [
+          'Predicted axial',
+          `${formatFixed(used.axialStrainPerPressure, p.slope)} ${slopeUnit} (${other} ${formatFixed(predicted[other].axialStrainPerPressure, p.slope)})`,
+        ],
+        [
+          'Membrane vs Lamé',
+          `membrane predicts ${showNumber(formatPercent(predicted.membraneOverLame, 2))} % more hoop strain at the outer surface`,
+        ],
+        [
+          'At test pressure',
+          `σh ${showNumber(formatFixed(used.hoopStress, p.stress))} ${u.stress}, σa ${showNumber(formatFixed(used.axialStress, p.stress))} ${u.stress}; ${formatPercent(used.yieldFraction, 1)} % of yield`,
+        ],
+        [
+          'Edge-zone distance',
+          `${formatFixed(predicted.edgeZoneDistance, p.length)} ${u.length} (2.5·(r·t)^½, r mean radius)`,
+        ],
         ['Engine', `version ${input.engineVersion} · reduction #${input.reductionId}`],
       ],
     },
@@ -364,8 +399,14 @@ function drawRosettes(flow: PageFlow, input: ReportInput): void {
         v(`sigma1_at_test_pressure_${u.stress}`),
         v(`sigma2_at_test_pressure_${u.stress}`),
         v(`von_mises_at_test_pressure_${u.stress}`),
-        { text: v('von_mises_over_yield'), color: r.yieldFraction > input.tolerances.yieldFraction ? OUTCOME_COLOR.flagged : COLOR.ink },
-        { text: r.flags.length ? r.flags.join(', ') : '–', color: r.flags.length ? OUTCOME_COLOR.flagged : COLOR.faint },
+        {
+          text: v('von_mises_over_yield'),
+          color: r.yieldFraction > input.tolerances.yieldFraction ? OUTCOME_COLOR.flagged : COLOR.ink,
+        },
+        {
+          text: r.flags.length ? r.flags.join(', ') : '–',
+          color: r.flags.length ? OUTCOME_COLOR.flagged : COLOR.faint,
+        },
       ];
     }),
   );
@@ -374,7 +415,9 @@ function drawRosettes(flow: PageFlow, input: ReportInput): void {
 function drawDispositions(flow: PageFlow, input: ReportInput): void {
   const entries = input.result.gauges.filter((g) => input.dispositions[g.id]);
   flow.heading('Dispositions', 40);
-  const undisposed = input.result.gauges.filter((g) => outcomeOf(input, g.id) === 'flagged' && !input.dispositions[g.id]);
+  const undisposed = input.result.gauges.filter(
+    (g) => outcomeOf(input, g.id) === 'flagged' && !input.dispositions[g.id],
+  );
   if (entries.length === 0) flow.paragraph('No gauge has been dispositioned.', 8.5, COLOR.muted);
   else
     drawTable(
@@ -388,12 +431,23 @@ function drawDispositions(flow: PageFlow, input: ReportInput): void {
       ],
       entries.map((g) => {
         const d = input.dispositions[g.id]!;
-        return [{ text: g.id, weight: 600 }, { text: d.outcome, weight: 600 }, d.reason, d.by, formatDateTimeUtc(d.at).replace(' UTC', '')];
+        return [
+          { text: g.id, weight: 600 },
+          { text: d.outcome, weight: 600 },
+          d.reason,
+          d.by,
+          formatDateTimeUtc(d.at).replace(' UTC', ''),
+        ];
       }),
       { size: 7.8 },
     );
   if (undisposed.length > 0)
-    flow.paragraph(`Flagged without disposition: ${undisposed.map((g) => g.id).join(', ')}.`, 8.5, OUTCOME_COLOR.flagged, 600);
+    flow.paragraph(
+      `Flagged without disposition: ${undisposed.map((g) => g.id).join(', ')}.`,
+      8.5,
+      OUTCOME_COLOR.flagged,
+      600,
+    );
 }
 
 function drawSignatures(flow: PageFlow, input: ReportInput): void {
@@ -419,7 +473,11 @@ function drawSignatures(flow: PageFlow, input: ReportInput): void {
         s.email,
         formatDateTimeUtc(s.at).replace(' UTC', ''),
         stale
-          ? { text: `#${s.reductionId}: not this reduction (#${input.reductionId})`, color: OUTCOME_COLOR.flagged, weight: 600 }
+          ? {
+              text: `#${s.reductionId}: not this reduction (#${input.reductionId})`,
+              color: OUTCOME_COLOR.flagged,
+              weight: 600,
+            }
           : `#${s.reductionId} (this report)`,
       ];
     }),
@@ -480,20 +538,49 @@ function finishPages(doc: Doc, input: ReportInput): void {
     doc.switchToPage(range.start + i);
     if (i > 0) {
       drawTextLine(doc, 'Hoopline · Hydrotest strain report', MARGIN.left, 26, { size: 7.5, color: COLOR.muted });
-      drawTextLine(doc, `${input.vessel.tag} · test #${input.test.id} · reduction #${input.reductionId}`, MARGIN.left, 26, {
-        size: 7.5,
-        color: COLOR.muted,
-        align: 'right',
-        width: CONTENT_WIDTH,
-      });
-      doc.save().lineWidth(0.5).strokeColor(COLOR.rule).moveTo(MARGIN.left, 38).lineTo(MARGIN.left + CONTENT_WIDTH, 38).stroke().restore();
+      drawTextLine(
+        doc,
+        `${input.vessel.tag} · test #${input.test.id} · reduction #${input.reductionId}`,
+        MARGIN.left,
+        26,
+        {
+          size: 7.5,
+          color: COLOR.muted,
+          align: 'right',
+          width: CONTENT_WIDTH,
+        },
+      );
+      doc
+        .save()
+        .lineWidth(0.5)
+        .strokeColor(COLOR.rule)
+        .moveTo(MARGIN.left, 38)
+        .lineTo(MARGIN.left + CONTENT_WIDTH, 38)
+        .stroke()
+        .restore();
     }
     const footerY = CONTENT_BOTTOM + 16;
-    doc.save().lineWidth(0.5).strokeColor(COLOR.rule).moveTo(MARGIN.left, footerY - 6).lineTo(MARGIN.left + CONTENT_WIDTH, footerY - 6).stroke().restore();
+    doc
+      .save()
+      .lineWidth(0.5)
+      .strokeColor(COLOR.rule)
+      .moveTo(MARGIN.left, footerY - 6)
+      .lineTo(MARGIN.left + CONTENT_WIDTH, footerY - 6)
+      .stroke()
+      .restore();
     const pageLabel = `Page ${i + 1} of ${total}`;
     const labelWidth = measureText(doc, pageLabel, { size: 7.5, weight: 600 });
-    drawParagraph(doc, REPORT_CAUTION, MARGIN.left, footerY, CONTENT_WIDTH - labelWidth - 24, { size: 6.8, color: COLOR.muted });
-    drawTextLine(doc, pageLabel, MARGIN.left, footerY, { size: 7.5, weight: 600, color: COLOR.ink, align: 'right', width: CONTENT_WIDTH });
+    drawParagraph(doc, REPORT_CAUTION, MARGIN.left, footerY, CONTENT_WIDTH - labelWidth - 24, {
+      size: 6.8,
+      color: COLOR.muted,
+    });
+    drawTextLine(doc, pageLabel, MARGIN.left, footerY, {
+      size: 7.5,
+      weight: 600,
+      color: COLOR.ink,
+      align: 'right',
+      width: CONTENT_WIDTH,
+    });
     if (input.draft) drawDraftMark(doc);
   }
 }
@@ -505,6 +592,10 @@ function drawDraftMark(doc: Doc): void {
   doc.save();
   doc.fillOpacity(0.09);
   doc.rotate(angle, { origin: [PAGE.width / 2, PAGE.height / 2] });
-  drawTextLine(doc, 'DRAFT', PAGE.width / 2 - width / 2, PAGE.height / 2 - size * 0.55, { size, weight: 700, color: COLOR.draft });
+  drawTextLine(doc, 'DRAFT', PAGE.width / 2 - width / 2, PAGE.height / 2 - size * 0.55, {
+    size,
+    weight: 700,
+    color: COLOR.draft,
+  });
   doc.restore();
 }

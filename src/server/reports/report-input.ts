@@ -75,7 +75,9 @@ export interface UnitLabels {
 }
 
 export function unitLabels(units: UnitSystem): UnitLabels {
-  return units === 'SI' ? { pressure: 'MPa', stress: 'MPa', length: 'mm' } : { pressure: 'psi', stress: 'psi', length: 'in' };
+  return units === 'SI'
+    ? { pressure: 'MPa', stress: 'MPa', length: 'mm' }
+    : { pressure: 'psi', stress: 'psi', length: 'in' };
 }
 
 /** Raised when the caller hands the renderers a record that contradicts itself (a wiring bug). */
@@ -93,13 +95,16 @@ export function assertReportInputConsistent(input: ReportInput): void {
   if (result.units !== input.units)
     throw new ReportInputError(`units say ${input.units} but the reduction result is in ${result.units}`);
   if (result.pressureUnit !== unitLabels(input.units).pressure)
-    throw new ReportInputError(`the reduction result's pressure unit ${result.pressureUnit} does not match ${input.units} units`);
+    throw new ReportInputError(
+      `the reduction result's pressure unit ${result.pressureUnit} does not match ${input.units} units`,
+    );
   if (result.model !== input.model)
     throw new ReportInputError(`model says ${input.model} but the reduction used ${result.model}`);
   const ids = new Set(result.gauges.map((g) => g.id));
   if (ids.size !== result.gauges.length) throw new ReportInputError('the reduction result lists a gauge id twice');
   for (const id of Object.keys(input.dispositions))
-    if (!ids.has(id)) throw new ReportInputError(`disposition for gauge '${id}', which the reduction result does not list`);
+    if (!ids.has(id))
+      throw new ReportInputError(`disposition for gauge '${id}', which the reduction result does not list`);
   for (const id of Object.keys(input.gaugeOutcomes))
     if (!ids.has(id)) throw new ReportInputError(`outcome for gauge '${id}', which the reduction result does not list`);
 }

@@ -10,7 +10,8 @@ const DIRECTORY_ENTRY_SIZE = 20;
 
 /** Rebuild the sfnt that a WOFF 1.0 file wraps; throws naming the problem for anything else. */
 export function decodeWoff(woff: Buffer): Buffer {
-  if (woff.length < HEADER_SIZE || woff.readUInt32BE(0) !== WOFF_SIGNATURE) throw new Error('not a WOFF 1.0 font (no wOFF signature)');
+  if (woff.length < HEADER_SIZE || woff.readUInt32BE(0) !== WOFF_SIGNATURE)
+    throw new Error('not a WOFF 1.0 font (no wOFF signature)');
   const flavor = woff.readUInt32BE(4);
   const numTables = woff.readUInt16BE(12);
   const tables: { tag: number; checksum: number; data: Buffer }[] = [];
@@ -23,7 +24,8 @@ export function decodeWoff(woff: Buffer): Buffer {
     const checksum = woff.readUInt32BE(at + 16);
     const stored = woff.subarray(offset, offset + compLength);
     const data = compLength < origLength ? inflateSync(stored) : Buffer.from(stored);
-    if (data.length !== origLength) throw new Error(`WOFF table ${i} inflates to ${data.length} bytes, expected ${origLength}`);
+    if (data.length !== origLength)
+      throw new Error(`WOFF table ${i} inflates to ${data.length} bytes, expected ${origLength}`);
     tables.push({ tag, checksum, data });
   }
   tables.sort((a, b) => a.tag - b.tag);

@@ -14,8 +14,21 @@ export const demoPlanInput: PlanInput = {
     { id: 'H2', kind: 'uniaxial', channels: ['SG2'], angleDeg: 90, axialPosition: 3000, clockDeg: 90 },
     { id: 'A1', kind: 'uniaxial', channels: ['SG3'], angleDeg: 0, distanceToDiscontinuity: 1500 },
     { id: 'A2', kind: 'uniaxial', channels: ['SG7'], angleDeg: 0, axialPosition: 2000, clockDeg: 270 },
-    { id: 'R1', kind: 'rosette-rectangular', channels: ['SG4', 'SG5', 'SG6'], angleDeg: 0, distanceToDiscontinuity: 1500 },
-    { id: 'R2', kind: 'rosette-delta', channels: ['SG8', 'SG9', 'SG10'], angleDeg: 30, axialPosition: 4000, clockDeg: 180 },
+    {
+      id: 'R1',
+      kind: 'rosette-rectangular',
+      channels: ['SG4', 'SG5', 'SG6'],
+      angleDeg: 0,
+      distanceToDiscontinuity: 1500,
+    },
+    {
+      id: 'R2',
+      kind: 'rosette-delta',
+      channels: ['SG8', 'SG9', 'SG10'],
+      angleDeg: 30,
+      axialPosition: 4000,
+      clockDeg: 180,
+    },
   ],
 };
 

@@ -85,7 +85,8 @@ export function seededGaussian(seed: number): () => number {
       spare = null;
       return s;
     }
-    let a = 0, b = 0;
+    let a = 0,
+      b = 0;
     while (a === 0) a = u();
     b = u();
     const r = Math.sqrt(-2 * Math.log(a));
@@ -95,7 +96,11 @@ export function seededGaussian(seed: number): () => number {
 }
 
 /** The pressure profile as a function of time (fraction of test pressure), its duration, and when the peak ends. */
-export function pressureProfile(opts: SyntheticOptions): { at: (t: number) => number; duration: number; peakEnd: number } {
+export function pressureProfile(opts: SyntheticOptions): {
+  at: (t: number) => number;
+  duration: number;
+  peakEnd: number;
+} {
   const hold = opts.holdSeconds ?? 60;
   const ramp = opts.rampSeconds ?? 30;
   if (opts.profile === 'ramp') {

@@ -9,9 +9,18 @@ export const GET = endpoint(async (ctx) => {
   const r = await findReduction(getDb(), idParam(ctx.params.id, 'reduction'));
   if (!r) throw errors.notFound('reduction');
   return json({
-    id: r.id, testId: r.testId, status: r.status, progress: r.progress, attempts: r.attempts, error: r.error,
-    superseded: r.superseded, engineVersion: r.engineVersion, logIds: r.parameters.logIds,
-    createdAt: r.createdAt, startedAt: r.startedAt, finishedAt: r.finishedAt,
+    id: r.id,
+    testId: r.testId,
+    status: r.status,
+    progress: r.progress,
+    attempts: r.attempts,
+    error: r.error,
+    superseded: r.superseded,
+    engineVersion: r.engineVersion,
+    logIds: r.parameters.logIds,
+    createdAt: r.createdAt,
+    startedAt: r.startedAt,
+    finishedAt: r.finishedAt,
     result: r.status === 'done' ? r.result : null,
   });
 });

@@ -15,7 +15,10 @@ export const GET = endpoint(async (ctx) => {
   const db = getDb();
   const row = await findTestWithVessel(db, id);
   if (!row) throw errors.notFound('test');
-  const [logs, reduction] = await Promise.all([listLogs(db, id), row.test.currentReductionId ? findReduction(db, row.test.currentReductionId) : undefined]);
+  const [logs, reduction] = await Promise.all([
+    listLogs(db, id),
+    row.test.currentReductionId ? findReduction(db, row.test.currentReductionId) : undefined,
+  ]);
   const { plan: _plan, ...test } = row.test;
   return json({
     ...test,
@@ -23,7 +26,14 @@ export const GET = endpoint(async (ctx) => {
     material: row.material,
     owner: row.owner,
     logCount: logs.length,
-    currentReduction: reduction ? { id: reduction.id, status: reduction.status, engineVersion: reduction.engineVersion, finishedAt: reduction.finishedAt } : null,
+    currentReduction: reduction
+      ? {
+          id: reduction.id,
+          status: reduction.status,
+          engineVersion: reduction.engineVersion,
+          finishedAt: reduction.finishedAt,
+        }
+      : null,
   });
 });
 

@@ -15,7 +15,10 @@ const filterSchema = z.object({
 export const GET = endpoint(async (ctx) => {
   requireRole(ctx, ...roleSets.anyone);
   const s = ctx.url.searchParams;
-  const f = filterSchema.safeParse({ status: s.get('status')?.split(',').filter(Boolean), vesselId: s.get('vesselId') ?? undefined });
+  const f = filterSchema.safeParse({
+    status: s.get('status')?.split(',').filter(Boolean),
+    vesselId: s.get('vesselId') ?? undefined,
+  });
   if (!f.success) throw zodToAppError(f.error);
   const page = readPage(ctx.url);
   return json({ ...(await listTests(getDb(), { ...f.data, ...page })), ...page });

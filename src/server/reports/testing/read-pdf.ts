@@ -21,7 +21,13 @@ export interface PdfPage {
 }
 
 export async function readPdfPages(bytes: Buffer): Promise<PdfPage[]> {
-  const task = getDocument({ data: new Uint8Array(bytes), isEvalSupported: false, disableFontFace: true, useSystemFonts: false, verbosity: 0 });
+  const task = getDocument({
+    data: new Uint8Array(bytes),
+    isEvalSupported: false,
+    disableFontFace: true,
+    useSystemFonts: false,
+    verbosity: 0,
+  });
   const pdf = await task.promise;
   try {
     const pages: PdfPage[] = [];
@@ -34,7 +40,13 @@ export async function readPdfPages(bytes: Buffer): Promise<PdfPage[]> {
       for (const item of content.items) {
         if (!('str' in item)) continue;
         const [a, b, c, , e, f] = item.transform as number[];
-        items.push({ str: item.str, x: e!, y: f!, width: item.width, upright: Math.abs(b!) < 1e-6 && Math.abs(c!) < 1e-6 && a! > 0 });
+        items.push({
+          str: item.str,
+          x: e!,
+          y: f!,
+          width: item.width,
+          upright: Math.abs(b!) < 1e-6 && Math.abs(c!) < 1e-6 && a! > 0,
+        });
         text += item.str + (item.hasEOL ? ' ' : '');
       }
       pages.push({ width: viewport.width, height: viewport.height, text: text.replace(/\s+/g, ' '), items });

@@ -3,7 +3,15 @@
 // excluded, one in the edge zone of a head seam) and one rectangular rosette. Predictions follow
 // DESIGN 3.1 (Lamé at the outer surface, membrane at the mean radius); measured slopes are least
 // squares fits of the synthetic hold points, so the figures and the numbers agree.
-import type { FlagCode, GaugeOutcome, GaugeResult, Hold, ModelPrediction, ReductionResult, RosetteResult } from '../../../lib/reduction/types';
+import type {
+  FlagCode,
+  GaugeOutcome,
+  GaugeResult,
+  Hold,
+  ModelPrediction,
+  ReductionResult,
+  RosetteResult,
+} from '../../../lib/reduction/types';
 import type { ReportInput, UnitSystem } from '../report-input';
 
 interface Scenario {
@@ -62,19 +70,109 @@ interface GaugeSpec {
 }
 
 const GAUGES: GaugeSpec[] = [
-  { id: 'H1', channel: 'SG1', angleDeg: 90, trueRatio: 0.985, noise: 1.1, hysteresisGap: 6, zeroShift: 2.4, far: true, flags: [], outcome: 'in-band' },
-  { id: 'H2', channel: 'SG2', angleDeg: 90, trueRatio: 0.87, noise: 1.6, hysteresisGap: 9, zeroShift: 4.1, far: true, flags: ['outside-band'], outcome: 'flagged' },
-  { id: 'H3', channel: 'SG3', angleDeg: 90, trueRatio: 0.004, noise: 1.2, hysteresisGap: 0.5, zeroShift: 0.6, far: true, flags: ['no-response', 'outside-band', 'nonlinear'], outcome: 'flagged' },
-  { id: 'A1', channel: 'SG8', angleDeg: 0, trueRatio: 1.03, noise: 0.7, hysteresisGap: 2, zeroShift: -1.2, far: true, flags: [], outcome: 'in-band' },
-  { id: 'E1', channel: 'SG9', angleDeg: 90, trueRatio: 0.78, noise: 1.4, hysteresisGap: 7, zeroShift: 3.0, far: false, flags: ['edge-zone'], outcome: 'not-compared' },
-  { id: 'R1/A', channel: 'SG4', angleDeg: 0, trueRatio: 1.02, noise: 0.6, hysteresisGap: 2, zeroShift: 0.8, far: true, flags: [], outcome: 'in-band' },
-  { id: 'R1/B', channel: 'SG5', angleDeg: 45, trueRatio: 0.99, noise: 0.9, hysteresisGap: 4, zeroShift: 1.5, far: true, flags: [], outcome: 'in-band' },
-  { id: 'R1/C', channel: 'SG6', angleDeg: 90, trueRatio: 0.992, noise: 1.0, hysteresisGap: 5, zeroShift: 2.0, far: true, flags: [], outcome: 'in-band' },
+  {
+    id: 'H1',
+    channel: 'SG1',
+    angleDeg: 90,
+    trueRatio: 0.985,
+    noise: 1.1,
+    hysteresisGap: 6,
+    zeroShift: 2.4,
+    far: true,
+    flags: [],
+    outcome: 'in-band',
+  },
+  {
+    id: 'H2',
+    channel: 'SG2',
+    angleDeg: 90,
+    trueRatio: 0.87,
+    noise: 1.6,
+    hysteresisGap: 9,
+    zeroShift: 4.1,
+    far: true,
+    flags: ['outside-band'],
+    outcome: 'flagged',
+  },
+  {
+    id: 'H3',
+    channel: 'SG3',
+    angleDeg: 90,
+    trueRatio: 0.004,
+    noise: 1.2,
+    hysteresisGap: 0.5,
+    zeroShift: 0.6,
+    far: true,
+    flags: ['no-response', 'outside-band', 'nonlinear'],
+    outcome: 'flagged',
+  },
+  {
+    id: 'A1',
+    channel: 'SG8',
+    angleDeg: 0,
+    trueRatio: 1.03,
+    noise: 0.7,
+    hysteresisGap: 2,
+    zeroShift: -1.2,
+    far: true,
+    flags: [],
+    outcome: 'in-band',
+  },
+  {
+    id: 'E1',
+    channel: 'SG9',
+    angleDeg: 90,
+    trueRatio: 0.78,
+    noise: 1.4,
+    hysteresisGap: 7,
+    zeroShift: 3.0,
+    far: false,
+    flags: ['edge-zone'],
+    outcome: 'not-compared',
+  },
+  {
+    id: 'R1/A',
+    channel: 'SG4',
+    angleDeg: 0,
+    trueRatio: 1.02,
+    noise: 0.6,
+    hysteresisGap: 2,
+    zeroShift: 0.8,
+    far: true,
+    flags: [],
+    outcome: 'in-band',
+  },
+  {
+    id: 'R1/B',
+    channel: 'SG5',
+    angleDeg: 45,
+    trueRatio: 0.99,
+    noise: 0.9,
+    hysteresisGap: 4,
+    zeroShift: 1.5,
+    far: true,
+    flags: [],
+    outcome: 'in-band',
+  },
+  {
+    id: 'R1/C',
+    channel: 'SG6',
+    angleDeg: 90,
+    trueRatio: 0.992,
+    noise: 1.0,
+    hysteresisGap: 5,
+    zeroShift: 2.0,
+    far: true,
+    flags: [],
+    outcome: 'in-band',
+  },
 ];
 
 /** The reason text exercises CSV quoting: a comma and double quotes. */
-export const ACCEPT_REASON = 'Gauge sits 40 mm from the "repad" edge, where the wall is locally stiffer; accepted, see note 4';
-export const EXCLUDE_REASON = 'Lead wire broken at the junction box: channel reads flat. Re-install before the next test';
+export const ACCEPT_REASON =
+  'Gauge sits 40 mm from the "repad" edge, where the wall is locally stiffer; accepted, see note 4';
+export const EXCLUDE_REASON =
+  'Lead wire broken at the junction box: channel reads flat. Re-install before the next test';
 
 function predictShell(s: Scenario, model: 'lame' | 'membrane'): ModelPrediction {
   const ri = s.insideDiameter / 2;
@@ -114,7 +212,9 @@ function fitLine(points: { pressure: number; strain: number }[]) {
   const n = points.length;
   const mx = points.reduce((a, p) => a + p.pressure, 0) / n;
   const my = points.reduce((a, p) => a + p.strain, 0) / n;
-  let sxx = 0, sxy = 0, syy = 0;
+  let sxx = 0,
+    sxy = 0,
+    syy = 0;
   for (const p of points) {
     sxx += (p.pressure - mx) ** 2;
     sxy += (p.pressure - mx) * (p.strain - my);
@@ -126,13 +226,26 @@ function fitLine(points: { pressure: number; strain: number }[]) {
   const residualSD = Math.sqrt(sse / (n - 2));
   const se = residualSD / Math.sqrt(sxx);
   const t95 = 3.182; // Student t, 3 degrees of freedom (5 loading points)
-  return { slope, intercept, rSquared: syy === 0 ? 1 : 1 - sse / syy, residualSD, ci: [slope - t95 * se, slope + t95 * se] as [number, number] };
+  return {
+    slope,
+    intercept,
+    rSquared: syy === 0 ? 1 : 1 - sse / syy,
+    residualSD,
+    ci: [slope - t95 * se, slope + t95 * se] as [number, number],
+  };
 }
 
 function buildHolds(s: Scenario): Hold[] {
   const levels: [number, Hold['branch']][] = [
-    [0, 'zero'], [0.25, 'loading'], [0.5, 'loading'], [0.75, 'loading'], [1, 'loading'],
-    [0.75, 'unloading'], [0.5, 'unloading'], [0.25, 'unloading'], [0, 'return'],
+    [0, 'zero'],
+    [0.25, 'loading'],
+    [0.5, 'loading'],
+    [0.75, 'loading'],
+    [1, 'loading'],
+    [0.75, 'unloading'],
+    [0.5, 'unloading'],
+    [0.25, 'unloading'],
+    [0, 'return'],
   ];
   return levels.map(([f, branch], index) => ({
     index,
@@ -146,7 +259,8 @@ function buildHolds(s: Scenario): Hold[] {
 
 function buildGauge(spec: GaugeSpec, s: Scenario, lame: ModelPrediction, holds: Hold[]): GaugeResult {
   const rad = (spec.angleDeg * Math.PI) / 180;
-  const predictedSlope = lame.axialStrainPerPressure * Math.cos(rad) ** 2 + lame.hoopStrainPerPressure * Math.sin(rad) ** 2;
+  const predictedSlope =
+    lame.axialStrainPerPressure * Math.cos(rad) ** 2 + lame.hoopStrainPerPressure * Math.sin(rad) ** 2;
   const m = predictedSlope * spec.trueRatio;
   const pattern = [0, 1, -0.8, 0.6, -0.3, 0.5, -0.6, 0.9, 0];
   const holdStrains = holds.map((h, i) => {
@@ -162,13 +276,19 @@ function buildGauge(spec: GaugeSpec, s: Scenario, lame: ModelPrediction, holds: 
     branch: h.branch === 'zero' || h.branch === 'loading' ? 'loading' : 'unloading',
   }));
   const loading = fitLine(points.filter((p) => p.branch === 'loading'));
-  const unloading = fitLine(points.filter((p) => p.branch === 'unloading').concat([points.find((p) => p.pressure === s.testPressure)!]));
+  const unloading = fitLine(
+    points.filter((p) => p.branch === 'unloading').concat([points.find((p) => p.pressure === s.testPressure)!]),
+  );
   const peakStrain = Math.max(...holdStrains.map((v) => Math.abs(v ?? 0)));
-  const maxGap = Math.max(...holds.filter((h) => h.branch === 'unloading').map((h) => {
-    const i = holds.indexOf(h);
-    const j = holds.findIndex((k) => k.branch === 'loading' && k.pressure === h.pressure);
-    return Math.abs(holdStrains[i]! - holdStrains[j]!);
-  }));
+  const maxGap = Math.max(
+    ...holds
+      .filter((h) => h.branch === 'unloading')
+      .map((h) => {
+        const i = holds.indexOf(h);
+        const j = holds.findIndex((k) => k.branch === 'loading' && k.pressure === h.pressure);
+        return Math.abs(holdStrains[i]! - holdStrains[j]!);
+      }),
+  );
   const ratio = loading.slope / predictedSlope;
   const notes = spec.id.startsWith('R1/') ? ['transverse sensitivity corrected with the rosette grids'] : [];
   return {
@@ -231,7 +351,11 @@ function buildInput(s: Scenario): ReportInput {
   const rm = ri + s.wallThickness / 2;
   const holds = buildHolds(s);
   const gauges = GAUGES.map((g) => buildGauge(g, s, lame, holds));
-  const rosette = buildRosette(gauges.filter((g) => g.id.startsWith('R1/')), s, lame);
+  const rosette = buildRosette(
+    gauges.filter((g) => g.id.startsWith('R1/')),
+    s,
+    lame,
+  );
   const pressureUnit = s.units === 'SI' ? 'MPa' : 'psi';
   const result: ReductionResult = {
     engineVersion: '1.0.0',
@@ -250,7 +374,14 @@ function buildInput(s: Scenario): ReportInput {
     rosettes: [rosette],
     verdict: 'flagged',
     warnings: ['3 missing samples in channel SG3 (first at line 1412)'],
-    log: { rows: 5400, missingSamples: 3, timeSpan: [0, 5400], peakPressure: s.testPressure * 1.004, pressureUnitInLog: pressureUnit, usedHolds: true },
+    log: {
+      rows: 5400,
+      missingSamples: 3,
+      timeSpan: [0, 5400],
+      peakPressure: s.testPressure * 1.004,
+      pressureUnitInLog: pressureUnit,
+      usedHolds: true,
+    },
   };
   const at = (iso: string) => new Date(iso);
   return {
@@ -266,26 +397,62 @@ function buildInput(s: Scenario): ReportInput {
       wallThickness: s.wallThickness,
       length: s.length,
     },
-    material: { name: 'carbon steel, generic', elasticModulus: s.elasticModulus, poissonRatio: s.poissonRatio, yieldStrength: s.yieldStrength },
+    material: {
+      name: 'carbon steel, generic',
+      elasticModulus: s.elasticModulus,
+      poissonRatio: s.poissonRatio,
+      yieldStrength: s.yieldStrength,
+    },
     units: s.units,
     model: 'lame',
     testPressure: s.testPressure,
-    tolerances: { slopeBand: 0.1, minRSquared: 0.995, hysteresis: 0.05, zeroShiftMicrostrain: 20, zeroShiftFraction: 0.02, noResponseMicrostrain: 10, yieldFraction: 0.9 },
+    tolerances: {
+      slopeBand: 0.1,
+      minRSquared: 0.995,
+      hysteresis: 0.05,
+      zeroShiftMicrostrain: 20,
+      zeroShiftFraction: 0.02,
+      noResponseMicrostrain: 10,
+      yieldFraction: 0.9,
+    },
     reductionId: 34,
     engineVersion: '1.0.0',
     logs: [
-      { filename: 'T-101_hydro_2026-12-02.csv', sha256: '3f1c9a0e8b7d6c5f4e3d2c1b0a99887766554433221100ffeeddccbbaa998877', rows: 5400 },
-      { filename: 'T-101_hydro_2026-12-02_part2.csv', sha256: 'a0b1c2d3e4f5061728394a5b6c7d8e9f00112233445566778899aabbccddeeff', rows: null },
+      {
+        filename: 'T-101_hydro_2026-12-02.csv',
+        sha256: '3f1c9a0e8b7d6c5f4e3d2c1b0a99887766554433221100ffeeddccbbaa998877',
+        rows: 5400,
+      },
+      {
+        filename: 'T-101_hydro_2026-12-02_part2.csv',
+        sha256: 'a0b1c2d3e4f5061728394a5b6c7d8e9f00112233445566778899aabbccddeeff',
+        rows: null,
+      },
     ],
     result,
     dispositions: {
       H2: { outcome: 'accepted', reason: ACCEPT_REASON, by: 'Ines Okafor', at: at('2026-12-02T16:40:00Z') },
       H3: { outcome: 'excluded', reason: EXCLUDE_REASON, by: 'Ines Okafor', at: at('2026-12-02T16:44:00Z') },
     },
-    gaugeOutcomes: { H1: 'in-band', H2: 'flagged', H3: 'excluded', A1: 'in-band', E1: 'not-compared', 'R1/A': 'in-band', 'R1/B': 'in-band', 'R1/C': 'in-band' },
+    gaugeOutcomes: {
+      H1: 'in-band',
+      H2: 'flagged',
+      H3: 'excluded',
+      A1: 'in-band',
+      E1: 'not-compared',
+      'R1/A': 'in-band',
+      'R1/B': 'in-band',
+      'R1/C': 'in-band',
+    },
     verdict: 'conforms',
     signatures: [
-      { kind: 'review', name: 'Ines Okafor', email: 'engineer@example.com', at: at('2026-12-02T17:05:00Z'), reductionId: 34 },
+      {
+        kind: 'review',
+        name: 'Ines Okafor',
+        email: 'engineer@example.com',
+        at: at('2026-12-02T17:05:00Z'),
+        reductionId: 34,
+      },
     ],
   };
 }
@@ -305,6 +472,12 @@ export function buildReleasedReportInput(): ReportInput {
   const input = buildInput(SI);
   input.draft = false;
   input.test.status = 'released';
-  input.signatures.push({ kind: 'release', name: 'Tomas Lindqvist', email: 'qa@example.com', at: new Date('2026-12-03T08:15:00Z'), reductionId: 34 });
+  input.signatures.push({
+    kind: 'release',
+    name: 'Tomas Lindqvist',
+    email: 'qa@example.com',
+    at: new Date('2026-12-03T08:15:00Z'),
+    reductionId: 34,
+  });
   return input;
 }

@@ -16,7 +16,11 @@ export const PATCH = endpoint(async (ctx) => {
   const db = getDb();
   const target = await findUserById(db, id);
   if (!target) throw errors.notFound('user');
-  if (target.id === admin.id && role !== 'admin') throw errors.conflict('own-role', 'You cannot take the admin role from your own account; ask another administrator.');
+  if (target.id === admin.id && role !== 'admin')
+    throw errors.conflict(
+      'own-role',
+      'You cannot take the admin role from your own account; ask another administrator.',
+    );
   await setUserRole(db, id, role);
   await auditBy(admin, 'role-changed', null, { userId: id, email: target.email, from: target.role, to: role });
   return json({ id, role });

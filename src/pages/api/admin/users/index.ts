@@ -25,8 +25,14 @@ export const POST = endpoint(async (ctx) => {
   const admin = requireRole(ctx, 'admin');
   const body = await readJson(ctx.request, createBody);
   const db = getDb();
-  if (await findUserByEmail(db, body.email)) throw errors.conflict('email-taken', 'An account with that e-mail exists already.');
-  const id = await createUser(db, { email: body.email, name: body.name, role: body.role, passwordHash: await hashPassword(body.password) });
+  if (await findUserByEmail(db, body.email))
+    throw errors.conflict('email-taken', 'An account with that e-mail exists already.');
+  const id = await createUser(db, {
+    email: body.email,
+    name: body.name,
+    role: body.role,
+    passwordHash: await hashPassword(body.password),
+  });
   await auditBy(admin, 'user-created', null, { userId: id, email: body.email, role: body.role });
   return json({ id }, 201);
 });

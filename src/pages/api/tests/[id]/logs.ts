@@ -18,5 +18,16 @@ export const POST = endpoint(async (ctx) => {
   const test = await loadTest(idParam(ctx.params.id, 'test'), true);
   const plan = validatePlan(test.plan);
   const { log, created } = await receiveLogUpload(ctx.request, test, plan, user);
-  return json({ id: log.id, sha256: log.sha256, rows: log.rows, sizeBytes: log.sizeBytes, timeStart: log.timeStart, timeEnd: log.timeEnd, existing: !created }, created ? 201 : 200);
+  return json(
+    {
+      id: log.id,
+      sha256: log.sha256,
+      rows: log.rows,
+      sizeBytes: log.sizeBytes,
+      timeStart: log.timeStart,
+      timeEnd: log.timeEnd,
+      existing: !created,
+    },
+    created ? 201 : 200,
+  );
 });

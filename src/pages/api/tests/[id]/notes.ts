@@ -13,7 +13,10 @@ export const GET = endpoint(async (ctx) => {
   return json({ items: await listNotes(getDb(), id) });
 });
 
-const noteBody = z.object({ kind: z.enum(noteKinds).default('general'), body: z.string().trim().min(1, 'write what happened').max(4000) });
+const noteBody = z.object({
+  kind: z.enum(noteKinds).default('general'),
+  body: z.string().trim().min(1, 'write what happened').max(4000),
+});
 
 /** POST /api/tests/{id}/notes — technician+: pressure held, leak seen, gauge re-zeroed… */
 export const POST = endpoint(async (ctx) => {

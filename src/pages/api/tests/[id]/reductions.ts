@@ -23,7 +23,12 @@ export const POST = endpoint(async (ctx) => {
   const db = getDb();
   const logs = await listLogs(db, test.id);
   if (!logs.length) throw errors.conflict('no-logs', 'Upload a log before starting a reduction.');
-  const id = await queueReduction(db, { testId: test.id, plan: test.plan, logIds: logs.map((l) => l.id), queuedBy: user.id });
+  const id = await queueReduction(db, {
+    testId: test.id,
+    plan: test.plan,
+    logIds: logs.map((l) => l.id),
+    queuedBy: user.id,
+  });
   await updateTest(db, test.id, {});
   await auditBy(user, 'reduction-queued', test.id, { reductionId: id, logIds: logs.map((l) => l.id) });
   return json({ id }, 202, { location: `/api/reductions/${id}` });
