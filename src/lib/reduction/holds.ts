@@ -47,6 +47,7 @@ interface Block {
 export class HoldDetector {
   private readonly s: Required<HoldSettings>;
   private readonly nSlots: number;
+  /** MAX_BLOCKS blocks from the constructor on, each with nSlots slot sums; the first nb are in use. */
   private readonly blocks: Block[] = [];
   private nb = 0;
   private blockSize = 1;
@@ -118,11 +119,10 @@ export class HoldDetector {
   }
 
   private add(t: number, p: number, slots: Float64Array) {
-    let b = this.nb > 0 ? this.blocks[this.nb - 1]! : undefined;
+    let b = this.nb > 0 ? this.blocks[this.nb - 1] : undefined;
     if (!b || b.n >= this.blockSize) {
-      if (this.nb === MAX_BLOCKS) {
-        this.compact();
-      }
+      if (this.nb === MAX_BLOCKS) this.compact();
+      // nb < MAX_BLOCKS here, and every block exists from the constructor on
       b = this.blocks[this.nb++]!;
       this.resetBlock(b, this.runN, t);
     }
@@ -136,13 +136,14 @@ export class HoldDetector {
     b.sumP += p;
     b.sumTT += tr * tr;
     b.sumTP += tr * p;
+    // hot: k < nSlots, the length of both sums and (by contract) of the caller's slot values
     const ss = b.slotSum,
       sc = b.slotCount;
     for (let k = 0; k < this.nSlots; k++) {
       const v = slots[k]!;
       if (v === v) {
-        ss[k] += v;
-        sc[k]++;
+        ss[k]! += v;
+        sc[k]!++;
       }
     }
   }
@@ -151,6 +152,7 @@ export class HoldDetector {
   private compact() {
     const bl = this.blocks;
     for (let i = 0; i < MAX_BLOCKS / 2; i++) {
+      // all MAX_BLOCKS blocks are in use when compact runs
       const a = bl[2 * i]!,
         c = bl[2 * i + 1]!,
         dst = bl[i]!;
@@ -172,10 +174,8 @@ export class HoldDetector {
       dst.sumP += c.sumP;
       dst.sumTT += c.sumTT;
       dst.sumTP += c.sumTP;
-      for (let k = 0; k < this.nSlots; k++) {
-        dst.slotSum[k] += c.slotSum[k]!;
-        dst.slotCount[k] += c.slotCount[k]!;
-      }
+      addInto(dst.slotSum, c.slotSum);
+      addInto(dst.slotCount, c.slotCount);
     }
     this.nb = MAX_BLOCKS / 2;
     this.blockSize *= 2;
@@ -187,8 +187,12 @@ export class HoldDetector {
     const duration = this.lastInT - this.runT0;
     if (runN < this.s.minSamples || duration < this.s.minDuration || this.nb === 0) return;
     const settleIndex = Math.ceil(this.s.settleFraction * runN);
-    let first = 0;
-    while (first < this.nb - 1 && this.blocks[first]!.startIndex < settleIndex) first++;
+    // the settled part: from the first block that starts at or after settleIndex (at least the last block)
+    const used = this.blocks.slice(0, this.nb);
+    const firstSettled = used.findIndex((b) => b.startIndex >= settleIndex);
+    const settled = used.slice(firstSettled < 0 ? used.length - 1 : firstSettled);
+    const [firstBlock] = settled;
+    if (!firstBlock) return;
     let n = 0,
       sumT = 0,
       sumP = 0,
@@ -196,20 +200,17 @@ export class HoldDetector {
       sumTP = 0;
     const slotSum = new Float64Array(this.nSlots);
     const slotCount = new Float64Array(this.nSlots);
-    for (let i = first; i < this.nb; i++) {
-      const b = this.blocks[i]!;
+    for (const b of settled) {
       n += b.n;
       sumT += b.sumT;
       sumP += b.sumP;
       sumTT += b.sumTT;
       sumTP += b.sumTP;
-      for (let k = 0; k < this.nSlots; k++) {
-        slotSum[k] += b.slotSum[k]!;
-        slotCount[k] += b.slotCount[k]!;
-      }
+      addInto(slotSum, b.slotSum);
+      addInto(slotCount, b.slotCount);
     }
     if (n < 2) return;
-    const settledStart = this.blocks[first]!.t0;
+    const settledStart = firstBlock.t0;
     const denom = n * sumTT - sumT * sumT;
     const slope = denom > 0 ? (n * sumTP - sumT * sumP) / denom : 0;
     const drift = Math.abs(slope) * (this.lastInT - settledStart);
@@ -247,10 +248,8 @@ export function classifyHolds(
       const n = prev.samples + h.samples;
       const slotSum = prev.slotSum.slice();
       const slotCount = prev.slotCount.slice();
-      for (let k = 0; k < slotSum.length; k++) {
-        slotSum[k] += h.slotSum[k]!;
-        slotCount[k] += h.slotCount[k]!;
-      }
+      addInto(slotSum, h.slotSum);
+      addInto(slotCount, h.slotCount);
       merged[merged.length - 1] = {
         start: prev.start,
         end: h.end,
@@ -263,8 +262,12 @@ export function classifyHolds(
     } else merged.push(h);
   }
   let peakIndex = -1;
+  let peakPressure = -Infinity;
   merged.forEach((h, i) => {
-    if (peakIndex < 0 || h.pressure > merged[peakIndex]!.pressure) peakIndex = i;
+    if (peakIndex < 0 || h.pressure > peakPressure) {
+      peakIndex = i;
+      peakPressure = h.pressure;
+    }
   });
   const holds = merged.map((h, i): ClassifiedHold => {
     const atZero = Math.abs(h.pressure) <= zeroBand;
@@ -285,6 +288,17 @@ export function detectHolds(
 ): ClassifiedHold[] {
   const det = new HoldDetector(0, settings);
   const none = new Float64Array(0);
-  for (let i = 0; i < Math.min(t.length, p.length); i++) if (Number.isFinite(p[i]!)) det.push(t[i]!, p[i]!, none);
+  const n = Math.min(t.length, p.length);
+  for (let i = 0; i < n; i++) {
+    const ti = t[i],
+      pi = p[i];
+    if (ti !== undefined && pi !== undefined && Number.isFinite(pi)) det.push(ti, pi, none);
+  }
   return classifyHolds(det.finish(), settings.bandAbs, zeroBand).holds;
+}
+
+/** dst[k] += src[k] for every k of the shorter array (the slot sums of one detector share one length). */
+function addInto(dst: Float64Array, src: Float64Array): void {
+  const n = Math.min(dst.length, src.length);
+  for (let k = 0; k < n; k++) dst[k]! += src[k]!;
 }

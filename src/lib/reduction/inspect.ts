@@ -52,13 +52,15 @@ export function inspectLogHead(plan: Plan, headText: string): LogHeadInfo {
     );
   const headerLine = found.index + 1;
   const m = mapColumns(plan, found.cells);
+  const pressureCell = found.cells[m.pressure]; // undefined when the pressure column is missing (-1)
   const pressureUnit =
-    m.pressure >= 0 ? resolvePressureUnit(m.pressureUnit, found.cells[m.pressure]!, headerLine) : null;
+    pressureCell !== undefined ? resolvePressureUnit(m.pressureUnit, pressureCell, headerLine) : null;
   const previewRows: string[][] = [];
   let decimalComma = false;
-  for (let i = found.index + 1; i < lines.length && previewRows.length < 5; i++) {
-    if (!lines[i]!.trim()) continue;
-    const cells = splitCells(lines[i]!, found.delimiter);
+  for (const line of lines.slice(found.index + 1)) {
+    if (previewRows.length >= 5) break;
+    if (!line.trim()) continue;
+    const cells = splitCells(line, found.delimiter);
     previewRows.push(cells);
     if (
       found.delimiter !== ',' &&

@@ -42,6 +42,7 @@ describe('inspectLogHead', () => {
     ['NUL bytes', 'time,P\u0000\u0000', 'not-delimited-text'],
     ['no pressure column', 'time_s,Q,SG1\n0,1,2\n', 'pressure-column-not-found'],
     ['unknown unit', 'time_s,P [V],SG1,SG2\n', 'unknown-pressure-unit'],
+    ['unit spelled like an Object key', 'time_s,P [constructor],SG1,SG2\n', 'unknown-pressure-unit'],
   ])('%s → InputError %s', (_n, head, code) => {
     expect(() => inspectLogHead(small, head)).toThrow(InputError);
     try {

@@ -226,7 +226,9 @@ export function parsePlan(input: unknown): Plan {
     path: formatPath(i.path),
     message: i.path.length === 0 && i.code === 'invalid_type' ? 'must be a JSON object' : i.message,
   }));
-  const first = issues[0]!;
+  const [first] = issues;
+  // a failed parse always reports an issue; without one there is still nothing better to say
+  if (!first) throw new InputError('invalid-plan', 'the plan is not valid', { issues });
   const more = issues.length > 1 ? ` (and ${issues.length - 1} more problem${issues.length > 2 ? 's' : ''})` : '';
   throw new InputError('invalid-plan', `${first.path}: ${first.message}${more}`, { path: first.path, issues });
 }

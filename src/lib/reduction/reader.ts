@@ -52,6 +52,7 @@ export interface ReadSummary {
   validCounts: Map<string, number>;
 }
 
+/** Bytes [a, b) of buf (b ≤ buf.length) as Latin-1 text. */
 const latin1 = (buf: Uint8Array, a: number, b: number) => {
   let s = '';
   for (let i = a; i < b; i++) s += String.fromCharCode(buf[i]!);
@@ -62,6 +63,7 @@ export class LogReader {
   private readonly plan: Plan;
   private readonly onRow: RowCallback;
   private readonly nCh: number;
+  /** one value per mapped column: time, pressure, then the channels; colNames and validCounts run parallel */
   private readonly vals: Float64Array;
   private readonly chView: Float64Array;
   private readonly colNames: string[];
@@ -90,6 +92,7 @@ export class LogReader {
   private lineNo = 0;
   private delim = 44;
   private allowComma = false;
+  /** per header field up to maxField (its last index): the slot in vals, or −1 for an unmapped field */
   private fieldSlot: Int32Array = new Int32Array(0);
   private maxField = -1;
   private hasTime = false;
@@ -127,20 +130,20 @@ export class LogReader {
     let headDecoder = new TextDecoder('utf-8');
     let encoding: Encoding = 'utf-8';
     const encoder = new TextEncoder();
-    let inPreamble = true;
+    /** this segment once its header line is found; null while still in the preamble */
+    let segment: SegmentInfo | null = null;
     let preambleBytes = 0;
     let weak: { found: HeaderFound; line: number } | null = null;
 
-    const onHeader = (found: HeaderFound, line: number) => {
-      this.setupSegment(found, line, encoding);
-      inPreamble = false;
-    };
     const preambleLine = (buf: Uint8Array, a: number, b: number) => {
       preambleBytes += b - a + 1;
       let text = headDecoder.decode(buf.subarray(a, b));
       if (this.lineNo === 1) text = text.replace(/^\uFEFF/, '');
       const { strong, weak: w } = findHeaderLine(this.plan, [text]);
-      if (strong) return onHeader(strong, this.lineNo);
+      if (strong) {
+        segment = this.setupSegment(strong, this.lineNo, encoding);
+        return;
+      }
       if (w && !weak) weak = { found: w, line: this.lineNo };
       if (this.lineNo >= MAX_PREAMBLE_LINES || preambleBytes > MAX_PREAMBLE_BYTES) this.failNoHeader(weak);
     };
@@ -148,7 +151,7 @@ export class LogReader {
     const processBytes = (buf: Uint8Array, final: boolean) => {
       let pos = 0;
       const n = buf.length;
-      if (!inPreamble) {
+      if (segment) {
         const z = buf.indexOf(0);
         if (z >= 0) assertTextBytes(buf, 0, z + 1, this.lineNo + 1);
       }
@@ -161,8 +164,8 @@ export class LogReader {
         this.lineNo++;
         let end = nl;
         if (end > pos && buf[end - 1] === 13) end--;
-        if (inPreamble) preambleLine(buf, pos, end);
-        else if (end > pos) this.dataLine(buf, pos, end);
+        if (!segment) preambleLine(buf, pos, end);
+        else if (end > pos) this.dataLine(segment, buf, pos, end);
         pos = nl + 1;
       }
       if (pos < n) {
@@ -214,11 +217,7 @@ export class LogReader {
 
     for await (const chunk of source) {
       const raw =
-        typeof chunk === 'string'
-          ? encoder.encode(chunk)
-          : chunk instanceof Uint8Array
-            ? chunk
-            : new Uint8Array(chunk as ArrayBuffer);
+        typeof chunk === 'string' ? encoder.encode(chunk) : chunk instanceof Uint8Array ? chunk : new Uint8Array(chunk);
       if (raw.length === 0) continue;
       this.bytesRead += raw.length;
       handle(raw, false);
@@ -227,7 +226,7 @@ export class LogReader {
     handle(new Uint8Array(0), true);
     const leftover = carry as Uint8Array | null;
     if (leftover && leftover.length) processBytes(leftover, true);
-    if (inPreamble) {
+    if (!segment) {
       if (this.lineNo === 0)
         throw new InputError('no-data', index > 0 ? `log ${index + 1} is empty` : 'the log is empty', {
           line: 1,
@@ -243,23 +242,19 @@ export class LogReader {
     }
   }
 
+  /** The header at `line` lacks the `missing` columns (the pressure column when the list is empty). */
+  private missingColumnError(line: number, missing: readonly string[]): InputError {
+    const [name = this.plan.columns.pressure, ...others] = missing;
+    const nor = others.length ? ` (nor ${others.map((x) => `'${x}'`).join(', ')})` : '';
+    return new InputError('missing-column', `${this.where(line, name)}: the header has no column '${name}'${nor}`, {
+      line,
+      column: name,
+      source: this.src,
+    });
+  }
+
   private failNoHeader(weak: { found: HeaderFound; line: number } | null): never {
-    if (weak) {
-      const m = mapColumns(this.plan, weak.found.cells);
-      const name = m.missing[0] ?? this.plan.columns.pressure;
-      throw new InputError(
-        'missing-column',
-        `${this.where(weak.line, name)}: the header has no column '${name}'${
-          m.missing.length > 1
-            ? ` (nor ${m.missing
-                .slice(1)
-                .map((x) => `'${x}'`)
-                .join(', ')})`
-            : ''
-        }`,
-        { line: weak.line, column: name, source: this.src },
-      );
-    }
+    if (weak) throw this.missingColumnError(weak.line, mapColumns(this.plan, weak.found.cells).missing);
     throw new InputError(
       'pressure-column-not-found',
       `${this.src > 0 ? `log ${this.src + 1}: ` : ''}no header line holds the pressure column '${this.plan.columns.pressure}' (plan.columns.pressure) in the first ${this.lineNo} lines`,
@@ -267,32 +262,17 @@ export class LogReader {
     );
   }
 
-  private setupSegment(found: HeaderFound, line: number, encoding: Encoding) {
+  private setupSegment(found: HeaderFound, line: number, encoding: Encoding): SegmentInfo {
     const m = mapColumns(this.plan, found.cells);
-    if (m.duplicate.length) {
-      const name = m.duplicate[0]!;
+    const [duplicate] = m.duplicate;
+    if (duplicate !== undefined)
       throw new InputError(
         'duplicate-column',
-        `${this.where(line, name)}: the header names column '${name}' more than once`,
-        { line, column: name, source: this.src },
+        `${this.where(line, duplicate)}: the header names column '${duplicate}' more than once`,
+        { line, column: duplicate, source: this.src },
       );
-    }
-    if (m.missing.length) {
-      const name = m.missing[0]!;
-      const more =
-        m.missing.length > 1
-          ? ` (nor ${m.missing
-              .slice(1)
-              .map((x) => `'${x}'`)
-              .join(', ')})`
-          : '';
-      throw new InputError('missing-column', `${this.where(line, name)}: the header has no column '${name}'${more}`, {
-        line,
-        column: name,
-        source: this.src,
-      });
-    }
-    const pressureHeader = found.cells[m.pressure]!;
+    const pressureHeader = found.cells[m.pressure]; // undefined when the pressure column is missing (-1)
+    if (m.missing.length > 0 || pressureHeader === undefined) throw this.missingColumnError(line, m.missing);
     const unit = resolvePressureUnit(m.pressureUnit, pressureHeader, line);
     const planUnit = planPressureUnit(this.plan.units);
     this.factor = unit ? pressureFactor(unit, planUnit) : 1;
@@ -310,7 +290,15 @@ export class LogReader {
     this.maxField = maxIndex;
     this.hasTime = m.time >= 0;
     this.headerText = found.cells.join('\u0001');
-    this.segments.push({ headerLine: line, delimiter: found.delimiter, encoding, pressureUnit: unit, rows: 0 });
+    const segment: SegmentInfo = {
+      headerLine: line,
+      delimiter: found.delimiter,
+      encoding,
+      pressureUnit: unit,
+      rows: 0,
+    };
+    this.segments.push(segment);
+    return segment;
   }
 
   /** Fast path: false when the line needs the general (quote-aware) path. */
@@ -321,7 +309,7 @@ export class LogReader {
     const delim = this.delim;
     let i = s;
     for (let field = 0; field <= maxField; field++) {
-      const slot = map[field]!;
+      const slot = map[field]!; // field ≤ maxField, the last index of map
       if (slot >= 0) {
         const v = this.parseField(buf, i, e);
         if (v === -Infinity) return false; // quote
@@ -330,7 +318,7 @@ export class LogReader {
         i = this.fieldEnd;
       } else {
         while (i < e) {
-          const c = buf[i]!;
+          const c = buf[i];
           if (c === delim) break;
           if (c === 34) return false;
           i++;
@@ -342,7 +330,10 @@ export class LogReader {
     return true;
   }
 
-  /** A number from bytes [i, …) up to the delimiter; NaN for empty or not a number; −Infinity when quoted. Sets fieldEnd. */
+  /**
+   * A number from bytes [i, …) up to the delimiter; NaN for empty or not a number; −Infinity when quoted. Sets
+   * fieldEnd. Hot: every byte read is at j < e ≤ buf.length, and POW10 covers the exponents |e10| ≤ 22 it is used for.
+   */
   private parseField(buf: Uint8Array, i: number, e: number): number {
     const delim = this.delim;
     let j = i;
@@ -424,9 +415,9 @@ export class LogReader {
     const cells = splitCells(text, String.fromCharCode(this.delim) as Delimiter);
     const vals = this.vals;
     for (let f = 0; f <= this.maxField; f++) {
-      const slot = this.fieldSlot[f]!;
+      const slot = this.fieldSlot[f]!; // f ≤ maxField, the last index of fieldSlot
       if (slot < 0) continue;
-      const cell = f < cells.length ? cells[f]! : '';
+      const cell = cells[f] ?? ''; // a short line: the missing cells are empty
       let v = parseNumberText(cell, this.allowComma);
       if (slot === 0 && v !== v && this.timeMode !== 'seconds') {
         const ms = parseIsoMillis(cell);
@@ -438,7 +429,7 @@ export class LogReader {
     if (this.allowComma && /\d,\d/.test(text)) this.decimalComma = true;
   }
 
-  private dataLine(buf: Uint8Array, s: number, e: number) {
+  private dataLine(segment: SegmentInfo, buf: Uint8Array, s: number, e: number) {
     const vals = this.vals;
     vals.fill(NaN);
     if (!this.scanLine(buf, s, e)) this.slowLine(new TextDecoder().decode(buf.subarray(s, e)));
@@ -452,7 +443,7 @@ export class LogReader {
     if (!any) {
       let blank = true;
       for (let i = s; i < e; i++) {
-        const c = buf[i]!;
+        const c = buf[i];
         if (c !== 32 && c !== this.delim && c !== 9 && c !== 13) {
           blank = false;
           break;
@@ -466,22 +457,23 @@ export class LogReader {
         return;
       }
     }
-    this.finishRow();
+    this.finishRow(segment);
   }
 
+  /** k: a slot of vals, which colNames parallels */
   private noteMissing(k: number) {
     this.missing++;
     if (!this.firstMissing) this.firstMissing = { line: this.lineNo, column: this.colNames[k]!, source: this.src };
   }
 
-  private finishRow() {
+  private finishRow(segment: SegmentInfo) {
     const vals = this.vals;
-    const seg = this.segments[this.segments.length - 1]!;
-    seg.rows++;
+    segment.rows++;
     const rowIndex = this.rows++;
     const counts = this.validCounts;
+    // vals and counts have the same fixed length (time, pressure, channels)
     for (let k = 1; k < vals.length; k++) {
-      if (vals[k] === vals[k]) counts[k]++;
+      if (vals[k] === vals[k]) counts[k]!++;
       else this.noteMissing(k);
     }
     let t: number;
@@ -494,7 +486,7 @@ export class LogReader {
         this.noteMissing(0);
         t = this.lastT === this.lastT ? this.lastT + (this.lastT - this.prevT || 0) : rowIndex;
       } else {
-        counts[0]++;
+        counts[0]!++;
         if (this.timeMode === null) this.timeMode = 'seconds';
         if (this.origin !== this.origin) {
           this.origin = raw;
@@ -527,7 +519,7 @@ export class LogReader {
     const validCounts = new Map<string, number>();
     this.colNames.forEach((name, k) => {
       if (k === 0 && !this.plan.columns.time) return;
-      validCounts.set(name, this.validCounts[k]!);
+      validCounts.set(name, this.validCounts[k]!); // parallel to colNames from the constructor on
     });
     return {
       rows: this.rows,

@@ -78,8 +78,8 @@ describe('faulty gauges are flagged with the right code', async () => {
     ['A2', 'reversed wiring', ['reversed-sign', 'outside-band']],
     ['R1/C', 'saturates half-way', ['no-response', 'nonlinear']],
   ])('%s %s → %j', (id, _what, flags) => {
-    const g = gauge(result, id as string);
-    for (const f of flags as string[]) expect(g.flags).toContain(f);
+    const g = gauge(result, id);
+    for (const f of flags) expect(g.flags).toContain(f);
     expect(g.outcome).toBe('flagged');
   });
   it('the low gauge deviates by −15 %', () => expect(gauge(result, 'H1').deviation!).toBeCloseTo(-0.15, 2));

@@ -3,7 +3,7 @@
 // both branches, pressure-binned means, zero-pressure sums at the start and the end, smoothed
 // extremes, and the bounded series. Everything else is computed from those at the end.
 import { InputError } from './errors';
-import type { Plan } from './plan';
+import type { Plan, PlanGauge } from './plan';
 import type { FlagCode, GaugeResult, Hold, ReductionResult, RosetteResult, Series } from './types';
 import { ENGINE_VERSION } from './version';
 import { LogReader, type ChunkSource, type ReadSummary } from './reader';
@@ -24,8 +24,8 @@ export interface ReduceOptions {
 
 interface Slot {
   grid: PlannedGrid;
-  gaugeIndex: number;
-  /** channel indices and coefficients: value = Σ coef × raw */
+  gauge: PlanGauge;
+  /** channel indices (into the plan's channel list) and coefficients: value = Σ coef × raw */
   terms: { ch: number; coef: number }[];
   notes: string[];
 }
@@ -41,7 +41,7 @@ function buildSlots(plan: Plan, grids: PlannedGrid[], warnings: string[]): Slot[
   let offset = 0;
   let gi = 0;
   const uniaxialKt: string[] = [];
-  plan.gauges.forEach((g, gaugeIndex) => {
+  for (const g of plan.gauges) {
     const n = g.channels.length;
     const myGrids = grids.slice(gi, gi + n);
     gi += n;
@@ -54,7 +54,10 @@ function buildSlots(plan: Plan, grids: PlannedGrid[], warnings: string[]): Slot[
       uniaxialKt.push(g.id);
     }
     const M = correctionMatrix(g.kind, g.gaugeFactor, g.instrumentGaugeFactor, g.transverseSensitivity, ratio);
-    myGrids.forEach((grid, k) => {
+    for (const [k, grid] of myGrids.entries()) {
+      // one row per grid: both come from the gauge's kind, which the plan checked against its channels
+      const row = M[k];
+      if (!row) throw new Error(`gauge ${g.id}: no correction row for grid ${k + 1} of ${myGrids.length}`);
       const notes: string[] = [];
       if (g.gaugeFactor !== g.instrumentGaugeFactor)
         notes.push(
@@ -70,11 +73,11 @@ function buildSlots(plan: Plan, grids: PlannedGrid[], warnings: string[]): Slot[
             `transverse sensitivity Kt ${fmt(g.transverseSensitivity * 100)} % corrected from the three grids (TN-509, ${g.kind === 'rosette-delta' ? 'delta' : 'rectangular'} rosette)`,
           );
       }
-      const terms = M[k]!.map((coef, j) => ({ ch: offset + j, coef })).filter((x) => x.coef !== 0);
-      slots.push({ grid, gaugeIndex, terms, notes });
-    });
+      const terms = row.map((coef, j) => ({ ch: offset + j, coef })).filter((x) => x.coef !== 0);
+      slots.push({ grid, gauge: g, terms, notes });
+    }
     offset += n;
-  });
+  }
   if (uniaxialKt.length)
     warnings.push(
       `uniaxial gauge${uniaxialKt.length > 1 ? 's' : ''} ${uniaxialKt.join(', ')}: transverse sensitivity corrected with the ${plan.model} model's predicted transverse strain, not a measured one`,
@@ -84,7 +87,7 @@ function buildSlots(plan: Plan, grids: PlannedGrid[], warnings: string[]): Slot[
 
 function toSegments(sources: ChunkSource[] | ChunkSource): ChunkSource[] {
   if (Array.isArray(sources)) return sources;
-  return [sources as ChunkSource];
+  return [sources];
 }
 
 /** Count pressure levels that are more than `band` apart. */
@@ -137,19 +140,24 @@ function hysteresisGap(loading: Pt[], unloading: Pt[], peakPressure: number): nu
  * pressure rises by at least a quarter of the peak. Returns the pressure where it starts, or null.
  */
 function saturationPressure(loading: Pt[], predictedSlope: number): number | null {
-  const L = [...loading].sort((a, b) => a.p - b.p);
-  const n = L.length;
-  if (n < 3) return null;
-  const last = L[n - 1]!;
-  let k = n - 1;
-  while (k > 0) {
-    const dp = last.p - L[k - 1]!.p;
-    const tol = Math.max(2, 0.05 * Math.abs(predictedSlope) * dp);
-    if (Math.abs(L[k - 1]!.e - last.e) <= tol) k--;
-    else break;
+  // highest pressure first (the reverse of a stable ascending sort, so ties keep their order)
+  const [last, ...below] = [...loading].sort((a, b) => a.p - b.p).reverse();
+  if (!last || below.length < 2) return null;
+  let tailStart = last;
+  let flat = 0;
+  for (const q of below) {
+    const tol = Math.max(2, 0.05 * Math.abs(predictedSlope) * (last.p - q.p));
+    if (Math.abs(q.e - last.e) > tol) break;
+    tailStart = q;
+    flat++;
   }
-  if (k === n - 1 || k === 0) return null; // no flat tail, or flat all the way (a dead channel)
-  return last.p - L[k]!.p >= 0.2 * last.p ? L[k]!.p : null;
+  if (flat === 0 || flat === below.length) return null; // no flat tail, or flat all the way (a dead channel)
+  return last.p - tailStart.p >= 0.2 * last.p ? tailStart.p : null;
+}
+
+/** Mean of a running sum over its count; null when nothing was counted. */
+function meanOf(sum: number | undefined, count: number | undefined): number | null {
+  return sum !== undefined && count !== undefined && count > 0 ? sum / count : null;
 }
 
 /** Reduce a log (one or several consecutive segments) against a plan. */
@@ -171,9 +179,15 @@ export async function reduceLog(
   const zeroBand = 2 * bandAbs;
   const binWidth = 0.05 * tp;
 
-  // running state
+  // running state; every typed array below has a fixed length, and the row loops stay inside it
   const slotVals = new Float64Array(nS + nCh); // grid slots, then raw channels (for the series' zero)
-  let detector: HoldDetector | null = null;
+  const timeIsIndex = !plan.columns.time;
+  const detector = new HoldDetector(nS + nCh, {
+    bandAbs,
+    minDuration: timeIsIndex ? Math.max(hs.minSamples, hs.minDurationSeconds) : hs.minDurationSeconds,
+    minSamples: hs.minSamples,
+    settleFraction: hs.settleFraction,
+  });
   const loadSums = new Float64Array(nS * SUMS_STRIDE);
   const postSums = new Float64Array(nS * SUMS_STRIDE);
   let postDirty = false;
@@ -196,49 +210,56 @@ export async function reduceLog(
   let blockRows = 0;
   const levels = new Set<number>();
   const seriesVals = new Float64Array(1 + nCh);
-  let series: SeriesBuilder | null = null;
+  const series = new SeriesBuilder(['pressure', ...channelNames], options.seriesBuckets ?? 5000, timeIsIndex);
   let lastT = NaN;
   let usedRows = 0;
+
+  /** Fold the block means of the current BLOCK_ROWS rows into the smoothed extremes and start a new block. */
+  const foldBlock = () => {
+    for (let s = 0; s <= nS; s++) {
+      const n = blockCnt[s]!;
+      if (n > 0) {
+        const m = blockSum[s]! / n;
+        if (m < bmMin[s]!) bmMin[s] = m;
+        if (m > bmMax[s]!) bmMax[s] = m;
+      }
+      blockSum[s] = 0;
+      blockCnt[s] = 0;
+    }
+    blockRows = 0;
+  };
 
   const reader = new LogReader(plan, (t, p, ch) => {
     usedRows++;
     lastT = t;
-    if (!detector) {
-      const timeIsIndex = !plan.columns.time;
-      detector = new HoldDetector(nS + nCh, {
-        bandAbs,
-        minDuration: timeIsIndex ? Math.max(hs.minSamples, hs.minDurationSeconds) : hs.minDurationSeconds,
-        minSamples: hs.minSamples,
-        settleFraction: hs.settleFraction,
-      });
-      series = new SeriesBuilder(['pressure', ...channelNames], options.seriesBuckets ?? 5000, timeIsIndex);
-    }
-    // corrected grid strains and raw channels
+    // corrected grid strains, then the raw channels; ch holds the nCh channels that the slots' terms index.
+    // Indexed loops: for…of over slots and terms is measurably slower per row here.
     for (let s = 0; s < nS; s++) {
       const terms = slots[s]!.terms;
       let v = 0;
-      for (let j = 0; j < terms.length; j++) v += terms[j]!.coef * ch[terms[j]!.ch]!;
+      for (let j = 0; j < terms.length; j++) {
+        const term = terms[j]!;
+        v += term.coef * ch[term.ch]!;
+      }
       slotVals[s] = v;
     }
-    for (let c = 0; c < nCh; c++) slotVals[nS + c] = ch[c]!;
+    slotVals.set(ch, nS);
     detector.push(t, p, slotVals);
 
     // branch split: everything after the running maximum is provisional unloading
     if (p > maxP) {
       maxP = p;
       if (postDirty) {
-        for (let i = 0; i < loadSums.length; i++) {
-          loadSums[i] += postSums[i]!;
-          postSums[i] = 0;
-        }
+        for (let i = 0; i < loadSums.length; i++) loadSums[i]! += postSums[i]!;
+        postSums.fill(0);
         for (let b = 0; b < N_BINS; b++) {
           if (!touched[b]) continue;
           touched[b] = 0;
           for (let s = 0; s < nS; s++) {
             const o = s * binStride + b * 3;
-            loadBins[o] += postBins[o]!;
-            loadBins[o + 1] += postBins[o + 1]!;
-            loadBins[o + 2] += postBins[o + 2]!;
+            loadBins[o]! += postBins[o]!;
+            loadBins[o + 1]! += postBins[o + 1]!;
+            loadBins[o + 2]! += postBins[o + 2]!;
             postBins[o] = postBins[o + 1] = postBins[o + 2] = 0;
           }
         }
@@ -252,21 +273,22 @@ export async function reduceLog(
     else if (bin >= N_BINS) bin = N_BINS - 1;
     if (postDirty) touched[bin] = 1;
     for (let s = 0; s < nS; s++) {
-      let y = slotVals[s]!;
-      if (y !== y) continue;
-      if (origin[s] !== origin[s]) origin[s] = y;
-      y -= origin[s]!;
+      const raw = slotVals[s]!;
+      if (raw !== raw) continue;
+      let y0 = origin[s]!;
+      if (y0 !== y0) origin[s] = y0 = raw;
+      const y = raw - y0;
       const o = s * SUMS_STRIDE;
-      sums[o]++;
-      sums[o + 1] += p;
-      sums[o + 2] += y;
-      sums[o + 3] += p * p;
-      sums[o + 4] += p * y;
-      sums[o + 5] += y * y;
+      sums[o]!++;
+      sums[o + 1]! += p;
+      sums[o + 2]! += y;
+      sums[o + 3]! += p * p;
+      sums[o + 4]! += p * y;
+      sums[o + 5]! += y * y;
       const ob = s * binStride + bin * 3;
-      bins[ob] += p;
-      bins[ob + 1] += slotVals[s]!;
-      bins[ob + 2]++;
+      bins[ob]! += p;
+      bins[ob + 1]! += raw;
+      bins[ob + 2]!++;
     }
 
     // zero-pressure samples at the start (until pressure first leaves zero) and at the end
@@ -276,8 +298,8 @@ export async function reduceLog(
         for (let k = 0; k < nZ; k++) {
           const v = slotVals[k]!;
           if (v === v) {
-            initZero[2 * k] += v;
-            initZero[2 * k + 1]++;
+            initZero[2 * k]! += v;
+            initZero[2 * k + 1]!++;
           }
         }
       if (tailN === 0) tailStart = t;
@@ -285,8 +307,8 @@ export async function reduceLog(
       for (let k = 0; k < nZ; k++) {
         const v = slotVals[k]!;
         if (v === v) {
-          tailZero[2 * k] += v;
-          tailZero[2 * k + 1]++;
+          tailZero[2 * k]! += v;
+          tailZero[2 * k + 1]!++;
         }
       }
     } else {
@@ -301,48 +323,32 @@ export async function reduceLog(
     for (let s = 0; s < nS; s++) {
       const v = slotVals[s]!;
       if (v === v) {
-        blockSum[s] += v;
-        blockCnt[s]++;
+        blockSum[s]! += v;
+        blockCnt[s]!++;
       }
     }
-    blockSum[nS] += p;
-    blockCnt[nS]++;
-    if (++blockRows === BLOCK_ROWS) {
-      for (let s = 0; s <= nS; s++) {
-        if (blockCnt[s]! > 0) {
-          const m = blockSum[s]! / blockCnt[s]!;
-          if (m < bmMin[s]!) bmMin[s] = m;
-          if (m > bmMax[s]!) bmMax[s] = m;
-        }
-        blockSum[s] = 0;
-        blockCnt[s] = 0;
-      }
-      blockRows = 0;
-    }
+    blockSum[nS]! += p;
+    blockCnt[nS]!++;
+    if (++blockRows === BLOCK_ROWS) foldBlock();
     if (levels.size < 64) levels.add(Math.round(p / bandAbs));
 
     seriesVals[0] = p;
-    for (let c = 0; c < nCh; c++) seriesVals[1 + c] = ch[c]!;
-    series!.add(t, seriesVals);
+    seriesVals.set(ch, 1);
+    series.add(t, seriesVals);
   });
   reader.onProgress = options.onProgress;
 
   const segs = toSegments(sources);
   if (segs.length === 0) throw new InputError('no-data', 'no log given');
-  for (let i = 0; i < segs.length; i++) await reader.readSource(segs[i]!, i);
-  // flush the partial block of the smoothed extremes
-  if (blockRows > 0)
-    for (let s = 0; s <= nS; s++)
-      if (blockCnt[s]! > 0) {
-        const m = blockSum[s]! / blockCnt[s]!;
-        if (m < bmMin[s]!) bmMin[s] = m;
-        if (m > bmMax[s]!) bmMax[s] = m;
-      }
+  for (const [i, seg] of segs.entries()) await reader.readSource(seg, i);
+  if (blockRows > 0) foldBlock(); // the last, partial block
 
   const read = reader.summary();
   warnings.push(...read.warnings);
-  const firstSeg = read.segments[0]!;
-  if (read.rows === 0 || usedRows === 0 || !detector)
+  // readSource throws unless it finds a header, so every segment read has one
+  const [firstSeg] = read.segments;
+  if (!firstSeg) throw new Error('the reader finished without a header line');
+  if (read.rows === 0 || usedRows === 0)
     throw new InputError(
       'no-data',
       `the log has a header (line ${firstSeg.headerLine}) but no data rows with a pressure value`,
@@ -367,14 +373,14 @@ export async function reduceLog(
     );
 
   // holds and branches
-  const det = detector as HoldDetector;
-  const { holds: cHolds, peakIndex } = classifyHolds(det.finish(), bandAbs, zeroBand);
+  const { holds: cHolds, peakIndex } = classifyHolds(detector.finish(), bandAbs, zeroBand);
+  const peakHold = cHolds[peakIndex]; // undefined when there is no hold (peakIndex −1)
   const loadingHolds = cHolds.filter((h) => h.index <= peakIndex);
   const holdLevels = distinctLevels(
     loadingHolds.map((h) => h.pressure),
     bandAbs,
   );
-  const usedHolds = holdLevels >= 3;
+  const usedHolds = holdLevels >= 3 && peakHold !== undefined; // three levels imply a highest hold
   if (!usedHolds) {
     const sampleLevels = levels.size;
     if (sampleLevels < 3)
@@ -390,8 +396,9 @@ export async function reduceLog(
     );
   }
 
+  const peakBlockPressure = bmMax[nS] ?? -Infinity; // −Infinity: no block mean yet
   const peakPressure =
-    bmMax[nS]! > -Infinity ? Math.max(bmMax[nS]!, usedHolds ? cHolds[peakIndex]!.pressure : -Infinity) : maxP;
+    peakBlockPressure > -Infinity ? Math.max(peakBlockPressure, usedHolds ? peakHold.pressure : -Infinity) : maxP;
   const lastHold = cHolds[cHolds.length - 1];
   const returnHold = usedHolds && lastHold?.branch === 'return' ? lastHold : null;
   const tailOk = tailN >= hs.minSamples && maxP > zeroBand && peakPressure > zeroBand;
@@ -410,19 +417,23 @@ export async function reduceLog(
 
   // zero reading per slot (grids and raw channels)
   const zeroHold = usedHolds ? cHolds.find((h) => h.branch === 'zero' && h.index < peakIndex) : undefined;
-  const zero = new Float64Array(nZ);
+  const zero = new Float64Array(nZ); // stays 0 (not zeroed) where zeroKnown is 0
   const zeroKnown = new Uint8Array(nZ);
   let zeroFromSamples = 0;
   for (let k = 0; k < nZ; k++) {
-    if (zeroHold && zeroHold.slotCount[k]! > 0) {
-      zero[k] = zeroHold.slotSum[k]! / zeroHold.slotCount[k]!;
+    const fromHold = zeroHold ? meanOf(zeroHold.slotSum[k], zeroHold.slotCount[k]) : null;
+    const fromSamples = meanOf(initZero[2 * k], initZero[2 * k + 1]);
+    if (fromHold !== null) {
+      zero[k] = fromHold;
       zeroKnown[k] = 1;
-    } else if (initZero[2 * k + 1]! > 0) {
-      zero[k] = initZero[2 * k]! / initZero[2 * k + 1]!;
+    } else if (fromSamples !== null) {
+      zero[k] = fromSamples;
       zeroKnown[k] = 1;
       if (k < nS) zeroFromSamples++;
     }
   }
+  /** zero reading of slot k; 0 (not zeroed) when the log gave none */
+  const zeroOf = (k: number) => zero[k] ?? 0;
   if (usedHolds && !zeroHold)
     warnings.push(
       zeroFromSamples
@@ -441,8 +452,10 @@ export async function reduceLog(
     branch: h.branch,
     samples: h.samples,
   }));
-  const holdMean = (h: ClassifiedHold, s: number) =>
-    h.slotCount[s]! > 0 ? h.slotSum[s]! / h.slotCount[s]! - zero[s]! : null;
+  const holdMean = (h: ClassifiedHold, s: number) => {
+    const m = meanOf(h.slotSum[s], h.slotCount[s]);
+    return m === null ? null : m - zeroOf(s);
+  };
   const tol = plan.tolerances;
 
   // per grid: fits, derived values
@@ -458,7 +471,10 @@ export async function reduceLog(
     holdStrains: (number | null)[];
     saturatedAt: number | null;
   }
+  // peak pressure for the hysteresis window: the highest hold, or the peak of the samples
+  const branchPeak = usedHolds ? peakHold.pressure : peakPressure;
   const interim: Interim[] = slots.map((slot, s) => {
+    const z = zeroOf(s);
     const holdStrains = cHolds.map((h) => holdMean(h, s));
     let load: LineFit | null, unload: LineFit | null, intercept: number | null;
     let peak = 0;
@@ -490,29 +506,34 @@ export async function reduceLog(
     } else {
       const o = s * SUMS_STRIDE;
       load = fitFromSums(loadSums, o);
-      unload = postSums[o]! >= 3 ? fitFromSums(postSums, o) : null;
-      const shift = (origin[s]! === origin[s]! ? origin[s]! : 0) - zero[s]!;
+      const post = fitFromSums(postSums, o);
+      unload = post && post.n >= 3 ? post : null;
+      const y0 = origin[s] ?? NaN; // NaN: the slot never had a reading
+      const shift = (y0 === y0 ? y0 : 0) - z;
       intercept = load ? load.intercept + shift : null;
       if (unload) unload = { ...unload, intercept: unload.intercept + shift };
       const binPts = (bins: Float64Array): Pt[] => {
         const pts: Pt[] = [];
         for (let b = 0; b < N_BINS; b++) {
           const ob = s * binStride + b * 3;
-          const n = bins[ob + 2]!;
-          if (n > 0) pts.push({ p: bins[ob]! / n, e: bins[ob + 1]! / n - zero[s]! });
+          const p = meanOf(bins[ob], bins[ob + 2]),
+            e = meanOf(bins[ob + 1], bins[ob + 2]);
+          if (p !== null && e !== null) pts.push({ p, e: e - z });
         }
         return pts;
       };
       loadingPts = binPts(loadBins);
       unloadingPts = binPts(postBins);
-      const hi = bmMax[s]! - zero[s]!,
-        lo = bmMin[s]! - zero[s]!;
+      // ±Infinity, the starting values: no block mean (and no peak) for this slot
+      const hi = (bmMax[s] ?? -Infinity) - z,
+        lo = (bmMin[s] ?? Infinity) - z;
       if (Number.isFinite(hi) && Number.isFinite(lo)) peak = Math.abs(hi) >= Math.abs(lo) ? hi : lo;
     }
-    if (zeroShift === null && tailOk && tailZero[2 * s + 1]! > 0 && zeroKnown[s])
-      zeroShift = tailZero[2 * s]! / tailZero[2 * s + 1]! - zero[s]!;
-    const pk = usedHolds ? cHolds[peakIndex]!.pressure : peakPressure;
-    const hGap = hysteresisGap(loadingPts, unloadingPts, pk);
+    if (zeroShift === null && tailOk && zeroKnown[s]) {
+      const tail = meanOf(tailZero[2 * s], tailZero[2 * s + 1]);
+      if (tail !== null) zeroShift = tail - z;
+    }
+    const hGap = hysteresisGap(loadingPts, unloadingPts, branchPeak);
     const hysteresis = hGap !== null && peak !== 0 ? hGap / Math.abs(peak) : null;
     const points: GaugeResult['points'] = [
       ...loadingPts.map((x) => ({ pressure: x.p, strain: x.e, branch: 'loading' as const })),
@@ -539,15 +560,13 @@ export async function reduceLog(
   const m = predicted[plan.model];
   const rosettes: RosetteResult[] = [];
   const rosetteYield = new Map<string, number>();
-  plan.gauges.forEach((g, gi) => {
+  plan.gauges.forEach((g) => {
     if (g.kind === 'uniaxial') return;
-    const its = interim.filter((x) => x.slot.gaugeIndex === gi);
-    const sl = its.map((x) => x.load?.slope ?? null);
-    if (sl.some((x) => x === null)) {
+    const [a, b, c] = interim.filter((x) => x.slot.gauge === g).map((x) => x.load?.slope ?? null);
+    if (a == null || b == null || c == null) {
       warnings.push(`rosette ${g.id}: a grid has no slope, no principal strains`);
       return;
     }
-    const [a, b, c] = sl as [number, number, number];
     const pr = g.kind === 'rosette-rectangular' ? principalRectangular(a, b, c) : principalDelta(a, b, c);
     const [s1, s2] = planeStress(pr.e1 * 1e-6 * tp, pr.e2 * 1e-6 * tp, E, nu);
     const vm = vonMisesPlane(s1, s2);
@@ -571,20 +590,21 @@ export async function reduceLog(
   // flags and outcomes
   const lengthUnit = planLengthUnit(plan.units);
   const pUnit = planPressureUnit(plan.units);
-  const gaugesOut: GaugeResult[] = interim.map((it) => {
+  const gaugesOut: GaugeResult[] = interim.map((it, s) => {
     const { slot, load } = it;
     const grid = slot.grid;
-    const g = plan.gauges[slot.gaugeIndex]!;
+    const g = slot.gauge;
     const flags: FlagCode[] = [];
     const notes = [...slot.notes];
     const measured = load ? load.slope : null;
     const predictedSlope = grid.predictedSlope;
     const ratio = measured !== null && predictedSlope !== 0 ? measured / predictedSlope : null;
     const dead = Math.abs(it.peak) < tol.noResponseMicrostrain || measured === null;
-    if (grid.edgeZone) {
+    // edgeZone implies a known distance (predictForPlan); the test spells that out for the type
+    if (grid.edgeZone && grid.distanceToDiscontinuity !== null) {
       flags.push('edge-zone');
       notes.push(
-        `${fmt(grid.distanceToDiscontinuity!, 4)} ${lengthUnit} from the nearest discontinuity (${grid.distanceTo}), inside the edge zone 2.5·√(r t) = ${fmt(predicted.edgeZoneDistance, 4)} ${lengthUnit}: membrane prediction not valid; reported, not compared`,
+        `${fmt(grid.distanceToDiscontinuity, 4)} ${lengthUnit} from the nearest discontinuity (${grid.distanceTo}), inside the edge zone 2.5·√(r t) = ${fmt(predicted.edgeZoneDistance, 4)} ${lengthUnit}: membrane prediction not valid; reported, not compared`,
       );
     } else if (grid.distanceToDiscontinuity === null && g.axialPosition === undefined)
       notes.push('distance to the nearest discontinuity not given: assumed outside the edge zone');
@@ -627,7 +647,7 @@ export async function reduceLog(
           : `von Mises stress from the rosette at test pressure is ${fmt(yieldShare * 100)} % of yield`,
       );
     }
-    if (usedHolds && zeroHold === undefined && !zeroKnown[slots.indexOf(slot)])
+    if (usedHolds && zeroHold === undefined && !zeroKnown[s])
       notes.push('not zeroed: no zero-pressure reading before loading');
     const outcome = grid.edgeZone ? 'not-compared' : flags.length ? 'flagged' : 'in-band';
     const effT = measured !== null && !dead ? effectiveThickness(shell, plan.model, grid.angleDeg, measured) : null;
@@ -670,11 +690,11 @@ export async function reduceLog(
   const verdict = incomplete ? 'incomplete' : gaugesOut.some((x) => x.outcome === 'flagged') ? 'flagged' : 'conforms';
 
   // series: zeroed, gauge-factor corrected strains (no transverse correction) and pressure
-  const chScale: number[] = plan.gauges.flatMap((g) => g.channels.map(() => g.instrumentGaugeFactor / g.gaugeFactor));
-  const seriesOut = (series as SeriesBuilder | null)!.build([
-    { offset: 0, scale: 1 },
-    ...channelNames.map((_, c) => ({ offset: zeroKnown[nS + c] ? zero[nS + c]! : 0, scale: chScale[c]! })),
-  ]);
+  // one transform per raw channel, in plan order (the order of channelNames); zeroOf is 0 where unknown
+  const channelTransforms = plan.gauges
+    .flatMap((g) => g.channels.map(() => g.instrumentGaugeFactor / g.gaugeFactor))
+    .map((scale, c) => ({ offset: zeroOf(nS + c), scale }));
+  const seriesOut = series.build([{ offset: 0, scale: 1 }, ...channelTransforms]);
 
   const result: ReductionResult = {
     engineVersion: ENGINE_VERSION,

@@ -3,6 +3,13 @@
 import { InputError } from './errors';
 import type { Series } from './types';
 
+/** The array under key `name`, created empty on first use (two channels of one name share it). */
+function column(record: Record<string, number[]>, name: string): number[] {
+  return (record[name] ??= []);
+}
+
+const IDENTITY = { offset: 0, scale: 1 };
+
 export class SeriesBuilder {
   private readonly nC: number;
   private readonly maxB: number;
@@ -27,6 +34,7 @@ export class SeriesBuilder {
     this.w = initialWidth;
   }
 
+  /** `values` holds one value per channel (at least as many as the channel names). */
   add(t: number, values: ArrayLike<number>): void {
     if (this.t0 !== this.t0) this.t0 = t;
     let idx = Math.floor((t - this.t0) / this.w);
@@ -39,12 +47,13 @@ export class SeriesBuilder {
     const base = idx * nC;
     const mn = this.min,
       mx = this.max;
+    // hot: idx < maxB, so base + k lies inside min and max (maxB × nC values each)
     for (let k = 0; k < nC; k++) {
       const v = values[k]!;
       if (v < mn[base + k]!) mn[base + k] = v;
       if (v > mx[base + k]!) mx[base + k] = v;
     }
-    this.count[idx]++;
+    this.count[idx]!++;
     if (idx + 1 > this.used) this.used = idx + 1;
   }
 
@@ -53,6 +62,7 @@ export class SeriesBuilder {
       half = this.maxB / 2;
     const mn = this.min,
       mx = this.max;
+    // buckets 2i and 2i + 1 < maxB fold into bucket i
     for (let i = 0; i < half; i++) {
       const a = 2 * i * nC,
         b = (2 * i + 1) * nC,
@@ -73,23 +83,24 @@ export class SeriesBuilder {
   /** The series; `transform[k]` (offset, scale) is applied to channel k (used to zero and correct strains). */
   build(transform?: { offset: number; scale: number }[]): Series {
     const out: Series = { t: [], min: {}, max: {}, channels: [...this.channels], timeIsIndex: this.timeIsIndex };
-    for (const c of this.channels) {
-      out.min[c] = [];
-      out.max[c] = [];
-    }
+    const columns = this.channels.map((c, k) => ({
+      min: column(out.min, c),
+      max: column(out.max, c),
+      tr: transform?.[k] ?? IDENTITY,
+    }));
     for (let i = 0; i < this.used; i++) {
       if (this.count[i] === 0) continue;
       out.t.push(this.t0 + i * this.w);
-      this.channels.forEach((c, k) => {
-        const tr = transform?.[k] ?? { offset: 0, scale: 1 };
-        let lo = this.min[i * this.nC + k]!,
-          hi = this.max[i * this.nC + k]!;
+      for (const [k, { min, max, tr }] of columns.entries()) {
+        // i < used ≤ maxB and k < nC; a value outside the arrays would read as an empty bucket
+        let lo = this.min[i * this.nC + k] ?? Infinity,
+          hi = this.max[i * this.nC + k] ?? -Infinity;
         if (lo === Infinity) lo = hi = NaN; // channel missing in this bucket (JSON: null)
         const a = (lo - tr.offset) * tr.scale,
           b = (hi - tr.offset) * tr.scale;
-        out.min[c]!.push(Math.min(a, b));
-        out.max[c]!.push(Math.max(a, b));
-      });
+        min.push(Math.min(a, b));
+        max.push(Math.max(a, b));
+      }
     }
     return out;
   }
@@ -100,38 +111,41 @@ export function decimateSeries(series: Series, opts: { from?: number; to?: numbe
   const points = Math.floor(opts.points);
   if (!(points >= 1))
     throw new InputError('invalid-series-request', 'points: must be a whole number of at least 1', { path: 'points' });
-  const n = series.t.length;
-  const from = opts.from ?? (n ? series.t[0]! : 0);
-  const to = opts.to ?? (n ? series.t[n - 1]! : 0);
+  // an empty series has no span: [0, 0] unless the request names one
+  const from = opts.from ?? series.t[0] ?? 0;
+  const to = opts.to ?? series.t.at(-1) ?? 0;
   if (!(to >= from)) throw new InputError('invalid-series-request', 'to: must not be before from', { path: 'to' });
   const out: Series = { t: [], min: {}, max: {}, channels: [...series.channels], timeIsIndex: series.timeIsIndex };
-  for (const c of series.channels) {
-    out.min[c] = [];
-    out.max[c] = [];
-  }
+  // a channel the stored series lacks reads as missing (NaN) in every bucket
+  const columns = series.channels.map((c) => ({
+    fromMin: series.min[c],
+    fromMax: series.max[c],
+    min: column(out.min, c),
+    max: column(out.max, c),
+  }));
   const width = (to - from) / points;
   let current = -1;
-  for (let i = 0; i < n; i++) {
-    const t = series.t[i]!;
+  for (const [i, t] of series.t.entries()) {
     if (t < from || t > to) continue;
     const j = width > 0 ? Math.min(points - 1, Math.floor((t - from) / width)) : 0;
     if (j !== current) {
       current = j;
       out.t.push(t);
-      for (const c of series.channels) {
-        out.min[c]!.push(series.min[c]?.[i] ?? NaN);
-        out.max[c]!.push(series.max[c]?.[i] ?? NaN);
+      for (const { fromMin, fromMax, min, max } of columns) {
+        min.push(fromMin?.[i] ?? NaN);
+        max.push(fromMax?.[i] ?? NaN);
       }
       continue;
     }
     const last = out.t.length - 1;
-    for (const c of series.channels) {
-      const lo = series.min[c]?.[i] ?? NaN,
-        hi = series.max[c]?.[i] ?? NaN;
-      const mn = out.min[c]!,
-        mx = out.max[c]!;
-      if (lo === lo && (mn[last]! !== mn[last]! || lo < mn[last]!)) mn[last] = lo;
-      if (hi === hi && (mx[last]! !== mx[last]! || hi > mx[last]!)) mx[last] = hi;
+    for (const { fromMin, fromMax, min, max } of columns) {
+      const lo = fromMin?.[i] ?? NaN,
+        hi = fromMax?.[i] ?? NaN;
+      // NaN: no value in the bucket yet
+      const curLo = min[last] ?? NaN,
+        curHi = max[last] ?? NaN;
+      if (lo === lo && (curLo !== curLo || lo < curLo)) min[last] = lo;
+      if (hi === hi && (curHi !== curHi || hi > curHi)) max[last] = hi;
     }
   }
   return out;

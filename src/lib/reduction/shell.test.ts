@@ -153,7 +153,7 @@ describe('edge zone and distance to discontinuities (DESIGN 3.3, 4.1)', () => {
     ],
   ])('%s', (_n, g, d, to) => {
     const r = distanceToNearestDiscontinuity(plan, g)!;
-    expect(r.distance).toBeCloseTo(d as number, 6);
+    expect(r.distance).toBeCloseTo(d, 6);
     expect(r.to).toBe(to);
   });
   it('predictForPlan marks grids in the edge zone and uses the plan distance first', () => {

@@ -304,11 +304,12 @@ export function predictForPlan(plan: Plan): { predicted: PredictedBlock; gauges:
         predicted.membrane.hoopStrainPerPressure,
         angleDeg,
       );
-      const rosette = g.kind !== 'uniaxial';
+      // a rosette's grids are A, B, C in the order of its angles; a uniaxial gauge has none
+      const grid = g.kind === 'uniaxial' ? null : (GRID_NAMES[k] ?? null);
       gauges.push({
-        id: rosette ? `${g.id}/${GRID_NAMES[k]}` : g.id,
+        id: grid ? `${g.id}/${grid}` : g.id,
         gaugeId: g.id,
-        grid: rosette ? GRID_NAMES[k]! : null,
+        grid,
         channel: g.channels[k] ?? '',
         angleDeg,
         predictedSlope: plan.model === 'lame' ? lame : membrane,

@@ -54,12 +54,12 @@ describe('NIST StRD Norris — certified values (REFERENCES.md)', () => {
     const y0 = ys[0]!;
     xs.forEach((x, i) => {
       const y = ys[i]! - y0;
-      sums[0]++;
-      sums[1] += x;
-      sums[2] += y;
-      sums[3] += x * x;
-      sums[4] += x * y;
-      sums[5] += y * y;
+      sums[0]!++;
+      sums[1]! += x;
+      sums[2]! += y;
+      sums[3]! += x * x;
+      sums[4]! += x * y;
+      sums[5]! += y * y;
     });
     const f = fitFromSums(sums, 0)!;
     expect(f.slope).toBeCloseTo(fit.slope, 9);

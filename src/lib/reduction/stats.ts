@@ -50,6 +50,7 @@ export function fitFromMoments(
 
 /** Ordinary least squares y = intercept + slope·x (two-pass, centred). Null with fewer than 2 distinct x. */
 export function fitLine(xs: readonly number[], ys: readonly number[]): LineFit | null {
+  // i < n, the length of the shorter array, in every loop below
   const n = Math.min(xs.length, ys.length);
   if (n < 2) return null;
   let mx = 0,
@@ -78,12 +79,14 @@ export function fitThroughOrigin(
   xs: readonly number[],
   ys: readonly number[],
 ): { slope: number; slopeSE: number | null; residualSD: number | null } | null {
+  // i < n, the length of the shorter array, in every loop below
   const n = Math.min(xs.length, ys.length);
   let sxx = 0,
     sxy = 0;
   for (let i = 0; i < n; i++) {
-    sxx += xs[i]! * xs[i]!;
-    sxy += xs[i]! * ys[i]!;
+    const x = xs[i]!;
+    sxx += x * x;
+    sxy += x * ys[i]!;
   }
   if (n < 1 || !(sxx > 0)) return null;
   const slope = sxy / sxx;
@@ -102,32 +105,36 @@ export function fitThroughOrigin(
 export const SUMS_STRIDE = 6;
 
 export function fitFromSums(sums: Float64Array, offset: number): LineFit | null {
-  const n = sums[offset]!;
+  // a window past the end of the sums holds no samples
+  const [n = 0, sx = 0, sy = 0, sumXX = 0, sumXY = 0, sumYY = 0] = sums.subarray(offset, offset + SUMS_STRIDE);
   if (n < 2) return null;
-  const sx = sums[offset + 1]!,
-    sy = sums[offset + 2]!;
   const mx = sx / n,
     my = sy / n;
-  const sxx = sums[offset + 3]! - sx * mx;
-  const sxy = sums[offset + 4]! - sx * my;
-  const syy = Math.max(0, sums[offset + 5]! - sy * my);
+  const sxx = sumXX - sx * mx;
+  const sxy = sumXY - sx * my;
+  const syy = Math.max(0, sumYY - sy * my);
   return fitFromMoments(n, mx, my, sxx, sxy, syy);
 }
 
-/** Linear interpolation in points sorted by x; null outside their range. */
+/** Linear interpolation in points sorted by x (ys[i] belongs to xs[i]); null outside their range. */
 export function interpolateSorted(xs: readonly number[], ys: readonly number[], x: number): number | null {
-  const n = xs.length;
-  if (n === 0 || x < xs[0]! || x > xs[n - 1]!) return null;
-  if (n === 1) return ys[0]!;
+  const first = xs[0],
+    last = xs.at(-1);
+  if (first === undefined || last === undefined || x < first || x > last) return null;
+  if (xs.length === 1) return ys[0] ?? null;
   let lo = 0,
-    hi = n - 1;
+    hi = xs.length - 1;
+  // bisection keeps lo < hi inside xs, so xs[mid] exists
   while (hi - lo > 1) {
     const mid = (lo + hi) >> 1;
     if (xs[mid]! <= x) lo = mid;
     else hi = mid;
   }
-  const x0 = xs[lo]!,
-    x1 = xs[hi]!;
-  if (x1 === x0) return (ys[lo]! + ys[hi]!) / 2;
-  return ys[lo]! + ((ys[hi]! - ys[lo]!) * (x - x0)) / (x1 - x0);
+  const x0 = xs[lo],
+    x1 = xs[hi],
+    y0 = ys[lo],
+    y1 = ys[hi];
+  if (x0 === undefined || x1 === undefined || y0 === undefined || y1 === undefined) return null; // ys shorter than xs
+  if (x1 === x0) return (y0 + y1) / 2;
+  return y0 + ((y1 - y0) * (x - x0)) / (x1 - x0);
 }

@@ -49,20 +49,22 @@ export function sniffBytes(head: Uint8Array): { encoding: Encoding; bomLength: n
 function trimIncompleteUtf8(buf: Uint8Array, len: number): number {
   let i = len;
   let back = 0;
-  while (i > 0 && back < 4 && (buf[i - 1]! & 0xc0) === 0x80) {
+  // step back over continuation bytes (10xxxxxx) at the end
+  while (back < 4) {
+    const c = buf[i - 1]; // undefined before the start of buf
+    if (c === undefined || (c & 0xc0) !== 0x80) break;
     i--;
     back++;
   }
-  if (i > 0 && buf[i - 1]! >= 0xc0) return i - 1;
-  return len;
+  const lead = buf[i - 1];
+  return lead !== undefined && lead >= 0xc0 ? i - 1 : len;
 }
 
 /** Throw not-delimited-text when a byte range holds NUL or many control characters. */
 export function assertTextBytes(buf: Uint8Array, from: number, to: number, firstLine: number): void {
   let ctrl = 0;
   let line = firstLine;
-  for (let i = from; i < to; i++) {
-    const c = buf[i]!;
+  for (const c of buf.subarray(from, to)) {
     if (c === 10) line++;
     else if (c === 0)
       throw new InputError('not-delimited-text', `the log is not delimited text (binary data at line ${line})`, {
@@ -105,7 +107,7 @@ export function assertTextString(text: string): void {
 export function splitCells(line: string, delimiter: Delimiter): string[] {
   if (line.indexOf('"') < 0) return line.split(delimiter);
   const r = Papa.parse<string[]>(line, { delimiter, header: false, skipEmptyLines: false });
-  return (r.data[0] as string[] | undefined) ?? [''];
+  return r.data[0] ?? [''];
 }
 
 const UNIT_SUFFIX = /^(.*?)\s*\[([^\]]*)\]\s*$/;
@@ -113,9 +115,9 @@ const UNIT_SUFFIX = /^(.*?)\s*\[([^\]]*)\]\s*$/;
 /** `P [MPa]` → { base: 'P', unit: 'MPa' }; `SG1` → { base: 'SG1', unit: null }. */
 export function splitUnit(name: string): { base: string; unit: string | null } {
   const s = cleanCell(name);
-  const m = UNIT_SUFFIX.exec(s);
-  if (!m) return { base: s, unit: null };
-  return { base: m[1]!.trim(), unit: m[2]!.trim() };
+  const [, base, unit] = UNIT_SUFFIX.exec(s) ?? [];
+  if (base === undefined || unit === undefined) return { base: s, unit: null };
+  return { base: base.trim(), unit: unit.trim() };
 }
 
 export function cleanCell(cell: string): string {
@@ -162,13 +164,14 @@ export function mapColumns(plan: Plan, cells: readonly string[]): MappedColumns 
     const hits = findColumn(cells, name);
     if (hits.length === 0) missing.push(name);
     else if (hits.length > 1) duplicate.push(name);
-    return hits.length >= 1 ? hits[0]! : -1;
+    return hits[0] ?? -1;
   };
   const pressure = one(plan.columns.pressure);
   const time = plan.columns.time ? one(plan.columns.time) : -1;
   const channelNames = planChannels(plan);
   const channels = channelNames.map(one);
-  const pressureUnit = pressure >= 0 ? splitUnit(cells[pressure]!).unit : null;
+  const pressureCell = cells[pressure]; // undefined when the pressure column is missing (-1)
+  const pressureUnit = pressureCell !== undefined ? splitUnit(pressureCell).unit : null;
   return { time, pressure, channels, channelNames, missing, duplicate, pressureUnit };
 }
 
@@ -190,8 +193,7 @@ export function findHeaderLine(
 ): { strong: HeaderFound | null; weak: HeaderFound | null } {
   const others = [plan.columns.time, ...planChannels(plan)].filter((x): x is string => !!x);
   let weak: HeaderFound | null = null;
-  for (let i = 0; i < lines.length; i++) {
-    const line = lines[i]!;
+  for (const [i, line] of lines.entries()) {
     if (!line.trim()) continue;
     let best: { d: Delimiter; cells: string[]; score: number } | null = null;
     for (const d of DELIMITERS) {
@@ -243,7 +245,9 @@ export function parseIsoMillis(cell: string): number {
   const m = ISO_RE.exec(cell.trim().replace(/^"|"$/g, ''));
   if (!m) return NaN;
   const [, y, mo, d, h, mi, s, frac, zone] = m;
-  let ms = Date.UTC(+y!, +mo! - 1, +d!, +h!, +mi!, s ? +s : 0);
+  // year to minute are required groups: set whenever the pattern matched
+  if (y === undefined || mo === undefined || d === undefined || h === undefined || mi === undefined) return NaN;
+  let ms = Date.UTC(+y, +mo - 1, +d, +h, +mi, s ? +s : 0);
   if (frac) ms += Number('0.' + frac) * 1000;
   if (zone && zone !== 'Z') {
     const sign = zone[0] === '-' ? -1 : 1;

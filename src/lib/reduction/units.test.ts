@@ -27,6 +27,9 @@ describe('units — NIST SP 811 appendix B.8 [read] (REFERENCES.md)', () => {
     ['psig', 'psi'],
     ['kPa', 'kPa'],
     ['V', null],
+    // names that an object literal inherits are no units either
+    ['constructor', null],
+    ['__proto__', null],
   ])('bracket unit %s → %s', (raw, want) => expect(normalizePressureUnit(raw)).toBe(want));
   it.each([
     ['bar', 'MPa', 0.1],

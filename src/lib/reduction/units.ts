@@ -32,30 +32,32 @@ export function planLengthUnit(units: PlanUnits): 'mm' | 'in' {
   return units === 'US' ? 'in' : 'mm';
 }
 
-/** Pressure units accepted in brackets after a log's pressure column, in pascal. */
-const PRESSURE_UNIT_PA: Record<string, number> = {
-  pa: 1,
-  kpa: 1e3,
-  mpa: 1e6,
-  mbar: 1e2,
-  bar: 1e5,
-  psi: PSI_IN_PA,
-  ksi: PSI_IN_PA * 1000,
-};
+/**
+ * Pressure units accepted in brackets after a log's pressure column: lower-case spelling → canonical
+ * name and value in pascal. A Map, so a header's `[constructor]` is no unit rather than an Object key.
+ */
+const PRESSURE_UNITS = new Map<string, { name: string; pa: number }>([
+  ['pa', { name: 'Pa', pa: 1 }],
+  ['kpa', { name: 'kPa', pa: 1e3 }],
+  ['mpa', { name: 'MPa', pa: 1e6 }],
+  ['mbar', { name: 'mbar', pa: 1e2 }],
+  ['bar', { name: 'bar', pa: 1e5 }],
+  ['psi', { name: 'psi', pa: PSI_IN_PA }],
+  ['ksi', { name: 'ksi', pa: PSI_IN_PA * 1000 }],
+]);
 
 /** Canonical spelling of a bracketed pressure unit (`bar(g)`, `psig`, `MPA` → `bar`, `psi`, `MPa`), or null. */
 export function normalizePressureUnit(raw: string): string | null {
   let u = raw.trim().toLowerCase().replace(/\s+/g, '');
   u = u.replace(/\((g|gauge|a|abs)\)$/, '').replace(/(gauge|abs)$/, '');
-  if (!(u in PRESSURE_UNIT_PA) && /g$/.test(u) && u.slice(0, -1) in PRESSURE_UNIT_PA) u = u.slice(0, -1);
-  if (!(u in PRESSURE_UNIT_PA)) return null;
-  return { pa: 'Pa', kpa: 'kPa', mpa: 'MPa', mbar: 'mbar', bar: 'bar', psi: 'psi', ksi: 'ksi' }[u]!;
+  if (!PRESSURE_UNITS.has(u) && /g$/.test(u) && PRESSURE_UNITS.has(u.slice(0, -1))) u = u.slice(0, -1);
+  return PRESSURE_UNITS.get(u)?.name ?? null;
 }
 
 /** Factor that turns a value in `from` (a canonical unit from normalizePressureUnit) into `to`. */
 export function pressureFactor(from: string, to: string): number {
-  const f = PRESSURE_UNIT_PA[from.toLowerCase()];
-  const t = PRESSURE_UNIT_PA[to.toLowerCase()];
+  const f = PRESSURE_UNITS.get(from.toLowerCase())?.pa;
+  const t = PRESSURE_UNITS.get(to.toLowerCase())?.pa;
   if (f === undefined || t === undefined) throw new Error(`unknown pressure unit ${from} or ${to}`);
   return f / t;
 }

@@ -108,25 +108,34 @@ export function pressureProfile(opts: SyntheticOptions): {
     return { at: (t) => (t <= half ? t / half : Math.max(0, 2 - t / half)), duration: 2 * half, peakEnd: half };
   }
   const levels = opts.levels ?? [0, 0.25, 0.5, 0.75, 1, 0.75, 0.5, 0.25, 0];
-  const starts: number[] = [];
+  const [firstLevel] = levels;
+  if (firstLevel === undefined) throw new RangeError('pressureProfile: levels must name at least one level');
+  // each level: a hold from `start`, then a ramp to `next` (none after the last level)
+  const steps: { start: number; level: number; next: number | null }[] = [];
   let t = 0;
-  levels.forEach((_, i) => {
-    starts.push(t);
-    t += hold + (i < levels.length - 1 ? ramp : 0);
+  let peakEnd = 0;
+  let peakLevel = -Infinity;
+  levels.forEach((level, i) => {
+    const next = levels[i + 1] ?? null;
+    steps.push({ start: t, level, next });
+    if (level > peakLevel) {
+      peakLevel = level; // the first of equal highest levels
+      peakEnd = t + hold;
+    }
+    t += hold + (next !== null ? ramp : 0);
   });
-  const peakI = levels.indexOf(Math.max(...levels));
+  const latestFirst = [...steps].reverse();
   return {
     duration: t,
-    peakEnd: starts[peakI]! + hold,
+    peakEnd,
     at: (x) => {
-      for (let i = levels.length - 1; i >= 0; i--) {
-        if (x >= starts[i]!) {
-          const into = x - starts[i]!;
-          if (into <= hold || i === levels.length - 1) return levels[i]!;
-          return levels[i]! + ((levels[i + 1]! - levels[i]!) * (into - hold)) / ramp;
-        }
+      for (const { start, level, next } of latestFirst) {
+        if (!(x >= start)) continue;
+        const into = x - start;
+        if (into <= hold || next === null) return level;
+        return level + ((next - level) * (into - hold)) / ramp;
       }
-      return levels[0]!;
+      return firstLevel; // before the first hold
     },
   };
 }
@@ -185,8 +194,12 @@ export function* syntheticLogChunks(plan: Plan, opts: SyntheticOptions = {}): Ge
   const names: string[] = [];
   for (const g of plan.gauges) {
     const b = opts.gauges?.[g.id] ?? {};
-    gridAngles(g).forEach((a, k) => {
-      names.push(g.channels[k]!);
+    const angles = gridAngles(g);
+    // one channel per grid angle (the plan checks the count against the kind)
+    g.channels.forEach((name, k) => {
+      const a = angles[k];
+      if (a === undefined) throw new RangeError(`gauge ${g.id}: channel ${name} has no grid`);
+      names.push(name);
       chans.push({
         along: strainAtAngle(field.axial, field.hoop, a),
         across: strainAtAngle(field.axial, field.hoop, a + 90),
