@@ -1,5 +1,5 @@
 // npm run db:migrate — apply migrations/ to DATABASE_URL.
-import { getConfig } from '../src/server/config';
+import { getConfig } from '../src/config.server';
 import { migrateDatabase } from '../src/db/migrate.server';
 
 try {

@@ -1,8 +1,7 @@
 // npm run db:seed — demo accounts, materials and scenario (only with DEMO on).
 import { closeDb, getDb } from '../src/db/client.server';
-import { seedDemo } from '../src/db/seed.server';
-import { seedDemoScenario } from '../src/server/demo-seed.server';
-import { getConfig } from '../src/server/config';
+import { seedDemoAccounts, seedDemoScenario } from '../src/server/demo-seed.server';
+import { getConfig } from '../src/config.server';
 
 const config = getConfig();
 if (!config.DEMO) {
@@ -12,7 +11,7 @@ if (!config.DEMO) {
   process.exit(0);
 }
 try {
-  const r = await seedDemo(getDb(), config.DEMO_PASSWORD);
+  const r = await seedDemoAccounts(getDb(), config.DEMO_PASSWORD);
   const scenario = await seedDemoScenario();
   console.log(
     `demo data seeded: ${r.users} accounts, ${r.materials} materials${scenario.length ? `, tests: ${scenario.join('; ')}` : ''}`,

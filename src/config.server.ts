@@ -1,5 +1,6 @@
-// The one place environment variables are read. Parsed once by zod; a malformed value stops
-// the process at start with a message naming the variable. Optional integrations resolve to null.
+// The one place environment variables are read. Parsed once by zod; a malformed value stops the
+// process at start with a message naming the variable. Optional integrations resolve to null.
+// It sits below the database layer (src/db uses it), so it imports nothing of the app's.
 import { z } from 'zod';
 
 const bool = z

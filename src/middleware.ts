@@ -5,7 +5,7 @@ import { defineMiddleware } from 'astro:middleware';
 import { AppError, errors } from './server/errors';
 import { errorResponse } from './server/http';
 import { resolveRequestUser } from './server/auth/request-user.server';
-import { getConfig } from './server/config';
+import { getConfig } from './config.server';
 
 const PUBLIC_PREFIXES = ['/signin', '/api/auth/', '/api/health', '/share/', '/api/share/', '/_astro/', '/favicon'];
 const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
@@ -32,7 +32,7 @@ export const onRequest = defineMiddleware(async (ctx, next) => {
     // behind a TLS proxy the request URL is the inner one: the public address counts too
     const origin = request.headers.get('origin');
     if (origin !== url.origin && origin !== new URL(getConfig().PUBLIC_BASE_URL).origin)
-      return errorResponse(errors.crossOrigin());
+      return errorResponse(new AppError('cross-origin'));
   }
 
   if (path.startsWith('/api/auth/') || path.startsWith('/_astro/')) return next();
@@ -49,7 +49,7 @@ export const onRequest = defineMiddleware(async (ctx, next) => {
   }
 
   if (!ctx.locals.user && !isPublic(path)) {
-    if (isApi) return errorResponse(errors.unauthenticated());
+    if (isApi) return errorResponse(new AppError('unauthenticated'));
     const back = encodeURIComponent(path + url.search);
     return ctx.redirect(`/signin?next=${back}`, 302);
   }

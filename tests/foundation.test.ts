@@ -12,7 +12,7 @@ describe('schema', () => {
   it('migrations apply to an empty database', async () => {
     const dataDir = path.join(inject('dataDir'), 'mariadb');
     runRootSql({ dataDir }, "CREATE DATABASE empty_check; GRANT ALL ON empty_check.* TO 'hoopline'@'127.0.0.1';");
-    const url = inject('env').DATABASE_URL.replace(/\/hoopline$/, '/empty_check');
+    const url = String(inject('env').DATABASE_URL).replace(/\/hoopline$/, '/empty_check');
     const { migrateDatabase } = await import('../src/db/migrate.server');
     await migrateDatabase(url);
     const tables = runRootSql(

@@ -48,8 +48,8 @@ export default async function setup(project: TestProject) {
   const { migrateDatabase } = await import('../src/db/migrate.server');
   await migrateDatabase(db.url);
   const { getDb, closeDb } = await import('../src/db/client.server');
-  const { seedDemo } = await import('../src/db/seed.server');
-  await seedDemo(getDb(), TEST_PASSWORD);
+  const { seedDemoAccounts } = await import('../src/server/demo-seed.server');
+  await seedDemoAccounts(getDb(), TEST_PASSWORD);
   await closeDb();
 
   if (process.env.HOOPLINE_SKIP_BUILD !== '1') {

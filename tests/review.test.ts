@@ -62,9 +62,12 @@ async function waitDone(id: number) {
 
 beforeAll(async () => {
   worker = startWorker(inject('env'), 'w-review');
-  [technician, engineer, qa, admin] = await Promise.all(
-    ['technician', 'engineer', 'qa', 'admin'].map((r) => signedIn(`${r}@example.com`)),
-  );
+  [technician, engineer, qa, admin] = await Promise.all([
+    signedIn('technician@example.com'),
+    signedIn('engineer@example.com'),
+    signedIn('qa@example.com'),
+    signedIn('admin@example.com'),
+  ]);
 });
 afterAll(async () => {
   await stopProcess(worker);
@@ -311,7 +314,7 @@ describe('the outbox', () => {
     await stopProcess(worker); // it drains the outbox too, to the test's own SMTP fake
     const { freePort } = await import('./global-setup');
     const { startSmtp } = await import('../fake-services/smtp.mjs');
-    const { resetConfigForTests } = await import('../src/server/config');
+    const { resetConfigForTests } = await import('../src/config.server');
     const { resetMailerForTests } = await import('../src/server/mail.server');
     const { queueMail, deliverDueMail } = await import('../src/server/outbox.server');
     const { outbox } = await import('../src/db/schema');

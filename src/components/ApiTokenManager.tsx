@@ -1,4 +1,4 @@
-import { useEffect, useState, type FormEvent } from 'react';
+import { useEffect, useState, type SubmitEvent } from 'react';
 import { api, formatDateTime } from './api';
 
 interface TokenRow {
@@ -24,7 +24,7 @@ export default function ApiTokenManager() {
     void load();
   }, []);
 
-  async function create(e: FormEvent<HTMLFormElement>) {
+  async function create(e: SubmitEvent<HTMLFormElement>) {
     e.preventDefault();
     const form = e.currentTarget;
     const name = String(new FormData(form).get('name') ?? '');

@@ -1,4 +1,4 @@
-import { useEffect, useState, type FormEvent } from 'react';
+import { useEffect, useState, type SubmitEvent } from 'react';
 import { signIn } from 'auth-astro/client';
 
 interface Props {
@@ -15,7 +15,7 @@ export default function SignInForm({ next, initialError = null }: Props) {
   const [ready, setReady] = useState(false);
   useEffect(() => setReady(true), []);
 
-  async function onSubmit(e: FormEvent<HTMLFormElement>) {
+  async function onSubmit(e: SubmitEvent<HTMLFormElement>) {
     e.preventDefault();
     const form = new FormData(e.currentTarget);
     setBusy(true);

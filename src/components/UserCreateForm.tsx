@@ -1,4 +1,4 @@
-import { useState, type FormEvent } from 'react';
+import { useState, type SubmitEvent } from 'react';
 import { api } from './api';
 
 const ROLES = ['technician', 'engineer', 'qa', 'admin'] as const;
@@ -8,7 +8,7 @@ export default function UserCreateForm({ onCreated }: { onCreated: () => void })
   const [error, setError] = useState<string | null>(null);
   const [done, setDone] = useState<string | null>(null);
 
-  async function create(e: FormEvent<HTMLFormElement>) {
+  async function create(e: SubmitEvent<HTMLFormElement>) {
     e.preventDefault();
     const form = e.currentTarget;
     const d = new FormData(form);

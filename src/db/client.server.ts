@@ -1,13 +1,12 @@
 // The one database connection pool. Server-only: islands never import this.
 import { drizzle, type MySql2Database } from 'drizzle-orm/mysql2';
 import mysql from 'mysql2/promise';
-import { getConfig } from '../server/config';
+import { getConfig } from '../config.server';
 import * as schema from './schema';
 
 export type Db = MySql2Database<typeof schema>;
 
-let pool: mysql.Pool | null = null;
-let db: Db | null = null;
+let handle: { pool: mysql.Pool; db: Db } | null = null;
 
 /** Create a pool for a URL (times stored as UTC; numbers stay numbers). */
 export function createPool(url: string): mysql.Pool {
@@ -23,23 +22,44 @@ export function createPool(url: string): mysql.Pool {
 }
 
 /** The app's Drizzle handle, created on first use from DATABASE_URL. */
-export function getDb(): Db {
-  if (!db) {
-    pool = createPool(getConfig().DATABASE_URL);
-    db = drizzle(pool, { schema, mode: 'default' });
+function open(): { pool: mysql.Pool; db: Db } {
+  if (!handle) {
+    const pool = createPool(getConfig().DATABASE_URL);
+    handle = { pool, db: drizzle(pool, { schema, mode: 'default' }) };
   }
-  return db;
+  return handle;
+}
+
+export function getDb(): Db {
+  return open().db;
 }
 
 /** The raw pool (health checks, FOR UPDATE SKIP LOCKED claims). */
 export function getPool(): mysql.Pool {
-  getDb();
-  return pool!;
+  return open().pool;
 }
 
 /** Close the pool (worker shutdown, tests). */
 export async function closeDb(): Promise<void> {
-  if (pool) await pool.end();
-  pool = null;
-  db = null;
+  const h = handle;
+  handle = null;
+  if (h) await h.pool.end();
+}
+
+/** Whether MariaDB answers a trivial query within `timeoutMs` (health checks). */
+export async function databaseAnswers(timeoutMs = 2000): Promise<boolean> {
+  let timer: NodeJS.Timeout | undefined;
+  try {
+    await Promise.race([
+      getPool().query('SELECT 1'),
+      new Promise((_, reject) => {
+        timer = setTimeout(() => reject(new Error('timeout')), timeoutMs);
+      }),
+    ]);
+    return true;
+  } catch {
+    return false;
+  } finally {
+    clearTimeout(timer);
+  }
 }

@@ -11,7 +11,7 @@ import {
   updateVessel,
 } from '../db/queries/vessels';
 import { auditBy } from './audit.server';
-import { errors } from './errors';
+import { AppError, errors } from './errors';
 import type { RequestUser } from './http';
 
 export const materialBody = z.object({
@@ -67,7 +67,7 @@ export async function editMaterial(user: RequestUser, id: number, patch: Partial
 export async function createVessel(user: RequestUser, body: z.infer<typeof vesselBody>) {
   const db = getDb();
   if (await findVesselByTag(db, body.tag))
-    throw errors.conflict('tag-taken', `A vessel tagged '${body.tag}' exists already.`);
+    throw new AppError('tag-taken', `A vessel tagged '${body.tag}' exists already.`);
   if (body.materialId && !(await findMaterial(db, body.materialId)))
     throw errors.invalid('materialId: no material with that id');
   const id = await insertVessel(db, {
@@ -93,7 +93,7 @@ export async function editVessel(user: RequestUser, id: number, patch: Record<st
   if (merged.data.tag !== before.tag) {
     const other = await findVesselByTag(db, merged.data.tag);
     if (other && other.id !== id)
-      throw errors.conflict('tag-taken', `A vessel tagged '${merged.data.tag}' exists already.`);
+      throw new AppError('tag-taken', `A vessel tagged '${merged.data.tag}' exists already.`);
   }
   await updateVessel(db, id, {
     ...merged.data,

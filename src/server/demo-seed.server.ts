@@ -1,21 +1,65 @@
-// The demo scenario (invented): air receiver AR-102 of the Larchmere pilot plant, hydrotested
-// at 1.95 MPa (1.3 × MAWP 1.5 MPa). One test is logged and queued for reduction — the worker
-// reduces it on start — with one axial gauge reading 12 % low (a poor bond) and one hoop gauge
-// beside the nozzle (edge zone); a second test is still in planning.
-import { eq } from 'drizzle-orm';
-import { getDb } from '../db/client.server';
+// The one demo seed (DEMO=true only): one account per role, generic materials, an invented
+// vessel, and the invented scenario — air receiver AR-102 of the Larchmere pilot plant,
+// hydrotested at 1.95 MPa (1.3 × MAWP 1.5 MPa). One test is logged and queued for reduction (the
+// worker reduces it on start) with one axial gauge reading 12 % low (a poor bond) and one hoop
+// gauge beside the nozzle (edge zone); a second test is still in planning.
+// Idempotent: accounts are put back to their demo role and password; other rows are created once.
+import { getDb, type Db } from '../db/client.server';
 import { insertLog } from '../db/queries/logs';
 import { queueReduction } from '../db/queries/reductions';
-import { insertNote, replaceGauges, updateTest } from '../db/queries/tests';
-import { findUserByEmail } from '../db/queries/users';
-import { tests, vessels } from '../db/schema';
-import { demoVessel } from '../db/seed.server';
+import { findTestByName, insertNote, insertTest, replaceGauges, updateTest } from '../db/queries/tests';
+import { createUser, findUserByEmail, resetUser } from '../db/queries/users';
+import { findMaterialByName, findVesselByTag, insertMaterial, insertVessel } from '../db/queries/vessels';
+import type { Role } from '../lib/roles';
+import { hashPassword } from './auth/passwords.server';
+import { createHash } from 'node:crypto';
 import { inspectLogHead, parsePlan, type PlanInput } from '../lib/reduction';
 import { syntheticLog } from '../lib/reduction/testing/synthetic-log';
-import { createHash } from 'node:crypto';
 import { audit } from './audit.server';
 import { gaugeRows } from './plans.server';
 import { putObject } from './storage.server';
+
+export const demoAccounts: { email: string; name: string; role: Role }[] = [
+  { email: 'technician@example.com', name: 'Tomas Reyes (demo)', role: 'technician' },
+  { email: 'engineer@example.com', name: 'Imke Sorensen (demo)', role: 'engineer' },
+  { email: 'qa@example.com', name: 'Quentin Abara (demo)', role: 'qa' },
+  { email: 'admin@example.com', name: 'Ada Mwangi (demo)', role: 'admin' },
+];
+
+/** Generic room-temperature properties; code tables vary by edition and temperature. */
+export const genericMaterials = [
+  { name: 'Carbon steel, generic', elasticModulusMPa: 203_000, poissonRatio: 0.3, yieldStrengthMPa: 260 },
+  { name: 'Austenitic stainless, generic', elasticModulusMPa: 195_000, poissonRatio: 0.31, yieldStrengthMPa: 205 },
+  { name: 'Aluminium 6061-T6', elasticModulusMPa: 68_900, poissonRatio: 0.33, yieldStrengthMPa: 240 },
+];
+
+export const demoVessel = {
+  tag: 'LM-AR-102',
+  name: 'Air receiver AR-102, Larchmere pilot plant (invented demo)',
+  shape: 'cylinder' as const,
+  ends: 'closed' as const,
+  insideDiameterMm: 1200,
+  wallThicknessMm: 12,
+  lengthMm: 4200,
+  features: [{ kind: 'nozzle', axialPosition: 2100, clockDeg: 0, size: 150 }],
+};
+
+/** The demo accounts (with `password`), the generic materials and the demo vessel. */
+export async function seedDemoAccounts(db: Db, password: string): Promise<{ users: number; materials: number }> {
+  const passwordHash = await hashPassword(password);
+  for (const a of demoAccounts) {
+    const existing = await findUserByEmail(db, a.email);
+    if (existing) await resetUser(db, existing.id, { role: a.role, passwordHash });
+    else await createUser(db, { ...a, passwordHash });
+  }
+  let steelId: number | null = null;
+  for (const m of genericMaterials) {
+    const id = (await findMaterialByName(db, m.name))?.id ?? (await insertMaterial(db, m));
+    if (m.name.startsWith('Carbon')) steelId = id;
+  }
+  if (!(await findVesselByTag(db, demoVessel.tag))) await insertVessel(db, { ...demoVessel, materialId: steelId });
+  return { users: demoAccounts.length, materials: genericMaterials.length };
+}
 
 export const demoPlan: PlanInput & { remarks?: string } = {
   units: 'SI',
@@ -63,17 +107,19 @@ export async function seedDemoScenario(): Promise<string[]> {
   const done: string[] = [];
   const engineer = await findUserByEmail(db, 'engineer@example.com');
   const technician = await findUserByEmail(db, 'technician@example.com');
-  const vessel = await db.query.vessels.findFirst({ where: eq(vessels.tag, demoVessel.tag) });
+  const vessel = await findVesselByTag(db, demoVessel.tag);
   if (!engineer || !technician || !vessel) return done;
   const plan = parsePlan(demoPlan);
   const rows = gaugeRows(plan);
 
-  if (!(await db.query.tests.findFirst({ where: eq(tests.name, LOGGED) }))) {
-    const [row] = await db
-      .insert(tests)
-      .values({ name: LOGGED, vesselId: vessel.id, plan: demoPlan, ownerId: engineer.id, status: 'logging' })
-      .$returningId();
-    const testId = row!.id;
+  if (!(await findTestByName(db, LOGGED))) {
+    const testId = await insertTest(db, {
+      name: LOGGED,
+      vesselId: vessel.id,
+      plan: demoPlan,
+      ownerId: engineer.id,
+      status: 'logging',
+    });
     await replaceGauges(db, testId, rows);
     const csv = syntheticLog(plan, {
       rateHz: 2,
@@ -96,7 +142,7 @@ export async function seedDemoScenario(): Promise<string[]> {
       sizeBytes: Buffer.byteLength(csv),
       rows: lines.length - info.headerLine,
       timeStart: 0,
-      timeEnd: Number(lines.at(-1)!.split(',')[0]),
+      timeEnd: Number(lines.at(-1)?.split(',')[0] ?? 0),
       columnMap: {
         delimiter: info.delimiter,
         decimalComma: info.decimalComma,
@@ -131,18 +177,9 @@ export async function seedDemoScenario(): Promise<string[]> {
     });
     done.push(LOGGED);
   }
-  if (!(await db.query.tests.findFirst({ where: eq(tests.name, PLANNED) }))) {
-    const [row] = await db
-      .insert(tests)
-      .values({
-        name: PLANNED,
-        vesselId: vessel.id,
-        plan: { ...demoPlan, testPressure: 1.95 },
-        ownerId: engineer.id,
-        status: 'draft',
-      })
-      .$returningId();
-    await replaceGauges(db, row!.id, rows);
+  if (!(await findTestByName(db, PLANNED))) {
+    const testId = await insertTest(db, { name: PLANNED, vesselId: vessel.id, plan: demoPlan, ownerId: engineer.id });
+    await replaceGauges(db, testId, rows);
     done.push(PLANNED);
   }
   return done;

@@ -1,48 +1,110 @@
 // The catalogue of errors a user can cause. Each has a permanent code, an HTTP status and a
-// message that says what happened and what to do. Anything else is an internal fault (500).
+// default message that says what happened and what to do; a call site may give a more specific
+// message and details. Anything else is an internal fault (500, logged). The engine's own input
+// errors (src/lib/reduction/errors.ts) keep their codes and map to 422 in `fromInputError`.
+import { isInputError, type InputErrorCode } from '../lib/reduction/errors';
+import { rolesFor, type Permission } from '../lib/roles';
+
+type ErrorStatus = 400 | 401 | 403 | 404 | 405 | 409 | 410 | 413 | 422 | 429 | 500 | 503;
+
+export const errorCatalogue = {
+  'invalid-request': { status: 400, message: 'The request is not valid.' },
+  unauthenticated: { status: 401, message: 'Sign in, or send Authorization: Bearer <API token>.' },
+  'invalid-token': {
+    status: 401,
+    message: 'The API token is unknown or has been revoked. Create a new one on your account page.',
+  },
+  forbidden: { status: 403, message: 'Your role may not do this. Ask an administrator if you should.' },
+  'cross-origin': {
+    status: 403,
+    message: 'Cross-site requests are refused. Submit the form from Hoopline itself, or use an API token.',
+  },
+  'own-review': {
+    status: 403,
+    message: 'You signed the engineering review of this test; another person must release it.',
+  },
+  'not-found': { status: 404, message: 'Nothing with that id.' },
+  'method-not-allowed': { status: 405, message: 'This address is read-only.' },
+  'test-released': { status: 409, message: 'This test is released and locked; nothing about it can change.' },
+  'no-result': { status: 409, message: 'There is no finished reduction yet. Upload a log and run a reduction first.' },
+  'no-logs': { status: 409, message: 'Upload a log before starting a reduction.' },
+  'not-reduced': {
+    status: 409,
+    message: 'The newest logs have not been reduced yet: run a reduction that covers every log, then review.',
+  },
+  incomplete: {
+    status: 409,
+    message: 'The log has not reached test pressure and come back to zero; a partial record cannot be reviewed.',
+  },
+  'open-flags': { status: 409, message: 'Disposition every flagged gauge first.' },
+  'already-reviewed': { status: 409, message: 'This reduction has been reviewed already.' },
+  'not-reviewed': {
+    status: 409,
+    message: 'Only a reviewed test can be released; the engineering review is not signed.',
+  },
+  'already-revoked': { status: 409, message: 'This link was revoked already.' },
+  'tag-taken': { status: 409, message: 'A vessel with that tag exists already.' },
+  'email-taken': { status: 409, message: 'An account with that e-mail exists already.' },
+  'own-role': {
+    status: 409,
+    message: 'You cannot take the admin role from your own account; ask another administrator.',
+  },
+  'link-gone': { status: 410, message: 'This link has expired or been revoked. Ask the QA manager for a new one.' },
+  'too-large': { status: 413, message: 'The request is larger than the limit.' },
+  'invalid-plan': { status: 422, message: 'The test plan is not valid.' },
+  'unknown-gauge': { status: 422, message: 'The current reduction has no gauge with that id.' },
+  'empty-file': { status: 422, message: 'The file is empty.' },
+  unavailable: {
+    status: 503,
+    message: 'A service Hoopline needs is not answering; nothing was changed. Try again shortly.',
+  },
+  internal: { status: 500, message: 'Something went wrong on the server; it has been logged.' },
+} as const satisfies Record<string, { status: ErrorStatus; message: string }>;
+
+export type ErrorCode = keyof typeof errorCatalogue;
 
 export class AppError extends Error {
-  constructor(
-    readonly status: 400 | 401 | 403 | 404 | 405 | 409 | 410 | 413 | 422 | 429 | 503,
-    readonly code: string,
-    message: string,
-    readonly details?: unknown,
-  ) {
-    super(message);
+  readonly status: ErrorStatus;
+  readonly code: ErrorCode | InputErrorCode;
+  readonly details?: unknown;
+
+  /**
+   * An error from the catalogue; `message` replaces the default with a more specific one. The
+   * engine's input-error codes (a bad plan or log) are accepted too and always answer 422.
+   */
+  constructor(code: ErrorCode | InputErrorCode, message?: string, details?: unknown) {
+    const entry: { status: ErrorStatus; message: string } | undefined =
+      code in errorCatalogue ? errorCatalogue[code as ErrorCode] : undefined;
+    super(message ?? entry?.message ?? 'The plan or the log is not valid.');
     this.name = 'AppError';
+    this.status = entry?.status ?? 422;
+    this.code = code;
+    this.details = details;
   }
 }
 
+/**
+ * The one place that maps known error kinds to an AppError: AppErrors themselves, and the
+ * engine's input errors as 422 with the engine's code, message and details. Null otherwise.
+ */
+export function toAppError(err: unknown): AppError | null {
+  if (err instanceof AppError) return err;
+  if (isInputError(err)) return new AppError(err.code, err.message, err.details);
+  return null;
+}
+
+/** Shorthands for the errors whose message is built from a value. */
 export const errors = {
-  unauthenticated: () => new AppError(401, 'unauthenticated', 'Sign in, or send Authorization: Bearer <API token>.'),
-  badToken: () =>
+  forbidden: (permission: Permission) =>
     new AppError(
-      401,
-      'invalid-token',
-      'The API token is unknown or has been revoked. Create a new one on your account page.',
-    ),
-  forbidden: (need: readonly string[]) =>
-    new AppError(
-      403,
       'forbidden',
-      `This needs the role ${need.join(' or ')}. Ask an administrator if you should have it.`,
+      `This needs the role ${rolesFor(permission).join(' or ')}. Ask an administrator if you should have it.`,
     ),
-  crossOrigin: () =>
-    new AppError(
-      403,
-      'cross-origin',
-      'Cross-site requests are refused. Submit the form from Hoopline itself, or use an API token.',
-    ),
-  notFound: (what: string) => new AppError(404, 'not-found', `No ${what} with that id.`),
-  methodNotAllowed: () => new AppError(405, 'method-not-allowed', 'This address is read-only.'),
-  released: () => new AppError(409, 'test-released', 'This test is released and locked; nothing about it can change.'),
-  conflict: (code: string, message: string, details?: unknown) => new AppError(409, code, message, details),
-  gone: (message: string) => new AppError(410, 'link-gone', message),
-  tooLarge: (limit: number) =>
-    new AppError(413, 'too-large', `The file is larger than the limit of ${Math.round(limit / 1024 / 1024)} MB.`, {
-      limitBytes: limit,
+  notFound: (what: string) => new AppError('not-found', `No ${what} with that id.`),
+  tooLarge: (limitBytes: number) =>
+    new AppError('too-large', `The file is larger than the limit of ${Math.round(limitBytes / 1024 / 1024)} MB.`, {
+      limitBytes,
     }),
-  invalid: (message: string, details?: unknown) => new AppError(400, 'invalid-request', message, details),
-  unprocessable: (code: string, message: string, details?: unknown) => new AppError(422, code, message, details),
-  unavailable: (message: string) => new AppError(503, 'unavailable', message),
+  invalid: (message: string, details?: unknown) => new AppError('invalid-request', message, details),
+  unavailable: (message?: string) => new AppError('unavailable', message),
 };

@@ -2,13 +2,13 @@
 import type { ReportInput } from './reports/report-input';
 import { renderSummaryCsv } from './reports/csv';
 import { renderReportPdf } from './reports/pdf';
-import { errors } from './errors';
+import { AppError } from './errors';
 import type { TestRecord } from './record.server';
 
 /** The renderers' input for a record with a finished reduction (409 without one). */
 export function buildReportInput(r: TestRecord, now = new Date()): ReportInput {
   if (!r.result || !r.reduction || !r.plan)
-    throw errors.conflict('no-result', 'There is nothing to export yet: the test has no finished reduction.');
+    throw new AppError('no-result', 'There is nothing to export yet: the test has no finished reduction.');
   const plan = r.plan;
   const dispositions: ReportInput['dispositions'] = {};
   const ids = new Set(r.result.gauges.map((g) => g.id));

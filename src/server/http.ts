@@ -1,8 +1,8 @@
 // Small helpers every endpoint uses: JSON responses, the error shape, role checks, body parsing.
 import type { APIContext } from 'astro';
 import { z } from 'zod';
-import type { Role } from '../db/schema/users';
-import { AppError, errors } from './errors';
+import { can, type Permission, type Role } from '../lib/roles';
+import { AppError, errors, toAppError } from './errors';
 
 export interface RequestUser {
   id: number;
@@ -26,26 +26,19 @@ export function errorResponse(err: AppError): Response {
 /** The signed-in user, or 401. */
 export function requireUser(ctx: Pick<APIContext, 'locals'>): RequestUser {
   const user = ctx.locals.user;
-  if (!user) throw errors.unauthenticated();
+  if (!user) throw new AppError('unauthenticated');
   return user;
 }
 
 /**
- * The signed-in user if their role is one of `allowed`, else 401/403. Roles nest as in
- * DESIGN 1: an engineer may do what a technician may; qa and admin see everything.
+ * The signed-in user if their role holds `permission` (src/lib/roles.ts, DESIGN 1), else 401/403.
+ * Every endpoint calls this itself; the UI hiding a button is not security.
  */
-export function requireRole(ctx: Pick<APIContext, 'locals'>, ...allowed: Role[]): RequestUser {
+export function requirePermission(ctx: Pick<APIContext, 'locals'>, permission: Permission): RequestUser {
   const user = requireUser(ctx);
-  if (!allowed.includes(user.role)) throw errors.forbidden(allowed);
+  if (!can(user.role, permission)) throw errors.forbidden(permission);
   return user;
 }
-
-export const roleSets = {
-  anyone: ['technician', 'engineer', 'qa', 'admin'] as Role[],
-  technicianPlus: ['technician', 'engineer', 'admin'] as Role[],
-  engineer: ['engineer', 'admin'] as Role[],
-  qa: ['qa', 'admin'] as Role[],
-};
 
 /** Parse a JSON body with a zod schema; 400 naming the fields when it does not fit. */
 export async function readJson<T extends z.ZodType>(request: Request, schema: T): Promise<z.infer<T>> {
@@ -65,7 +58,7 @@ export function zodToAppError(error: z.ZodError, status: 400 | 422 = 400): AppEr
   const issues = error.issues.map((i) => ({ path: i.path.join('.'), message: i.message }));
   const first = issues[0];
   const message = first ? `${first.path || 'body'}: ${first.message}` : 'The request is not valid.';
-  return new AppError(status, status === 400 ? 'invalid-request' : 'invalid-plan', message, { issues });
+  return new AppError(status === 400 ? 'invalid-request' : 'invalid-plan', message, { issues });
 }
 
 /** Parse a numeric route parameter; 404 when it is not a positive integer. */
@@ -86,27 +79,13 @@ export function endpoint(handler: Handler): Handler {
       const mapped = mapError(err);
       if (mapped) return errorResponse(mapped);
       console.error(`[${new Date().toISOString()}] ${ctx.request.method} ${ctx.url.pathname} failed:`, err);
-      return json(
-        {
-          error: {
-            code: 'internal',
-            message: 'Something went wrong on the server; it has been logged.',
-            details: null,
-          },
-        },
-        500,
-      );
+      return errorResponse(new AppError('internal'));
     }
   };
 }
 
-/** Map known error kinds to an AppError; engine input errors become 422. */
+/** Map known error kinds to an AppError (zod errors from a handler are a bad request). */
 export function mapError(err: unknown): AppError | null {
-  if (err instanceof AppError) return err;
   if (err instanceof z.ZodError) return zodToAppError(err);
-  if (err && typeof err === 'object' && (err as { name?: string }).name === 'InputError') {
-    const e = err as { code?: string; message: string; details?: unknown };
-    return new AppError(422, e.code ?? 'invalid-input', e.message, e.details);
-  }
-  return null;
+  return toAppError(err);
 }

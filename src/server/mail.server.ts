@@ -1,6 +1,6 @@
 // Outgoing e-mail through nodemailer to the configured SMTP server (locally the fake).
 import nodemailer, { type Transporter } from 'nodemailer';
-import { getConfig } from './config';
+import { getConfig } from '../config.server';
 
 let transport: Transporter | null = null;
 

@@ -2,7 +2,7 @@
 import { existsSync, readdirSync, readFileSync, statSync } from 'node:fs';
 import path from 'node:path';
 import { simpleParser } from 'mailparser';
-import { getConfig } from './config';
+import { getConfig } from '../config.server';
 
 export interface ReceivedMail {
   file: string;

@@ -3,7 +3,7 @@
 // worker process on every poll) claim a due message, try it, and back off on failure.
 import { getDb } from '../db/client.server';
 import { claimMail, enqueueMail, listDueMail, markMailRetry, markMailSent } from '../db/queries/review';
-import { getConfig } from './config';
+import { getConfig } from '../config.server';
 import { sendMail } from './mail.server';
 
 const MAX_ATTEMPTS = 12;

@@ -8,13 +8,3 @@ export async function loadTestForPage(idParam: string | undefined) {
   if (!Number.isSafeInteger(id) || id <= 0) return null;
   return (await findTestWithVessel(getDb(), id)) ?? null;
 }
-
-export const canWrite = {
-  upload: (role: string) => role === 'technician' || role === 'engineer' || role === 'admin',
-  plan: (role: string) => role === 'engineer' || role === 'admin',
-  disposition: (role: string) => role === 'engineer' || role === 'admin',
-  review: (role: string) => role === 'engineer',
-  release: (role: string) => role === 'qa',
-  share: (role: string) => role === 'qa' || role === 'admin',
-  audit: (role: string) => role === 'qa' || role === 'admin',
-};

@@ -10,15 +10,9 @@ import { auditBy } from './audit.server';
 import { AppError, errors } from './errors';
 import type { RequestUser } from './http';
 
-/** Validate a plan; an invalid plan answers 422 with every problem listed by field. */
+/** Validate a plan; an invalid plan throws the engine's InputError (422, every problem listed by field). */
 export function validatePlan(raw: unknown): Plan {
-  try {
-    return parsePlan(raw);
-  } catch (err) {
-    const e = err as { name?: string; message: string; details?: unknown };
-    if (e.name === 'InputError') throw new AppError(422, 'invalid-plan', e.message, e.details);
-    throw err;
-  }
+  return parsePlan(raw);
 }
 
 /** The plan's material and vessel in SI (the database's units). */
@@ -106,7 +100,7 @@ export async function createTestFromPlan(
 export async function loadTest(id: number, forWrite = false): Promise<Test> {
   const test = await findTest(getDb(), id);
   if (!test) throw errors.notFound('test');
-  if (forWrite && test.status === 'released') throw errors.released();
+  if (forWrite && test.status === 'released') throw new AppError('test-released');
   return test;
 }
 

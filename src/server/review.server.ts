@@ -6,7 +6,8 @@ import { updateTest } from '../db/queries/tests';
 import { listUsers } from '../db/queries/users';
 import type { DispositionOutcome } from '../db/schema';
 import { auditBy } from './audit.server';
-import { getConfig } from './config';
+import { can } from '../lib/roles';
+import { getConfig } from '../config.server';
 import { AppError, errors } from './errors';
 import type { RequestUser } from './http';
 import { queueMail } from './outbox.server';
@@ -14,7 +15,7 @@ import { loadTestRecord, type TestRecord } from './record.server';
 
 function requireDoneReduction(r: TestRecord) {
   if (!r.reduction || !r.result)
-    throw errors.conflict(
+    throw new AppError(
       'no-result',
       'There is no finished reduction to review yet. Upload a log and run a reduction first.',
     );
@@ -22,7 +23,7 @@ function requireDoneReduction(r: TestRecord) {
 }
 
 function unlocked(r: TestRecord) {
-  if (r.test.status === 'released') throw errors.released();
+  if (r.test.status === 'released') throw new AppError('test-released');
 }
 
 /** Record a disposition for a gauge of the current reduction; a review signed earlier is withdrawn. */
@@ -36,7 +37,7 @@ export async function dispositionGauge(
   const { reduction } = requireDoneReduction(record);
   const rosetteIds = new Set(record.result!.rosettes.map((x) => x.id));
   if (!record.gauges.some((g) => g.id === d.gaugeId) && !rosetteIds.has(d.gaugeId))
-    throw new AppError(422, 'unknown-gauge', `The current reduction has no gauge '${d.gaugeId}'.`, {
+    throw new AppError('unknown-gauge', `The current reduction has no gauge '${d.gaugeId}'.`, {
       gaugeIds: record.gauges.map((g) => g.id),
     });
   const db = getDb();
@@ -63,24 +64,24 @@ export async function dispositionGauge(
 
 /** The engineer's review: only on a finished, complete reduction whose every flag has a disposition. */
 export async function signReview(user: RequestUser, testId: number) {
-  if (user.role !== 'engineer') throw errors.forbidden(['engineer']);
+  if (!can(user.role, 'review')) throw errors.forbidden('review');
   const record = await loadTestRecord(testId);
   unlocked(record);
   const { reduction, result } = requireDoneReduction(record);
   if (record.test.status === 'reviewed')
-    throw errors.conflict('already-reviewed', 'This reduction has been reviewed already.');
+    throw new AppError('already-reviewed', 'This reduction has been reviewed already.');
   if (record.test.status !== 'reduced')
-    throw errors.conflict(
+    throw new AppError(
       'not-reduced',
       'The newest logs have not been reduced yet: run a reduction that covers every log, then review.',
     );
   if (result.verdict === 'incomplete')
-    throw errors.conflict(
+    throw new AppError(
       'incomplete',
       'The log has not reached test pressure and come back to zero; a partial record cannot be reviewed.',
     );
   if (record.openFlags.length)
-    throw errors.conflict('open-flags', `Disposition every flagged gauge first: ${record.openFlags.join(', ')}.`, {
+    throw new AppError('open-flags', `Disposition every flagged gauge first: ${record.openFlags.join(', ')}.`, {
       gaugeIds: record.openFlags,
     });
   const statement = `Engineering review of reduction ${reduction.id} (engine ${reduction.engineVersion}), verdict ${record.verdict}.`;
@@ -95,7 +96,7 @@ export async function signReview(user: RequestUser, testId: number) {
   await updateTest(db, testId, { status: 'reviewed' });
   await auditBy(user, 'review-signed', testId, { signatureId: id, reductionId: reduction.id, verdict: record.verdict });
   const base = getConfig().PUBLIC_BASE_URL;
-  const qa = (await listUsers(db)).filter((u) => u.role === 'qa' && !u.disabled);
+  const qa = (await listUsers(db)).filter((u) => can(u.role, 'release') && !u.disabled);
   for (const q of qa)
     await queueMail(
       q.email,
@@ -108,23 +109,16 @@ export async function signReview(user: RequestUser, testId: number) {
 
 /** QA's release: locks the test. The reviewer of this reduction cannot release it. */
 export async function releaseTest(user: RequestUser, testId: number) {
-  if (user.role !== 'qa') throw errors.forbidden(['qa']);
+  if (!can(user.role, 'release')) throw errors.forbidden('release');
   const record = await loadTestRecord(testId);
   unlocked(record);
   const { reduction } = requireDoneReduction(record);
   if (record.test.status !== 'reviewed')
-    throw errors.conflict(
-      'not-reviewed',
-      'Only a reviewed test can be released; the engineering review is not signed.',
-    );
+    throw new AppError('not-reviewed', 'Only a reviewed test can be released; the engineering review is not signed.');
   const review = [...record.signatures].reverse().find((s) => s.kind === 'review' && s.reductionId === reduction.id);
-  if (!review) throw errors.conflict('not-reviewed', 'The engineering review does not cover the current reduction.');
+  if (!review) throw new AppError('not-reviewed', 'The engineering review does not cover the current reduction.');
   if (review.userId === user.id)
-    throw new AppError(
-      403,
-      'own-review',
-      'You signed the engineering review of this test; another person must release it.',
-    );
+    throw new AppError('own-review', 'You signed the engineering review of this test; another person must release it.');
   const statement = `Release of reduction ${reduction.id} reviewed by ${review.name}, verdict ${record.verdict}.`;
   const db = getDb();
   const id = await insertSignature(db, {

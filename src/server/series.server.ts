@@ -26,8 +26,8 @@ async function loadSeries(key: string): Promise<Series> {
 
 const querySchema = z
   .object({
-    from: z.coerce.number().finite().optional(),
-    to: z.coerce.number().finite().optional(),
+    from: z.coerce.number().optional(),
+    to: z.coerce.number().optional(),
     points: z.coerce.number().int().min(10).max(5000).default(1000),
     channels: z.string().optional(),
   })

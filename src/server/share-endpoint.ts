@@ -1,6 +1,6 @@
 // The inspector's link endpoints: read-only. Every method but GET answers 405.
 import type { APIContext, APIRoute } from 'astro';
-import { errors } from './errors';
+import { AppError } from './errors';
 import { endpoint } from './http';
 import { useShareLink } from './share.server';
 import type { ShareLink } from '../db/schema';
@@ -12,7 +12,7 @@ export function shareGet(
   return {
     GET: endpoint(async (ctx) => handler(await useShareLink(ctx.params.token, what), ctx)),
     ALL: endpoint(async () => {
-      throw errors.methodNotAllowed();
+      throw new AppError('method-not-allowed');
     }),
   };
 }

@@ -12,8 +12,8 @@ import {
 import type { ShareLink } from '../db/schema';
 import { audit, auditBy } from './audit.server';
 import { hashToken, newToken } from './auth/tokens.server';
-import { getConfig } from './config';
-import { errors } from './errors';
+import { getConfig } from '../config.server';
+import { AppError, errors } from './errors';
 import type { RequestUser } from './http';
 import { queueMail } from './outbox.server';
 import { loadTest } from './plans.server';
@@ -62,7 +62,7 @@ export async function revokeLink(user: RequestUser, id: number) {
   const db = getDb();
   const link = await findShareLink(db, id);
   if (!link) throw errors.notFound('share link');
-  if (!(await revokeShareLink(db, id))) throw errors.conflict('already-revoked', 'This link was revoked already.');
+  if (!(await revokeShareLink(db, id))) throw new AppError('already-revoked', 'This link was revoked already.');
   await auditBy(user, 'share-link-revoked', link.testId, { shareLinkId: id });
 }
 
@@ -72,9 +72,10 @@ export async function useShareLink(token: string | undefined, what: string): Pro
   const db = getDb();
   const link = await findShareLinkByHash(db, hashToken(token));
   if (!link) throw errors.notFound('share link');
-  if (link.revokedAt) throw errors.gone('This link has been revoked. Ask the QA manager who sent it for a new one.');
+  if (link.revokedAt)
+    throw new AppError('link-gone', 'This link has been revoked. Ask the QA manager who sent it for a new one.');
   if (link.expiresAt.getTime() <= Date.now())
-    throw errors.gone('This link has expired. Ask the QA manager who sent it for a new one.');
+    throw new AppError('link-gone', 'This link has expired. Ask the QA manager who sent it for a new one.');
   await touchShareLink(db, link.id);
   await audit({
     actor: `share link #${link.id}${link.email ? ` (${link.email})` : ''}`,

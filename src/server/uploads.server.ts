@@ -4,6 +4,7 @@
 // database until the object is complete, and a refused upload leaves no object behind.
 import busboy from 'busboy';
 import { createHash, randomUUID } from 'node:crypto';
+import type { ReadableStream as WebReadableStream } from 'node:stream/web';
 import { PassThrough, Readable, Transform, type TransformCallback } from 'node:stream';
 import { getDb } from '../db/client.server';
 import { findLogBySha, insertLog } from '../db/queries/logs';
@@ -12,7 +13,7 @@ import type { LogFile, Test } from '../db/schema';
 import { inspectLogHead } from '../lib/reduction';
 import type { Plan } from '../lib/reduction/plan';
 import { auditBy } from './audit.server';
-import { getConfig } from './config';
+import { getConfig } from '../config.server';
 import { AppError, errors } from './errors';
 import type { RequestUser } from './http';
 import { deleteObject, putObjectStream } from './storage.server';
@@ -30,7 +31,7 @@ async function openIncomingFile(request: Request): Promise<IncomingFile> {
   if (!request.body)
     throw errors.invalid('The request has no body: send the log as multipart field `file` or as a text/csv body.');
   const type = request.headers.get('content-type') ?? '';
-  const body = Readable.fromWeb(request.body as import('node:stream/web').ReadableStream);
+  const body = Readable.fromWeb(request.body as WebReadableStream);
   if (!type.toLowerCase().startsWith('multipart/form-data')) {
     const name = request.headers.get('x-filename') ?? 'log.csv';
     return { stream: body, filename: name.slice(0, 255) };
@@ -173,35 +174,28 @@ export async function receiveLogUpload(
   const headText = head.toString('utf8');
   let info: ReturnType<typeof inspectLogHead>;
   try {
-    if (head.length === 0) throw new AppError(422, 'empty-file', 'The file is empty.');
+    if (head.length === 0) throw new AppError('empty-file', 'The file is empty.');
     if (head.includes(0))
       throw new AppError(
-        422,
         'not-delimited-text',
         'The file is not delimited text (it holds binary bytes). Upload the CSV export of the data-acquisition unit.',
       );
     info = inspectLogHead(plan, headText);
     if (info.duplicateColumns.length)
       throw new AppError(
-        422,
         'duplicate-column',
         `Column ${info.duplicateColumns.map((c) => `'${c}'`).join(', ')} appears more than once in the header (line ${info.headerLine}).`,
         { line: info.headerLine, columns: info.duplicateColumns },
       );
     if (info.missingColumns.length)
       throw new AppError(
-        422,
         'missing-column',
         `The header (line ${info.headerLine}) lacks column${info.missingColumns.length > 1 ? 's' : ''} ${info.missingColumns.map((c) => `'${c}'`).join(', ')} that the plan maps. Fix the plan's column names or the log.`,
         { line: info.headerLine, missingColumns: info.missingColumns, columns: info.columns },
       );
   } catch (err) {
     stream.resume();
-    if ((err as { name?: string }).name === 'InputError') {
-      const e = err as { code: string; message: string; details?: unknown };
-      throw new AppError(422, e.code, e.message, e.details);
-    }
-    throw err;
+    throw err; // an engine InputError answers 422 through the endpoint's one mapping
   }
 
   const meter = new LogMeter(limit);

@@ -19,7 +19,7 @@ export default function NumberInput({ id, value, onValue, className, ...rest }: 
   const [text, setText] = useState(() => formatNumberForInput(value));
   useEffect(() => {
     // A new value from outside (conversion, import, "use this"): show it, unless it is what the text says.
-    if (!same(parseNumberText(text), value)) setText(formatNumberForInput(value));
+    setText((text) => (same(parseNumberText(text), value) ? text : formatNumberForInput(value)));
   }, [value]);
   const shown = formatNumberForInput(value);
   const exact = typeof value === 'number' && String(value) !== shown && text === shown ? String(value) : undefined;

@@ -58,7 +58,7 @@ export function setIn<T>(obj: T, path: PlanPath, value: unknown): T {
   const src = obj !== null && typeof obj === 'object' ? obj : typeof key === 'number' ? [] : {};
   const copy: Record<string | number, unknown> = Array.isArray(src)
     ? ([...src] as unknown as Record<number, unknown>)
-    : { ...(src as object) };
+    : { ...src };
   const next = setIn((src as Record<string | number, unknown>)[key!], rest, value);
   if (next === undefined && !Array.isArray(copy)) delete copy[key!];
   else copy[key!] = next;
@@ -108,8 +108,8 @@ export function formatNumberForInput(v: unknown): string {
 
 type Convert = (x: number) => number;
 const conversions = (to: PlanUnits) => ({
-  length: (to === 'US' ? mmToIn : inToMm) as Convert,
-  pressure: (to === 'US' ? mpaToPsi : psiToMPa) as Convert,
+  length: to === 'US' ? mmToIn : inToMm,
+  pressure: to === 'US' ? mpaToPsi : psiToMPa,
 });
 
 /** Convert a number in place (strings and absent values are left as they are). */

@@ -32,7 +32,7 @@ export default function LogUploader({ testId, onUploaded }: Props) {
       if (r.status === 201 || r.status === 200) {
         setMessage(
           r.status === 201
-            ? `Stored ${file.name}: ${r.body.rows} rows, sha256 ${String(r.body.sha256).slice(0, 12)}…`
+            ? `Stored ${file.name}: ${r.body?.rows} rows, sha256 ${String(r.body?.sha256).slice(0, 12)}…`
             : `${file.name} has the same bytes as a log already stored; nothing new was added.`,
         );
         onUploaded();

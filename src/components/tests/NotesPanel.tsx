@@ -1,4 +1,4 @@
-import { useEffect, useState, type FormEvent } from 'react';
+import { useCallback, useEffect, useState, type SubmitEvent } from 'react';
 import { api, formatDateTime } from '../api';
 
 interface Note {
@@ -20,15 +20,18 @@ const labelOf = (k: string) => KINDS.find((x) => x.value === k)?.label ?? k;
 export default function NotesPanel({ testId, canAdd }: { testId: number; canAdd: boolean }) {
   const [notes, setNotes] = useState<Note[]>([]);
   const [error, setError] = useState<string | null>(null);
-  const load = () =>
-    api<{ items: Note[] }>(`/api/tests/${testId}/notes`)
-      .then((r) => setNotes(r.items))
-      .catch((e) => setError(e.message));
+  const load = useCallback(
+    () =>
+      api<{ items: Note[] }>(`/api/tests/${testId}/notes`)
+        .then((r) => setNotes(r.items))
+        .catch((e: Error) => setError(e.message)),
+    [testId],
+  );
   useEffect(() => {
     void load();
-  }, [testId]);
+  }, [load]);
 
-  async function add(e: FormEvent<HTMLFormElement>) {
+  async function add(e: SubmitEvent<HTMLFormElement>) {
     e.preventDefault();
     const form = e.currentTarget;
     const data = new FormData(form);

@@ -1,4 +1,4 @@
-import { useEffect, useRef, useState } from 'react';
+import { useCallback, useEffect, useRef, useState } from 'react';
 import { api, formatDateTime } from '../api';
 import ProgressBar from './ProgressBar';
 import { announceTestChanged } from './TestStatusSteps';
@@ -29,21 +29,27 @@ export default function ReductionPanel({ testId, canReduce, hasLogs, refreshKey 
   const [error, setError] = useState<string | null>(null);
   const timer = useRef<number | null>(null);
 
-  const load = () =>
-    api<{ items: ReductionRow[] }>(`/api/tests/${testId}/reductions`).then((r) => {
-      setRows(r.items);
-      return r.items;
-    });
+  const load = useCallback(
+    () =>
+      api<{ items: ReductionRow[] }>(`/api/tests/${testId}/reductions`).then((r) => {
+        setRows(r.items);
+        return r.items;
+      }),
+    [testId],
+  );
 
-  async function watch(id: number) {
-    const d = await api<Detail>(`/api/reductions/${id}`);
-    setWatching(d);
-    if (d.status === 'queued' || d.status === 'running') timer.current = window.setTimeout(() => void watch(id), 700);
-    else {
-      void load();
-      announceTestChanged(testId);
-    }
-  }
+  const watch = useCallback(
+    async function poll(id: number): Promise<void> {
+      const d = await api<Detail>(`/api/reductions/${id}`);
+      setWatching(d);
+      if (d.status === 'queued' || d.status === 'running') timer.current = window.setTimeout(() => void poll(id), 700);
+      else {
+        void load();
+        announceTestChanged(testId);
+      }
+    },
+    [load, testId],
+  );
 
   useEffect(() => {
     load()
@@ -56,7 +62,7 @@ export default function ReductionPanel({ testId, canReduce, hasLogs, refreshKey 
     return () => {
       if (timer.current) window.clearTimeout(timer.current);
     };
-  }, [testId, refreshKey]);
+  }, [load, watch, refreshKey]);
 
   async function start() {
     setError(null);

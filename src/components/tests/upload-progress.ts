@@ -7,12 +7,24 @@ export interface UploadProgress {
   secondsLeft: number | null;
 }
 
-/** POST a file as multipart field `file`; resolves to {status, body}. */
+/** What the upload endpoint answers: the stored log, or the error shape (DESIGN 5). */
+export interface UploadAnswer {
+  id?: number;
+  rows?: number;
+  sha256?: string;
+  error?: {
+    code?: string;
+    message?: string;
+    details?: { missingColumns?: string[]; columns?: string[]; line?: number; column?: string | number } | null;
+  };
+}
+
+/** POST a file as multipart field `file`; resolves to {status, body} (body null when not JSON). */
 export function uploadWithProgress(
   url: string,
   file: File,
   onProgress: (p: UploadProgress) => void,
-): Promise<{ status: number; body: any }> {
+): Promise<{ status: number; body: UploadAnswer | null }> {
   return new Promise((resolve, reject) => {
     const xhr = new XMLHttpRequest();
     const started = performance.now();
@@ -29,7 +41,7 @@ export function uploadWithProgress(
         secondsLeft: rate > 0 ? (total - e.loaded) / rate : null,
       });
     };
-    xhr.onload = () => resolve({ status: xhr.status, body: xhr.response });
+    xhr.onload = () => resolve({ status: xhr.status, body: (xhr.response as UploadAnswer | null) ?? null });
     xhr.onerror = () => reject(new Error('The upload was interrupted (network error). Nothing was stored; try again.'));
     const form = new FormData();
     form.append('file', file, file.name);

@@ -1,4 +1,4 @@
-import { useEffect, useRef, useState, type FormEvent } from 'react';
+import { useEffect, useRef, useState, type SubmitEvent } from 'react';
 import type { PlanUnits } from '../../lib/reduction/browser';
 import { api } from '../api';
 import { FormNumberField, FormTextField } from './FormField';
@@ -33,7 +33,7 @@ export default function MaterialForm({ idPrefix, units, onSaved }: Props) {
   const s = stressUnit(units);
   const id = (k: string) => `${idPrefix}-${k}`;
 
-  async function submit(e: FormEvent) {
+  async function submit(e: SubmitEvent) {
     e.preventDefault();
     const r = materialFormToBody(form, units);
     if (!r.ok) {

@@ -1,4 +1,4 @@
-import { useEffect, useRef, useState, type FormEvent } from 'react';
+import { useEffect, useRef, useState, type SubmitEvent } from 'react';
 import type { PlanUnits } from '../../lib/reduction/browser';
 import { api, ApiError } from '../api';
 import { FormNumberField, FormSelectField, FormTextField } from './FormField';
@@ -49,7 +49,7 @@ export default function VesselForm({ idPrefix, units, materials, vessel, onSaved
   const set = (patch: Partial<typeof form>) => setForm((f) => ({ ...f, ...patch }));
   const id = (k: string) => `${idPrefix}-${k}`;
 
-  async function submit(e: FormEvent) {
+  async function submit(e: SubmitEvent) {
     e.preventDefault();
     const r = vesselFormToBody(form, units);
     if (!r.ok) {

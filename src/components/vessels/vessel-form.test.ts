@@ -65,7 +65,7 @@ describe('vessel form', () => {
       wallThickness: 60,
       features: [{ kind: 'nozzle', axialPosition: 'x' as const, clockDeg: 400, size: undefined }],
     };
-    const r = vesselFormToBody(f as never, 'SI');
+    const r = vesselFormToBody(f, 'SI');
     expect(r.ok).toBe(false);
     if (!r.ok) {
       expect(r.issues.tag).toBe('give the vessel a tag');

@@ -1,4 +1,4 @@
-import { useState, type FormEvent } from 'react';
+import { useState, type SubmitEvent } from 'react';
 import { api } from '../api';
 import type { RecordDisposition } from './record-types';
 
@@ -20,7 +20,7 @@ export default function DispositionForm({ testId, gaugeId, current, onSaved }: P
   const [busy, setBusy] = useState(false);
   const ids = { reason: `reason-${gaugeId}`, err: `reason-err-${gaugeId}` };
 
-  async function save(e: FormEvent<HTMLFormElement>) {
+  async function save(e: SubmitEvent<HTMLFormElement>) {
     e.preventDefault();
     const data = new FormData(e.currentTarget);
     const reason = String(data.get('reason') ?? '').trim();

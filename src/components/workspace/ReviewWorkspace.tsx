@@ -12,6 +12,7 @@ import type { FlagCode } from '../../lib/reduction/types';
 import GaugeDetail from './GaugeDetail';
 import SignOffBar from './SignOffBar';
 import type { RecordView } from './record-types';
+import { can } from '../../lib/roles';
 
 interface Props {
   initial: RecordView;
@@ -40,7 +41,7 @@ export default function ReviewWorkspace({ initial, role, userEmail, seriesUrl, r
   const dispositionOf = (id: string) =>
     record.dispositions.find((d) => d.gaugeId === id) ??
     record.dispositions.find((d) => id.startsWith(`${d.gaugeId}/`));
-  const canDisposition = !readOnly && (role === 'engineer' || role === 'admin') && record.test.status !== 'released';
+  const canDisposition = !readOnly && can(role, 'disposition') && record.test.status !== 'released';
   const lengthUnit = plan.units === 'US' ? 'in' : 'mm';
   const select = (id: string) => {
     setSelected(id);

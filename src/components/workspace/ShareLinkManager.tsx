@@ -1,4 +1,4 @@
-import { useEffect, useState, type FormEvent } from 'react';
+import { useCallback, useEffect, useState, type SubmitEvent } from 'react';
 import { api, formatDateTime } from '../api';
 
 interface LinkRow {
@@ -17,15 +17,18 @@ export default function ShareLinkManager({ testId }: { testId: number }) {
   const [rows, setRows] = useState<LinkRow[]>([]);
   const [made, setMade] = useState<{ url: string; email: string | null } | null>(null);
   const [error, setError] = useState<string | null>(null);
-  const load = () =>
-    api<{ items: LinkRow[] }>(`/api/tests/${testId}/share-links`)
-      .then((r) => setRows(r.items))
-      .catch((e) => setError(e.message));
+  const load = useCallback(
+    () =>
+      api<{ items: LinkRow[] }>(`/api/tests/${testId}/share-links`)
+        .then((r) => setRows(r.items))
+        .catch((e: Error) => setError(e.message)),
+    [testId],
+  );
   useEffect(() => {
     void load();
-  }, [testId]);
+  }, [load]);
 
-  async function create(e: FormEvent<HTMLFormElement>) {
+  async function create(e: SubmitEvent<HTMLFormElement>) {
     e.preventDefault();
     const form = e.currentTarget;
     const data = new FormData(form);

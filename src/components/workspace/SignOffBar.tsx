@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { can } from '../../lib/roles';
 import { api } from '../api';
 import { announceTestChanged } from '../tests/TestStatusSteps';
 import type { RecordView } from './record-types';
@@ -68,7 +69,7 @@ export default function SignOffBar({ record, role, userEmail, onChanged }: Props
           </p>
         )}
       </div>
-      {role === 'engineer' && status === 'reduced' && (
+      {can(role, 'review') && status === 'reduced' && (
         <button
           type="button"
           className="btn-primary"
@@ -83,7 +84,7 @@ export default function SignOffBar({ record, role, userEmail, onChanged }: Props
           Sign engineering review
         </button>
       )}
-      {role === 'qa' && status === 'reviewed' && (
+      {can(role, 'release') && status === 'reviewed' && (
         <button
           type="button"
           className="btn-primary"

@@ -1,6 +1,7 @@
 import { and, asc, eq } from 'drizzle-orm';
 import type { Db } from '../client.server';
 import { logFiles, type NewLogFile } from '../schema';
+import { insertedId } from './inserted-id';
 
 export const listLogs = (db: Db, testId: number) =>
   db.select().from(logFiles).where(eq(logFiles.testId, testId)).orderBy(asc(logFiles.id));
@@ -9,6 +10,5 @@ export const findLogBySha = (db: Db, testId: number, sha256: string) =>
   db.query.logFiles.findFirst({ where: and(eq(logFiles.testId, testId), eq(logFiles.sha256, sha256)) });
 
 export async function insertLog(db: Db, l: NewLogFile) {
-  const [row] = await db.insert(logFiles).values(l).$returningId();
-  return row!.id;
+  return insertedId(await db.insert(logFiles).values(l).$returningId());
 }

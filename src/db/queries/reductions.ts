@@ -1,21 +1,23 @@
 import { and, desc, eq, inArray, lt, or, sql } from 'drizzle-orm';
 import type { Db } from '../client.server';
 import { auditEvents, gaugeResults, logFiles, reductions, rosetteResults, tests, type Reduction } from '../schema';
+import { insertedId } from './inserted-id';
 
 export async function queueReduction(
   db: Db,
   r: { testId: number; plan: unknown; logIds: number[]; queuedBy: number | null },
 ) {
-  const [row] = await db
-    .insert(reductions)
-    .values({
-      testId: r.testId,
-      parameters: { plan: r.plan, logIds: r.logIds },
-      queuedBy: r.queuedBy,
-      status: 'queued',
-    })
-    .$returningId();
-  return row!.id;
+  return insertedId(
+    await db
+      .insert(reductions)
+      .values({
+        testId: r.testId,
+        parameters: { plan: r.plan, logIds: r.logIds },
+        queuedBy: r.queuedBy,
+        status: 'queued',
+      })
+      .$returningId(),
+  );
 }
 
 export const findReduction = (db: Db, id: number) => db.query.reductions.findFirst({ where: eq(reductions.id, id) });

@@ -1,6 +1,7 @@
 import { and, asc, desc, eq, isNull, lte, sql } from 'drizzle-orm';
 import type { Db } from '../client.server';
 import { dispositions, outbox, shareLinks, signatures, users, type DispositionOutcome } from '../schema';
+import { insertedId } from './inserted-id';
 
 export async function insertDisposition(
   db: Db,
@@ -13,8 +14,7 @@ export async function insertDisposition(
     userId: number;
   },
 ) {
-  const [row] = await db.insert(dispositions).values(d).$returningId();
-  return row!.id;
+  return insertedId(await db.insert(dispositions).values(d).$returningId());
 }
 
 /** Every disposition of a reduction, oldest first, with who made it (the latest per gauge counts). */
@@ -39,8 +39,7 @@ export async function insertSignature(
   db: Db,
   s: { testId: number; reductionId: number; kind: 'review' | 'release'; userId: number; statement: string },
 ) {
-  const [row] = await db.insert(signatures).values(s).$returningId();
-  return row!.id;
+  return insertedId(await db.insert(signatures).values(s).$returningId());
 }
 
 export const listSignatures = (db: Db, testId: number) =>
@@ -64,8 +63,7 @@ export async function insertShareLink(
   db: Db,
   l: { testId: number; tokenHash: string; email: string | null; createdBy: number; expiresAt: Date },
 ) {
-  const [row] = await db.insert(shareLinks).values(l).$returningId();
-  return row!.id;
+  return insertedId(await db.insert(shareLinks).values(l).$returningId());
 }
 
 export const findShareLinkByHash = (db: Db, tokenHash: string) =>
@@ -108,11 +106,12 @@ export async function enqueueMail(
   db: Db,
   m: { toAddress: string; subject: string; textBody: string; testId?: number | null },
 ) {
-  const [row] = await db
-    .insert(outbox)
-    .values({ ...m, testId: m.testId ?? null })
-    .$returningId();
-  return row!.id;
+  return insertedId(
+    await db
+      .insert(outbox)
+      .values({ ...m, testId: m.testId ?? null })
+      .$returningId(),
+  );
 }
 
 /** Messages due for (another) attempt, oldest first. */

@@ -1,6 +1,7 @@
 import { and, asc, count, desc, eq, inArray, type SQL } from 'drizzle-orm';
 import type { Db } from '../client.server';
 import { gauges, materials, notes, tests, users, vessels, type NewGauge, type TestStatus } from '../schema';
+import { insertedId } from './inserted-id';
 
 export interface TestFilter {
   status?: TestStatus[];
@@ -59,13 +60,19 @@ export async function findTestWithVessel(db: Db, id: number) {
   return row;
 }
 
-export async function insertTest(db: Db, t: { name: string; vesselId: number; plan: unknown; ownerId: number }) {
-  const [row] = await db
-    .insert(tests)
-    .values({ ...t, status: 'draft' })
-    .$returningId();
-  return row!.id;
+export async function insertTest(
+  db: Db,
+  t: { name: string; vesselId: number; plan: unknown; ownerId: number; status?: TestStatus },
+) {
+  return insertedId(
+    await db
+      .insert(tests)
+      .values({ status: 'draft', ...t })
+      .$returningId(),
+  );
 }
+
+export const findTestByName = (db: Db, name: string) => db.query.tests.findFirst({ where: eq(tests.name, name) });
 
 export async function updateTest(db: Db, id: number, set: Partial<typeof tests.$inferInsert>) {
   await db
@@ -89,8 +96,7 @@ export async function insertNote(
   db: Db,
   n: { testId: number; userId: number; kind: (typeof notes.$inferInsert)['kind']; body: string },
 ) {
-  const [row] = await db.insert(notes).values(n).$returningId();
-  return row!.id;
+  return insertedId(await db.insert(notes).values(n).$returningId());
 }
 
 export const listNotes = (db: Db, testId: number) =>

@@ -1,6 +1,7 @@
 import { and, asc, eq, isNull } from 'drizzle-orm';
 import type { Db } from '../client.server';
 import { apiTokens, users, type Role } from '../schema';
+import { insertedId } from './inserted-id';
 
 export function findUserByEmail(db: Db, email: string) {
   return db.query.users.findFirst({ where: eq(users.email, email.trim().toLowerCase()) });
@@ -26,11 +27,20 @@ export function listUsers(db: Db) {
 }
 
 export async function createUser(db: Db, u: { email: string; name: string; role: Role; passwordHash: string }) {
-  const [row] = await db
-    .insert(users)
-    .values({ ...u, email: u.email.trim().toLowerCase() })
-    .$returningId();
-  return row!.id;
+  return insertedId(
+    await db
+      .insert(users)
+      .values({ ...u, email: u.email.trim().toLowerCase() })
+      .$returningId(),
+  );
+}
+
+/** Put an account back to a known role, password and enabled state (the demo seed). */
+export async function resetUser(db: Db, id: number, u: { role: Role; passwordHash: string }) {
+  await db
+    .update(users)
+    .set({ ...u, disabled: false })
+    .where(eq(users.id, id));
 }
 
 export async function setUserRole(db: Db, id: number, role: Role) {
@@ -61,8 +71,7 @@ export async function touchApiToken(db: Db, tokenId: number) {
 }
 
 export async function insertApiToken(db: Db, t: { userId: number; name: string; tokenHash: string; prefix: string }) {
-  const [row] = await db.insert(apiTokens).values(t).$returningId();
-  return row!.id;
+  return insertedId(await db.insert(apiTokens).values(t).$returningId());
 }
 
 export function listApiTokens(db: Db, userId: number) {

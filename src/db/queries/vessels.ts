@@ -1,6 +1,7 @@
 import { asc, count, eq } from 'drizzle-orm';
 import type { Db } from '../client.server';
 import { materials, vessels, type NewMaterial, type NewVessel } from '../schema';
+import { insertedId } from './inserted-id';
 
 export async function listMaterials(db: Db, page: { limit: number; offset: number }) {
   const [items, [total]] = await Promise.all([
@@ -12,9 +13,11 @@ export async function listMaterials(db: Db, page: { limit: number; offset: numbe
 
 export const findMaterial = (db: Db, id: number) => db.query.materials.findFirst({ where: eq(materials.id, id) });
 
+export const findMaterialByName = (db: Db, name: string) =>
+  db.query.materials.findFirst({ where: eq(materials.name, name) });
+
 export async function insertMaterial(db: Db, m: NewMaterial) {
-  const [row] = await db.insert(materials).values(m).$returningId();
-  return row!.id;
+  return insertedId(await db.insert(materials).values(m).$returningId());
 }
 
 export async function updateMaterial(db: Db, id: number, m: Partial<NewMaterial>) {
@@ -62,8 +65,7 @@ export async function findVessel(db: Db, id: number) {
 export const findVesselByTag = (db: Db, tag: string) => db.query.vessels.findFirst({ where: eq(vessels.tag, tag) });
 
 export async function insertVessel(db: Db, v: NewVessel) {
-  const [row] = await db.insert(vessels).values(v).$returningId();
-  return row!.id;
+  return insertedId(await db.insert(vessels).values(v).$returningId());
 }
 
 export async function updateVessel(db: Db, id: number, v: Partial<NewVessel>) {

@@ -2,6 +2,8 @@ import { index, int, mysqlEnum, mysqlTable, text, varchar } from 'drizzle-orm/my
 import { at, createdAt, id, ref, json } from './columns';
 import { tests } from './tests';
 import { users } from './users';
+import { outboxStatuses } from '../../lib/domain';
+export { outboxStatuses };
 
 /** Append-only: the code has no update or delete path for this table. */
 export const auditEvents = mysqlTable(
@@ -27,8 +29,6 @@ export const auditEvents = mysqlTable(
     index('audit_action_idx').on(t.action),
   ],
 );
-
-export const outboxStatuses = ['pending', 'sent', 'failed'] as const;
 
 /** E-mail goes through this table so a mail-server outage delays a message, never loses it. */
 export const outbox = mysqlTable(

@@ -2,9 +2,10 @@ import { boolean, double, index, int, mysqlEnum, mysqlTable, text, varchar } fro
 import { at, createdAt, id, ref, json } from './columns';
 import { tests } from './tests';
 import { users } from './users';
+import { jobStatuses } from '../../lib/domain';
+export { jobStatuses };
 
-export const jobStatuses = ['queued', 'running', 'done', 'failed'] as const;
-export type JobStatus = (typeof jobStatuses)[number];
+export type { JobStatus } from '../../lib/domain';
 
 /** A reduction job and, when done, its result. Old reductions stay, marked superseded. */
 export const reductions = mysqlTable(

@@ -3,9 +3,10 @@ import { at, createdAt, id, ref } from './columns';
 import { reductions } from './reductions';
 import { tests } from './tests';
 import { users } from './users';
+import { dispositionOutcomes, signatureKinds } from '../../lib/domain';
+export { dispositionOutcomes, signatureKinds };
 
-export const dispositionOutcomes = ['accepted', 'excluded', 'retest'] as const;
-export type DispositionOutcome = (typeof dispositionOutcomes)[number];
+export type { DispositionOutcome } from '../../lib/domain';
 
 /** Every disposition is kept; the latest per gauge and reduction counts. */
 export const dispositions = mysqlTable(
@@ -28,8 +29,6 @@ export const dispositions = mysqlTable(
   },
   (t) => [index('dispositions_test_idx').on(t.testId, t.reductionId, t.gaugeId)],
 );
-
-export const signatureKinds = ['review', 'release'] as const;
 
 export const signatures = mysqlTable(
   'signatures',

@@ -2,10 +2,10 @@ import { bigint, double, index, int, mysqlEnum, mysqlTable, text, uniqueIndex, v
 import { at, createdAt, id, ref, json } from './columns';
 import { users } from './users';
 import { vessels } from './vessels';
+import { testStatuses, verdicts, gaugeKinds, noteKinds } from '../../lib/domain';
+export { testStatuses, verdicts, gaugeKinds, noteKinds };
 
-export const testStatuses = ['draft', 'logging', 'reduced', 'reviewed', 'released'] as const;
-export type TestStatus = (typeof testStatuses)[number];
-export const verdicts = ['conforms', 'flagged', 'incomplete'] as const;
+export type { TestStatus } from '../../lib/domain';
 
 export const tests = mysqlTable(
   'tests',
@@ -38,8 +38,6 @@ export const tests = mysqlTable(
   ],
 );
 
-export const gaugeKinds = ['uniaxial', 'rosette-rectangular', 'rosette-delta'] as const;
-
 /** The test plan's installation, one row per gauge, rewritten from the plan on every save. */
 export const gauges = mysqlTable(
   'gauges',
@@ -61,8 +59,6 @@ export const gauges = mysqlTable(
   },
   (t) => [uniqueIndex('gauges_test_gauge_uq').on(t.testId, t.gaugeId)],
 );
-
-export const noteKinds = ['pressure-held', 'leak-seen', 'gauge-rezeroed', 'general'] as const;
 
 export const notes = mysqlTable(
   'notes',

@@ -1,8 +1,8 @@
 import { boolean, index, mysqlEnum, mysqlTable, uniqueIndex, varchar } from 'drizzle-orm/mysql-core';
 import { at, createdAt, id, ref } from './columns';
-
-export const roles = ['technician', 'engineer', 'qa', 'admin'] as const;
-export type Role = (typeof roles)[number];
+import { roles } from '../../lib/roles';
+export { roles };
+export type { Role } from '../../lib/roles';
 
 export const users = mysqlTable(
   'users',

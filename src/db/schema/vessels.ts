@@ -1,6 +1,8 @@
 import { double, index, mysqlEnum, mysqlTable, uniqueIndex, varchar } from 'drizzle-orm/mysql-core';
 import { at, createdAt, id, ref, json } from './columns';
 import { users } from './users';
+import { shapes, endKinds } from '../../lib/domain';
+export { shapes, endKinds };
 
 /** Stored in SI (MPa); the UI converts for US customary display. */
 export const materials = mysqlTable(
@@ -15,9 +17,6 @@ export const materials = mysqlTable(
   },
   (t) => [index('materials_name_idx').on(t.name)],
 );
-
-export const shapes = ['cylinder', 'sphere'] as const;
-export const endKinds = ['closed', 'open'] as const;
 
 /** Geometry stored in SI (mm); `units` is the owner's preferred display system. */
 export const vessels = mysqlTable(

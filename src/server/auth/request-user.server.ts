@@ -4,7 +4,7 @@
 import { getSession } from 'auth-astro/server';
 import { getDb } from '../../db/client.server';
 import { findUserById, findUserByTokenHash, touchApiToken } from '../../db/queries/users';
-import { errors } from '../errors';
+import { AppError } from '../errors';
 import type { RequestUser } from '../http';
 import { hashToken } from './tokens.server';
 
@@ -14,7 +14,7 @@ export async function resolveRequestUser(request: Request): Promise<RequestUser 
   if (header && /^bearer\s+/i.test(header)) {
     const token = header.replace(/^bearer\s+/i, '').trim();
     const found = token ? await findUserByTokenHash(getDb(), hashToken(token)) : undefined;
-    if (!found) throw errors.badToken();
+    if (!found) throw new AppError('invalid-token');
     void touchApiToken(getDb(), found.tokenId).catch(() => undefined);
     const u = found.user;
     return { id: u.id, email: u.email, name: u.name, role: u.role, via: 'token' };

@@ -3,7 +3,7 @@
 import { getDb } from '../../db/client.server';
 import { findTest } from '../../db/queries/tests';
 import { findUserById } from '../../db/queries/users';
-import { getConfig } from '../config';
+import { getConfig } from '../../config.server';
 import { queueMail } from '../outbox.server';
 import type { JobHooks } from './reduction-job.server';
 

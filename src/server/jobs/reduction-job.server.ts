@@ -13,9 +13,10 @@ import {
 } from '../../db/queries/reductions';
 import { logFiles, type Reduction } from '../../db/schema';
 import { ENGINE_VERSION, parsePlan, reduceLog } from '../../lib/reduction';
+import { InputError, isInputError } from '../../lib/reduction/errors';
 import type { ReductionResult } from '../../lib/reduction/types';
 import { audit } from '../audit.server';
-import { getConfig } from '../config';
+import { getConfig } from '../../config.server';
 import { getObjectStream, putObject } from '../storage.server';
 
 class LeaseLost extends Error {}
@@ -91,11 +92,11 @@ export async function runNextReduction(workerId: string, hooks: JobHooks = {}): 
   try {
     const plan = parsePlan(job.parameters.plan);
     const logs = await logsOf(job);
-    if (!logs.length)
-      throw Object.assign(new Error('The test has no logs to reduce.'), { name: 'InputError', code: 'no-data' });
+    if (!logs.length) throw new InputError('no-data', 'The test has no logs to reduce.');
     const total = logs.reduce((s, l) => s + l.sizeBytes, 0) || 1;
     let lastBeat = Date.now();
-    let beating: Promise<void> | null = null;
+    // set inside the progress callback, so TypeScript must not narrow it to null here
+    let beating = null as Promise<void> | null;
     let lost = false;
     const onProgress = (bytesRead: number) => {
       if (lost) throw new LeaseLost();
@@ -145,7 +146,7 @@ export async function runNextReduction(workerId: string, hooks: JobHooks = {}): 
       console.warn(`[${workerId}] lost the lease on reduction ${job.id}; another worker has it`);
       return job.id;
     }
-    const isInput = (err as { name?: string }).name === 'InputError';
+    const isInput = isInputError(err);
     const message = isInput
       ? (err as Error).message
       : `Internal fault while reducing: ${(err as Error).message ?? String(err)}`;

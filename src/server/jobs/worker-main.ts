@@ -4,7 +4,7 @@
 import { hostname } from 'node:os';
 import { closeDb, getDb } from '../../db/client.server';
 import { releaseReduction } from '../../db/queries/reductions';
-import { getConfig } from '../config';
+import { getConfig } from '../../config.server';
 import { runNextReduction } from './reduction-job.server';
 import { reductionNotices } from './notices.server';
 import { deliverDueMail } from '../outbox.server';
@@ -22,8 +22,8 @@ async function stop() {
   await closeDb();
   process.exit(0);
 }
-process.on('SIGINT', stop);
-process.on('SIGTERM', stop);
+process.on('SIGINT', () => void stop());
+process.on('SIGTERM', () => void stop());
 
 console.log(
   `[${workerId}] reduction worker started (lease ${config.WORKER_LEASE_SECONDS} s, poll ${config.WORKER_POLL_MS} ms)`,

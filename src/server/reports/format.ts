@@ -182,7 +182,7 @@ export function isSignatureStale(input: ReportInput, reductionId: number): boole
 export function buildExportFilename(input: ReportInput, extension: 'csv' | 'pdf'): string {
   const slug = input.test.name
     .normalize('NFKD')
-    .replace(/[^\x00-\x7f]/g, '')
+    .replace(/[\u0080-\uffff]/g, '')
     .toLowerCase()
     .replace(/[^a-z0-9]+/g, '-')
     .replace(/^-+|-+$/g, '')

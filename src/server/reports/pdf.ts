@@ -21,7 +21,7 @@ import {
   precisionFor,
 } from './format';
 import { drawFigureLegend, drawStrainPressureFigure } from './pdf-figure';
-import { PageFlow, drawTable, type TableCell, type TableColumn } from './pdf-layout';
+import { PageFlow, drawTable, type TableCell } from './pdf-layout';
 import { COLOR, CONTENT_BOTTOM, CONTENT_WIDTH, MARGIN, OUTCOME_COLOR, PAGE, VERDICT_COLOR } from './pdf-style';
 import { drawParagraph, drawTextLine, lineHeight, measureParagraph, measureText } from './pdf-text';
 import { assertReportInputConsistent, outcomeOf, unitLabels, type ReportInput } from './report-input';

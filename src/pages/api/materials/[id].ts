@@ -2,17 +2,17 @@ import { getDb } from '../../../db/client.server';
 import { findMaterial } from '../../../db/queries/vessels';
 import { editMaterial, materialBody } from '../../../server/catalog.server';
 import { errors } from '../../../server/errors';
-import { endpoint, idParam, json, readJson, requireRole, roleSets } from '../../../server/http';
+import { endpoint, idParam, json, readJson, requirePermission } from '../../../server/http';
 
 export const GET = endpoint(async (ctx) => {
-  requireRole(ctx, ...roleSets.anyone);
+  requirePermission(ctx, 'read');
   const m = await findMaterial(getDb(), idParam(ctx.params.id, 'material'));
   if (!m) throw errors.notFound('material');
   return json(m);
 });
 
 export const PATCH = endpoint(async (ctx) => {
-  const user = requireRole(ctx, ...roleSets.engineer);
+  const user = requirePermission(ctx, 'plan');
   const id = idParam(ctx.params.id, 'material');
   const patch = await readJson(ctx.request, materialBody.partial());
   await editMaterial(user, id, patch);

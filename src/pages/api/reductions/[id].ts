@@ -1,11 +1,11 @@
 import { getDb } from '../../../db/client.server';
 import { findReduction } from '../../../db/queries/reductions';
 import { errors } from '../../../server/errors';
-import { endpoint, idParam, json, requireRole, roleSets } from '../../../server/http';
+import { endpoint, idParam, json, requirePermission } from '../../../server/http';
 
 /** GET /api/reductions/{id} — status, progress 0–1, error, and the result (DESIGN 4.2) when done. */
 export const GET = endpoint(async (ctx) => {
-  requireRole(ctx, ...roleSets.anyone);
+  requirePermission(ctx, 'read');
   const r = await findReduction(getDb(), idParam(ctx.params.id, 'reduction'));
   if (!r) throw errors.notFound('reduction');
   return json({

@@ -1,9 +1,9 @@
-import { endpoint, idParam, json, requireRole, roleSets } from '../../../server/http';
+import { endpoint, idParam, json, requirePermission } from '../../../server/http';
 import { revokeLink } from '../../../server/share.server';
 
 /** DELETE /api/share-links/{id} — qa: revoke; the link answers 410 from now on. */
 export const DELETE = endpoint(async (ctx) => {
-  const user = requireRole(ctx, ...roleSets.qa);
+  const user = requirePermission(ctx, 'share');
   const id = idParam(ctx.params.id, 'share link');
   await revokeLink(user, id);
   return json({ id, revoked: true });

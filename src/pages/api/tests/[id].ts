@@ -5,12 +5,12 @@ import { findReduction } from '../../../db/queries/reductions';
 import { findTestWithVessel, updateTest } from '../../../db/queries/tests';
 import { auditBy } from '../../../server/audit.server';
 import { errors } from '../../../server/errors';
-import { endpoint, idParam, json, readJson, requireRole, roleSets } from '../../../server/http';
+import { endpoint, idParam, json, readJson, requirePermission } from '../../../server/http';
 import { loadTest } from '../../../server/plans.server';
 
 /** GET /api/tests/{id} — the test's summary. */
 export const GET = endpoint(async (ctx) => {
-  requireRole(ctx, ...roleSets.anyone);
+  requirePermission(ctx, 'read');
   const id = idParam(ctx.params.id, 'test');
   const db = getDb();
   const row = await findTestWithVessel(db, id);
@@ -41,7 +41,7 @@ const patchBody = z.object({ name: z.string().trim().min(1).max(200) });
 
 /** PATCH /api/tests/{id} {name} — engineer; 409 once released. */
 export const PATCH = endpoint(async (ctx) => {
-  const user = requireRole(ctx, ...roleSets.engineer);
+  const user = requirePermission(ctx, 'plan');
   const id = idParam(ctx.params.id, 'test');
   const body = await readJson(ctx.request, patchBody);
   await loadTest(id, true);

@@ -1,8 +1,8 @@
 import { z } from 'zod';
 import { getDb } from '../../../db/client.server';
 import { listTests } from '../../../db/queries/tests';
-import { testStatuses } from '../../../db/schema';
-import { endpoint, json, readJson, requireRole, roleSets, zodToAppError } from '../../../server/http';
+import { testStatuses } from '../../../lib/domain';
+import { endpoint, json, readJson, requirePermission, zodToAppError } from '../../../server/http';
 import { readPage } from '../../../server/pagination';
 import { createTestFromPlan } from '../../../server/plans.server';
 
@@ -13,7 +13,7 @@ const filterSchema = z.object({
 
 /** GET /api/tests?status=logging,reduced&vesselId=&limit=&offset= — every role. */
 export const GET = endpoint(async (ctx) => {
-  requireRole(ctx, ...roleSets.anyone);
+  requirePermission(ctx, 'read');
   const s = ctx.url.searchParams;
   const f = filterSchema.safeParse({
     status: s.get('status')?.split(',').filter(Boolean),
@@ -32,7 +32,7 @@ const createBody = z.object({
 
 /** POST /api/tests {name, plan} — engineer; the plan's vessel and material are created or matched. */
 export const POST = endpoint(async (ctx) => {
-  const user = requireRole(ctx, ...roleSets.engineer);
+  const user = requirePermission(ctx, 'plan');
   const body = await readJson(ctx.request, createBody);
   const id = await createTestFromPlan(user, body.name, body.plan, body.vesselId);
   return json({ id }, 201);

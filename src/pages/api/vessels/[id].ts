@@ -3,10 +3,10 @@ import { getDb } from '../../../db/client.server';
 import { findVessel } from '../../../db/queries/vessels';
 import { editVessel } from '../../../server/catalog.server';
 import { errors } from '../../../server/errors';
-import { endpoint, idParam, json, readJson, requireRole, roleSets } from '../../../server/http';
+import { endpoint, idParam, json, readJson, requirePermission } from '../../../server/http';
 
 export const GET = endpoint(async (ctx) => {
-  requireRole(ctx, ...roleSets.anyone);
+  requirePermission(ctx, 'read');
   const v = await findVessel(getDb(), idParam(ctx.params.id, 'vessel'));
   if (!v) throw errors.notFound('vessel');
   return json(v);
@@ -14,7 +14,7 @@ export const GET = endpoint(async (ctx) => {
 
 /** PATCH /api/vessels/{id} — engineer; the merged vessel is validated as a whole. */
 export const PATCH = endpoint(async (ctx) => {
-  const user = requireRole(ctx, ...roleSets.engineer);
+  const user = requirePermission(ctx, 'plan');
   const id = idParam(ctx.params.id, 'vessel');
   const patch = await readJson(ctx.request, z.record(z.string(), z.unknown()));
   await editVessel(user, id, patch);

@@ -268,11 +268,11 @@ function buildGauge(spec: GaugeSpec, s: Scenario, lame: ModelPrediction, holds: 
     if (h.branch === 'return') return spec.zeroShift;
     const f = h.pressure / s.testPressure;
     const gap = h.branch === 'unloading' ? spec.hysteresisGap * 4 * f * (1 - f) + spec.zeroShift * (1 - f) : 0;
-    return m * h.pressure + spec.noise * pattern[i] + gap;
+    return m * h.pressure + spec.noise * (pattern[i] ?? 0) + gap;
   });
   const points: GaugeResult['points'] = holds.map((h, i) => ({
     pressure: h.pressure,
-    strain: holdStrains[i]!,
+    strain: holdStrains[i] ?? 0,
     branch: h.branch === 'zero' || h.branch === 'loading' ? 'loading' : 'unloading',
   }));
   const loading = fitLine(points.filter((p) => p.branch === 'loading'));
@@ -319,7 +319,8 @@ function buildGauge(spec: GaugeSpec, s: Scenario, lame: ModelPrediction, holds: 
 
 /** Rectangular rosette, grid A along the axis: principal strains and plane-stress stresses. */
 function buildRosette(grids: GaugeResult[], s: Scenario, lame: ModelPrediction): RosetteResult {
-  const [a, b, c] = grids.map((g) => g.measuredSlope!);
+  const [a, b, c] = grids.map((g) => g.measuredSlope ?? 0);
+  if (a === undefined || b === undefined || c === undefined) throw new Error('a rectangular rosette has three grids');
   const centre = (a + c) / 2;
   const radius = Math.SQRT1_2 * Math.hypot(a - b, b - c);
   const e1 = centre + radius;

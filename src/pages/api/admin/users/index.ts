@@ -1,15 +1,15 @@
 import { z } from 'zod';
 import { getDb } from '../../../../db/client.server';
 import { createUser, findUserByEmail, listUsers } from '../../../../db/queries/users';
-import { roles } from '../../../../db/schema';
+import { roles } from '../../../../lib/roles';
 import { auditBy } from '../../../../server/audit.server';
 import { hashPassword } from '../../../../server/auth/passwords.server';
-import { errors } from '../../../../server/errors';
-import { endpoint, json, readJson, requireRole } from '../../../../server/http';
+import { AppError } from '../../../../server/errors';
+import { endpoint, json, readJson, requirePermission } from '../../../../server/http';
 
 /** GET /api/admin/users — every account (admin). */
 export const GET = endpoint(async (ctx) => {
-  requireRole(ctx, 'admin');
+  requirePermission(ctx, 'users');
   return json({ items: await listUsers(getDb()) });
 });
 
@@ -22,11 +22,11 @@ const createBody = z.object({
 
 /** POST /api/admin/users — create an account (admin). */
 export const POST = endpoint(async (ctx) => {
-  const admin = requireRole(ctx, 'admin');
+  const admin = requirePermission(ctx, 'users');
   const body = await readJson(ctx.request, createBody);
   const db = getDb();
   if (await findUserByEmail(db, body.email))
-    throw errors.conflict('email-taken', 'An account with that e-mail exists already.');
+    throw new AppError('email-taken', 'An account with that e-mail exists already.');
   const id = await createUser(db, {
     email: body.email,
     name: body.name,

@@ -1,12 +1,12 @@
 import { z } from 'zod';
-import { dispositionOutcomes } from '../../../../db/schema';
-import { endpoint, idParam, json, readJson, requireRole, roleSets } from '../../../../server/http';
+import { dispositionOutcomes } from '../../../../lib/domain';
+import { endpoint, idParam, json, readJson, requirePermission } from '../../../../server/http';
 import { loadTestRecord, recordView } from '../../../../server/record.server';
 import { dispositionGauge } from '../../../../server/review.server';
 
 /** GET /api/tests/{id}/dispositions — every disposition of the current reduction (history). */
 export const GET = endpoint(async (ctx) => {
-  requireRole(ctx, ...roleSets.anyone);
+  requirePermission(ctx, 'read');
   const r = await loadTestRecord(idParam(ctx.params.id, 'test'));
   return json({ latest: recordView(r).dispositions, history: r.dispositionHistory });
 });
@@ -19,7 +19,7 @@ const body = z.object({
 
 /** POST /api/tests/{id}/dispositions {gaugeId, outcome, reason} — engineer. */
 export const POST = endpoint(async (ctx) => {
-  const user = requireRole(ctx, ...roleSets.engineer);
+  const user = requirePermission(ctx, 'disposition');
   const d = await readJson(ctx.request, body);
   return json(await dispositionGauge(user, idParam(ctx.params.id, 'test'), d), 201);
 });

@@ -1,9 +1,9 @@
 import { pdfResponse } from '../../../../server/exports.server';
-import { endpoint, idParam, requireRole, roleSets } from '../../../../server/http';
+import { endpoint, idParam, requirePermission } from '../../../../server/http';
 import { loadTestRecord } from '../../../../server/record.server';
 
 /** GET /api/tests/{id}/export.pdf — the report (DRAFT on every page until released). */
 export const GET = endpoint(async (ctx) => {
-  requireRole(ctx, ...roleSets.anyone);
+  requirePermission(ctx, 'read');
   return pdfResponse(await loadTestRecord(idParam(ctx.params.id, 'test')));
 });

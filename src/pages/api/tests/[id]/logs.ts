@@ -1,12 +1,12 @@
 import { getDb } from '../../../../db/client.server';
 import { listLogs } from '../../../../db/queries/logs';
-import { endpoint, idParam, json, requireRole, roleSets } from '../../../../server/http';
+import { endpoint, idParam, json, requirePermission } from '../../../../server/http';
 import { loadTest, validatePlan } from '../../../../server/plans.server';
 import { receiveLogUpload } from '../../../../server/uploads.server';
 
 /** GET /api/tests/{id}/logs — the test's logs with size, rows, time span, sha256 and header preview. */
 export const GET = endpoint(async (ctx) => {
-  requireRole(ctx, ...roleSets.anyone);
+  requirePermission(ctx, 'read');
   const id = idParam(ctx.params.id, 'test');
   await loadTest(id);
   return json({ items: await listLogs(getDb(), id) });
@@ -14,7 +14,7 @@ export const GET = endpoint(async (ctx) => {
 
 /** POST /api/tests/{id}/logs — technician+; multipart `file` or raw text/csv. 201 new, 200 same bytes again. */
 export const POST = endpoint(async (ctx) => {
-  const user = requireRole(ctx, ...roleSets.technicianPlus);
+  const user = requirePermission(ctx, 'upload');
   const test = await loadTest(idParam(ctx.params.id, 'test'), true);
   const plan = validatePlan(test.plan);
   const { log, created } = await receiveLogUpload(ctx.request, test, plan, user);

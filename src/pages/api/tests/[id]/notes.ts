@@ -1,13 +1,13 @@
 import { z } from 'zod';
 import { getDb } from '../../../../db/client.server';
 import { insertNote, listNotes } from '../../../../db/queries/tests';
-import { noteKinds } from '../../../../db/schema';
+import { noteKinds } from '../../../../lib/domain';
 import { auditBy } from '../../../../server/audit.server';
-import { endpoint, idParam, json, readJson, requireRole, roleSets } from '../../../../server/http';
+import { endpoint, idParam, json, readJson, requirePermission } from '../../../../server/http';
 import { loadTest } from '../../../../server/plans.server';
 
 export const GET = endpoint(async (ctx) => {
-  requireRole(ctx, ...roleSets.anyone);
+  requirePermission(ctx, 'read');
   const id = idParam(ctx.params.id, 'test');
   await loadTest(id);
   return json({ items: await listNotes(getDb(), id) });
@@ -20,7 +20,7 @@ const noteBody = z.object({
 
 /** POST /api/tests/{id}/notes — technician+: pressure held, leak seen, gauge re-zeroed… */
 export const POST = endpoint(async (ctx) => {
-  const user = requireRole(ctx, ...roleSets.technicianPlus);
+  const user = requirePermission(ctx, 'upload');
   const test = await loadTest(idParam(ctx.params.id, 'test'), true);
   const body = await readJson(ctx.request, noteBody);
   const id = await insertNote(getDb(), { testId: test.id, userId: user.id, ...body });

@@ -1,8 +1,8 @@
-import { endpoint, idParam, json, requireRole, roleSets } from '../../../../server/http';
+import { endpoint, idParam, json, requirePermission } from '../../../../server/http';
 import { loadTestRecord, recordView } from '../../../../server/record.server';
 
 /** GET /api/tests/{id}/record — the whole record: result with dispositions, signatures, logs. */
 export const GET = endpoint(async (ctx) => {
-  requireRole(ctx, ...roleSets.anyone);
+  requirePermission(ctx, 'read');
   return json(recordView(await loadTestRecord(idParam(ctx.params.id, 'test'))));
 });

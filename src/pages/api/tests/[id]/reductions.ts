@@ -3,13 +3,13 @@ import { listLogs } from '../../../../db/queries/logs';
 import { listReductions, queueReduction } from '../../../../db/queries/reductions';
 import { updateTest } from '../../../../db/queries/tests';
 import { auditBy } from '../../../../server/audit.server';
-import { errors } from '../../../../server/errors';
-import { endpoint, idParam, json, requireRole, roleSets } from '../../../../server/http';
+import { AppError } from '../../../../server/errors';
+import { endpoint, idParam, json, requirePermission } from '../../../../server/http';
 import { loadTest, validatePlan } from '../../../../server/plans.server';
 
 /** GET /api/tests/{id}/reductions — every reduction of the test, newest first. */
 export const GET = endpoint(async (ctx) => {
-  requireRole(ctx, ...roleSets.anyone);
+  requirePermission(ctx, 'read');
   const id = idParam(ctx.params.id, 'test');
   await loadTest(id);
   return json({ items: await listReductions(getDb(), id) });
@@ -17,12 +17,12 @@ export const GET = endpoint(async (ctx) => {
 
 /** POST /api/tests/{id}/reductions — technician+; queues a reduction of every log with the current plan. */
 export const POST = endpoint(async (ctx) => {
-  const user = requireRole(ctx, ...roleSets.technicianPlus);
+  const user = requirePermission(ctx, 'upload');
   const test = await loadTest(idParam(ctx.params.id, 'test'), true);
   validatePlan(test.plan);
   const db = getDb();
   const logs = await listLogs(db, test.id);
-  if (!logs.length) throw errors.conflict('no-logs', 'Upload a log before starting a reduction.');
+  if (!logs.length) throw new AppError('no-logs', 'Upload a log before starting a reduction.');
   const id = await queueReduction(db, {
     testId: test.id,
     plan: test.plan,
