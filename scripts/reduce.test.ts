@@ -85,7 +85,7 @@ describe('npm run reduce', () => {
     ['a log file that does not exist', () => [planPath, path.join(dir, 'missing.csv')], /missing\.csv: no such file/],
     ['no log at all', () => [planPath], /usage/],
   ])('exits 2 with one line on stderr for %s', (_name, args, message) => {
-    const r = run(...(args() as string[]));
+    const r = run(...args());
     expect(r.status).toBe(2);
     expect(r.stdout).toBe('');
     const lines = r.stderr.trimEnd().split('\n');
