@@ -58,7 +58,7 @@ export interface ModelPrediction {
   axialStress: number;
   /** at test pressure, plan length unit (positive = growth): the named changes of both models */
   dimensionChanges: DimensionChanges;
-  /** @deprecated engine 1 field: outside diameter under Lamé, mean diameter under membrane; read dimensionChanges */
+  /** kept from engine 1: the outside diameter under Lamé, the mean diameter under membrane (read dimensionChanges) */
   diameterChange: number;
   lengthChange: number;
   thicknessChange: number;
