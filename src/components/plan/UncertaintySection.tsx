@@ -25,24 +25,34 @@ export default function UncertaintySection() {
       : `${formatPercent(share, 1)} of nominal`;
   const D = UNCERTAINTY_DEFAULTS;
   const fields: { key: string; label: string; unit: string; assumed: string }[] = [
-    { key: 'wallThickness', label: 'Wall thickness', unit: len, assumed: ofNominal(t, D.wallThicknessRelative) },
-    { key: 'insideDiameter', label: 'Inside diameter', unit: len, assumed: ofNominal(d, D.insideDiameterRelative) },
+    {
+      key: 'wallThickness',
+      label: 'Uncertainty of the wall thickness',
+      unit: len,
+      assumed: ofNominal(t, D.wallThicknessRelative),
+    },
+    {
+      key: 'insideDiameter',
+      label: 'Uncertainty of the inside diameter',
+      unit: len,
+      assumed: ofNominal(d, D.insideDiameterRelative),
+    },
     {
       key: 'elasticModulus',
-      label: 'Elastic modulus',
+      label: 'Uncertainty of the elastic modulus',
       unit: 'fraction',
       assumed: `${D.elasticModulus} (${formatPercent(D.elasticModulus, 0)})`,
     },
-    { key: 'poissonRatio', label: "Poisson's ratio", unit: 'absolute', assumed: String(D.poissonRatio) },
+    { key: 'poissonRatio', label: "Uncertainty of Poisson's ratio", unit: 'absolute', assumed: String(D.poissonRatio) },
     {
       key: 'gaugeFactor',
-      label: 'Gauge factor',
+      label: 'Uncertainty of the gauge factor',
       unit: 'fraction',
       assumed: `${D.gaugeFactor} (${formatPercent(D.gaugeFactor, 1)})`,
     },
     {
       key: 'transverseSensitivity',
-      label: 'Transverse sensitivity Kt',
+      label: 'Uncertainty of Kt',
       unit: 'absolute',
       assumed: String(D.transverseSensitivity),
     },
