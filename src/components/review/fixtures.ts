@@ -5,6 +5,7 @@
 // The uncertainty budgets are the shares the engine finds for that vessel with the default inputs.
 import type { BudgetEntry, GaugeResult, Hold, ReductionResult, RosetteResult } from '../../lib/reduction/types';
 import type { ShellMapPlan } from './shell-map-layout';
+import type { Engine2GaugeFields } from '../../lib/reduction/compat';
 
 const HOLD_PRESSURES = [0, 0.851, 1.702, 2.548, 3.402, 2.551, 1.699, 0.849, 0.004];
 const HOLD_BRANCHES: Hold['branch'][] = [
@@ -28,18 +29,8 @@ export const FIXTURE_HOLDS: Hold[] = HOLD_PRESSURES.map((pressure, index) => ({
   samples: 1500,
 }));
 
-type Engine2Fields =
-  | 'predictedU95'
-  | 'uncertaintyBudget'
-  | 'bandSlope'
-  | 'bandBasis'
-  | 'transverseCorrection'
-  | 'pairedWith'
-  | 'holdCreep'
-  | 'headPressure'
-  | 'effectiveSamples';
-type GaugeRow = Omit<GaugeResult, 'points' | 'deviation' | 'notes' | Engine2Fields> &
-  Partial<Pick<GaugeResult, Engine2Fields>> & { notes?: string[] };
+type GaugeRow = Omit<GaugeResult, 'points' | 'deviation' | 'notes' | Engine2GaugeFields> &
+  Partial<Pick<GaugeResult, Engine2GaugeFields>> & { notes?: string[] };
 
 /** Default-input budget of a slope: relative contributions of each input (hoop and axial gauges differ). */
 function budgetOf(slope: number, hoopLike: boolean): { predictedU95: number; uncertaintyBudget: BudgetEntry[] } {

@@ -7,9 +7,8 @@ import { pressureFactor } from './units';
 
 type Legacy<T, K extends keyof T> = Omit<T, K> & Partial<Pick<T, K>>;
 
-/** A gauge as an engine 1 result stored it. */
-export type StoredGauge = Legacy<
-  GaugeResult,
+/** The gauge fields engine 2 added. */
+export type Engine2GaugeFields =
   | 'predictedU95'
   | 'uncertaintyBudget'
   | 'bandSlope'
@@ -18,8 +17,10 @@ export type StoredGauge = Legacy<
   | 'pairedWith'
   | 'holdCreep'
   | 'headPressure'
-  | 'effectiveSamples'
->;
+  | 'effectiveSamples';
+
+/** A gauge as an engine 1 result stored it. */
+export type StoredGauge = Legacy<GaugeResult, Engine2GaugeFields>;
 export type StoredRosette = Legacy<
   RosetteResult,
   'expectedPrincipalAngleDeg' | 'stressesPerUnitPressure' | 'vonMisesPerUnitPressure' | 'notes'

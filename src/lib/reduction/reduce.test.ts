@@ -12,15 +12,11 @@ import { fieldOf, planVessel, scenario, type Behaviour } from './testing/referen
 import { indicatedByTransverse, NU0, planeStressFromStrains, waterHeadPa } from './testing/reference/gauges';
 import { lameCylinder, strainAlong, vonMises, type Vessel } from './testing/reference/shells';
 import { effectiveCount, lag1, leastSquares } from './testing/reference/statistics';
+import { demoPlanInput } from './testing/fixtures';
 
 /** DESIGN 4.1's example vessel: ID 1800 mm, wall 16 mm, closed, E 200 GPa, ν 0.3. */
 const base: PlanInput = {
-  units: 'SI',
-  vessel: { shape: 'cylinder', ends: 'closed', insideDiameter: 1800, wallThickness: 16, length: 6000 },
-  material: { name: 'carbon steel, generic', elasticModulus: 200000, poissonRatio: 0.3, yieldStrength: 260 },
-  model: 'lame',
-  testPressure: 3.4,
-  columns: { time: 'time_s', pressure: 'P [MPa]' },
+  ...demoPlanInput,
   gauges: [
     { id: 'H1', kind: 'uniaxial', channels: ['SG1'], angleDeg: 90, distanceToDiscontinuity: 1500 },
     { id: 'A1', kind: 'uniaxial', channels: ['SG2'], angleDeg: 0, distanceToDiscontinuity: 1500 },
