@@ -1,6 +1,7 @@
 import { formatFixed, formatPercent, formatSignificant, getUnitLabels } from '../../lib/ui-format';
 import { usePlanEditor } from './plan-editor-context';
 import { describeDistance } from './plan-preview';
+import { UNCERTAINTY_LABELS } from '../../lib/reduction/browser';
 
 /** Predicted strain per unit pressure for every gauge and rosette grid, both models, as the plan stands. */
 export default function GaugePreviewTable() {
@@ -44,13 +45,16 @@ export default function GaugePreviewTable() {
               <th scope="col" className="text-right!">
                 At test pressure (µε)
               </th>
+              <th scope="col" className="text-right!">
+                U95 ({u.slope}), largest input
+              </th>
               <th scope="col">Nearest discontinuity</th>
             </tr>
           </thead>
           <tbody>
             {preview.grids.length === 0 && (
               <tr>
-                <td colSpan={8} className="text-ink-700">
+                <td colSpan={9} className="text-ink-700">
                   No complete gauge rows yet.
                 </td>
               </tr>
@@ -70,6 +74,14 @@ export default function GaugePreviewTable() {
                     : formatPercent(g.membranePredictedSlope / g.lamePredictedSlope - 1, 1, true)}
                 </td>
                 <td className="num text-right">{formatFixed(g.predictedSlope * preview.testPressure, 0)}</td>
+                <td className="num text-right">
+                  ±{formatSignificant(preview.uncertainty[g.id]?.predictedU95, 3)}
+                  {preview.uncertainty[g.id]?.dominant && (
+                    <span className="block text-xs text-ink-700">
+                      {UNCERTAINTY_LABELS[preview.uncertainty[g.id]!.dominant!.input]}
+                    </span>
+                  )}
+                </td>
                 <td className="text-xs">
                   {g.distanceToDiscontinuity === null ? (
                     'not given'

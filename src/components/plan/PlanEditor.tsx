@@ -9,6 +9,7 @@ import PlanToolbar from './PlanToolbar';
 import ShellPreviewTable from './ShellPreviewTable';
 import TestConditionsSection from './TestConditionsSection';
 import ToleranceSection from './ToleranceSection';
+import UncertaintySection from './UncertaintySection';
 import VesselSection from './VesselSection';
 import { PlanEditorContext, type PlanEditorContextValue } from './plan-editor-context';
 import { createBlankPlan, type PlanDraft } from './plan-draft';
@@ -120,6 +121,7 @@ export default function PlanEditor({
             <TestConditionsSection />
             <FeatureList />
             <ToleranceSection />
+            <UncertaintySection />
           </div>
           <aside aria-labelledby="plan-preview-h" className="card xl:sticky xl:top-20">
             <h2 id="plan-preview-h" className="text-lg font-semibold text-ink-900">

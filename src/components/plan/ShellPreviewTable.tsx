@@ -3,7 +3,15 @@ import type { ModelPrediction } from '../../lib/reduction/browser';
 import { formatFixed, formatPercent, formatSignificant, getUnitLabels } from '../../lib/ui-format';
 import { usePlanEditor } from './plan-editor-context';
 
-type Key = keyof Omit<ModelPrediction, 'model'>;
+/** One row: a number of each model's prediction. */
+interface Row {
+  key: string;
+  label: string;
+  unit: string;
+  get: (m: ModelPrediction) => number | null;
+  show: (v: number) => string;
+}
+const SURFACE = { inner: 'bore', outer: 'outer surface', 'mid-wall': 'mid-wall' } as const;
 
 /** Both models side by side at the outer surface: strain per unit pressure, and stresses, dimension changes and yield at test pressure. */
 export default function ShellPreviewTable() {
@@ -18,16 +26,35 @@ export default function ShellPreviewTable() {
     );
   const { lame, membrane } = preview.predicted;
   const lenDigits = units === 'US' ? 5 : 3;
-  const rows: { key: Key; label: string; unit: string; show: (v: number) => string }[] = [
-    { key: 'hoopStrainPerPressure', label: 'Hoop strain', unit: u.slope, show: (v) => formatSignificant(v, 4) },
-    { key: 'axialStrainPerPressure', label: 'Axial strain', unit: u.slope, show: (v) => formatSignificant(v, 4) },
-    { key: 'radialStrainPerPressure', label: 'Radial strain', unit: u.slope, show: (v) => formatSignificant(v, 4) },
-    { key: 'hoopStress', label: 'Hoop stress', unit: u.stress, show: (v) => formatFixed(v, units === 'US' ? 0 : 1) },
-    { key: 'axialStress', label: 'Axial stress', unit: u.stress, show: (v) => formatFixed(v, units === 'US' ? 0 : 1) },
-    { key: 'diameterChange', label: 'Diameter change', unit: u.length, show: (v) => formatFixed(v, lenDigits) },
-    { key: 'lengthChange', label: 'Length change', unit: u.length, show: (v) => formatFixed(v, lenDigits) },
-    { key: 'thicknessChange', label: 'Thickness change', unit: u.length, show: (v) => formatFixed(v, lenDigits + 1) },
-    { key: 'yieldFraction', label: 'Fraction of yield', unit: '%', show: (v) => formatFixed(v * 100, 1) },
+  const sig = (v: number) => formatSignificant(v, 4);
+  const stress = (v: number) => formatFixed(v, units === 'US' ? 0 : 1);
+  const len = (v: number) => formatFixed(v, lenDigits);
+  const dims = (k: keyof ModelPrediction['dimensionChanges']) => (m: ModelPrediction) => m.dimensionChanges[k];
+  const rows: Row[] = [
+    { key: 'hoop', label: 'Hoop strain', unit: u.slope, get: (m) => m.hoopStrainPerPressure, show: sig },
+    { key: 'axial', label: 'Axial strain', unit: u.slope, get: (m) => m.axialStrainPerPressure, show: sig },
+    { key: 'radial', label: 'Radial strain', unit: u.slope, get: (m) => m.radialStrainPerPressure, show: sig },
+    { key: 'sh', label: 'Hoop stress', unit: u.stress, get: (m) => m.hoopStress, show: stress },
+    { key: 'sa', label: 'Axial stress', unit: u.stress, get: (m) => m.axialStress, show: stress },
+    { key: 'di', label: 'Inside diameter change', unit: u.length, get: dims('insideDiameter'), show: len },
+    { key: 'dm', label: 'Mean diameter change', unit: u.length, get: dims('meanDiameter'), show: len },
+    { key: 'do', label: 'Outside diameter change', unit: u.length, get: dims('outsideDiameter'), show: len },
+    { key: 'dl', label: 'Length change', unit: u.length, get: dims('length'), show: len },
+    {
+      key: 'dt',
+      label: 'Thickness change',
+      unit: u.length,
+      get: dims('thickness'),
+      show: (v) => formatFixed(v, lenDigits + 1),
+    },
+    { key: 'vm', label: 'Largest stress (von Mises)', unit: u.stress, get: (m) => m.yieldCheck.stress, show: stress },
+    {
+      key: 'yf',
+      label: 'Fraction of yield',
+      unit: '%',
+      get: (m) => m.yieldCheck.fraction,
+      show: (v) => formatFixed(v * 100, 1),
+    },
   ];
   const diff = (l: number, m: number) => (Math.abs(l) < 1e-12 ? '—' : formatPercent(m / l - 1, 1, true));
   return (
@@ -67,19 +94,41 @@ export default function ShellPreviewTable() {
                 <th scope="row" className="bg-transparent! font-normal!">
                   {r.label} <span className="text-ink-700">({r.unit})</span>
                 </th>
-                <td className="num text-right">{r.show(lame[r.key])}</td>
-                <td className="num text-right">{r.show(membrane[r.key])}</td>
-                <td className="num text-right text-ink-700">{diff(lame[r.key], membrane[r.key])}</td>
+                <Cells a={r.get(lame)} b={r.get(membrane)} show={r.show} diff={diff} />
               </tr>
             </Fragment>
           ))}
         </tbody>
       </table>
       <p className="text-xs text-ink-700">
+        The largest stress sits at the {SURFACE[lame.yieldCheck.surface]} under Lamé and at mid-wall in the membrane
+        model; near yield is flagged from {preview.model === 'lame' ? 'Lamé' : 'the membrane value'}.
+      </p>
+      <p className="text-xs text-ink-700">
         ✓ the model the comparison uses. At the outer surface the membrane formula predicts{' '}
         {formatPercent(preview.predicted.membraneOverLame, 1, true)} on hoop strain; against a ±band that difference
         matters.
       </p>
     </div>
+  );
+}
+
+function Cells({
+  a,
+  b,
+  show,
+  diff,
+}: {
+  a: number | null;
+  b: number | null;
+  show: (v: number) => string;
+  diff: (l: number, m: number) => string;
+}) {
+  return (
+    <>
+      <td className="num text-right">{a === null ? '—' : show(a)}</td>
+      <td className="num text-right">{b === null ? '—' : show(b)}</td>
+      <td className="num text-right text-ink-700">{a === null || b === null ? '—' : diff(a, b)}</td>
+    </>
   );
 }

@@ -48,7 +48,7 @@ export default function TestConditionsSection() {
             <PlanTextField
               path={['columns', 'pressure']}
               label="Pressure column in the log"
-              hint="Header text exactly; a unit in brackets such as [bar] is converted."
+              hint="Header text exactly; a unit in brackets such as [bar] is converted, in parentheses (bar) too, and an absolute unit such as bar(a) or psia to gauge pressure."
             />
             <PlanTextField
               path={['columns', 'time']}

@@ -19,16 +19,25 @@ const FIELDS: { key: Key; label: string; unit?: string; flag: string; percent?: 
   },
   { key: 'noResponseMicrostrain', label: 'No-response floor', unit: 'µε', flag: 'no-response' },
   { key: 'yieldFraction', label: 'Near-yield limit', unit: 'fraction of yield', flag: 'near-yield', percent: true },
+  { key: 'holdCreepMicrostrain', label: 'Creep in the top hold, absolute', unit: 'µε', flag: 'hold-creep' },
+  {
+    key: 'holdCreepFraction',
+    label: 'Creep in the top hold, relative',
+    unit: 'fraction of peak',
+    flag: 'hold-creep',
+    percent: true,
+  },
+  { key: 'principalDirectionDeg', label: 'Rosette direction off by', unit: 'degrees', flag: 'principal-direction' },
 ];
 
-/** The seven acceptance thresholds of DESIGN 3.3; an empty field uses the default shown. */
+/** The acceptance thresholds of DESIGN 3.3; an empty field uses the default shown. */
 export default function ToleranceSection() {
   const { plan } = usePlanEditor();
   return (
     <PlanSection
       id="plan-tolerances"
       title="Tolerances"
-      intro="Leave a field empty to use its default. Zero shift is flagged when it exceeds the larger of the absolute and relative limits."
+      intro="Leave a field empty to use its default. Zero shift and creep are flagged when they exceed the larger of the absolute and relative limits."
     >
       <div className="grid gap-4 sm:grid-cols-2 xl:grid-cols-3">
         {FIELDS.map((f) => {

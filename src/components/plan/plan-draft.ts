@@ -19,6 +19,9 @@ export const TOLERANCE_DEFAULTS = {
   zeroShiftFraction: 0.02,
   noResponseMicrostrain: 10,
   yieldFraction: 0.9,
+  holdCreepMicrostrain: 10,
+  holdCreepFraction: 0.01,
+  principalDirectionDeg: 10,
 } as const;
 
 /**

@@ -33,6 +33,16 @@ describe('buildPlanPreview', () => {
     expect(preview.predicted.edgeZoneDistance).toBeCloseTo(2.5 * Math.sqrt(505 * 10), 6);
   });
 
+  it('gives every grid its U95 and largest input; the plan’s uncertainties change them (DESIGN 3.4)', () => {
+    const assumed = buildPlanPreview(filled())!;
+    // defaults: E 3 % beats thickness 2 % on a hoop gauge
+    expect(assumed.uncertainty.H1!.dominant!.input).toBe('elasticModulus');
+    expect(assumed.uncertainty.H1!.dominant!.assumed).toBe(true);
+    const given = buildPlanPreview(setIn(filled(), ['uncertainty'], { wallThickness: 1 }))!;
+    expect(given.uncertainty.H1!.dominant!.input).toBe('wallThickness');
+    expect(given.uncertainty.H1!.predictedU95).toBeGreaterThan(assumed.uncertainty.H1!.predictedU95);
+  });
+
   it('leaves out a broken gauge row and keeps predicting the rest', () => {
     const plan = setIn(filled(), ['gauges', 1, 'channels', 0], '');
     const preview = buildPlanPreview(plan)!;

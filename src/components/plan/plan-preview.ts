@@ -2,9 +2,13 @@
 // with a problem is left out (and named) instead of blanking the whole preview, so the shell
 // prediction keeps updating while the gauge table is half filled in. Pure.
 import {
+  gridBudget,
   listPlanIssues,
   parsePlan,
+  planGridSetups,
   predictForPlan,
+  shellInputFromPlan,
+  type BudgetEntry,
   type PlannedGrid,
   type PredictedBlock,
 } from '../../lib/reduction/browser';
@@ -19,6 +23,8 @@ export interface PlanPreview {
   testPressure: number;
   /** ids (or row numbers) of gauges left out because their row has a problem */
   omittedGauges: string[];
+  /** per grid id: 2 u_c of the predicted slope and the input that contributes most (DESIGN 3.4) */
+  uncertainty: Record<string, { predictedU95: number; dominant: BudgetEntry | null }>;
 }
 
 const PLACEHOLDER_CHANNEL = '\u0000preview';
@@ -56,7 +62,17 @@ export function buildPlanPreview(plan: PlanDraft): PlanPreview | null {
     return null;
   }
   const { predicted, gauges: grids } = predictForPlan(parsed);
+  const model = predicted[parsed.model];
+  const setups = planGridSetups(parsed, grids, model);
+  const shell = shellInputFromPlan(parsed);
+  const uncertainty = Object.fromEntries(
+    setups.map((s) => {
+      const b = gridBudget(parsed, shell, s, setups, model);
+      return [s.grid.id, { predictedU95: b.predictedU95, dominant: b.budget[0] ?? null }];
+    }),
+  );
   return {
+    uncertainty,
     predicted,
     grids: grids
       .filter((g) => g.gaugeId !== PLACEHOLDER_GAUGE.id)

@@ -3,6 +3,7 @@ import {
   formatAngle,
   formatPressure,
   formatRatio,
+  formatSignificant,
   formatSlope,
   formatStress,
   type PressureUnit,
@@ -86,6 +87,17 @@ export default function RosetteCard({ rosette: r, pressureUnit, testPressure, ne
           <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1 text-sm [&>dd]:whitespace-nowrap">
             <dt className="text-ink-700">ε1 direction from vessel axis</dt>
             <dd className="num font-semibold">{formatAngle(r.principalAngleDeg, 1)}</dd>
+            <dt className="text-ink-700">Expected direction of ε1</dt>
+            <dd className="num">
+              {r.expectedPrincipalAngleDeg === null
+                ? 'none (equal-biaxial)'
+                : `${formatAngle(r.expectedPrincipalAngleDeg)} (${r.expectedPrincipalAngleDeg === 90 ? 'hoop' : 'axial'})`}
+            </dd>
+            <dt className="text-ink-700">σ1 / σ2 per unit pressure</dt>
+            <dd className="num">
+              {formatSignificant(r.stressesPerUnitPressure[0], 4)} /{' '}
+              {formatSignificant(r.stressesPerUnitPressure[1], 4)} {pressureUnit}/{pressureUnit}
+            </dd>
             <dt className="text-ink-700">σ1 / σ2 at {formatPressure(testPressure, pressureUnit)}</dt>
             <dd className="num font-semibold">
               {formatStress(r.principalStresses[0], pressureUnit)} /{' '}
@@ -101,6 +113,13 @@ export default function RosetteCard({ rosette: r, pressureUnit, testPressure, ne
             )}
           </dl>
           <YieldBar fraction={r.yieldFraction} nearYieldFraction={nearYieldFraction} />
+          {r.notes.length > 0 && (
+            <ul className="list-disc pl-5 text-xs text-ink-700">
+              {r.notes.map((n, i) => (
+                <li key={i}>{n}</li>
+              ))}
+            </ul>
+          )}
         </div>
         <RosetteDiagram kind={r.kind} gridAngleDeg={r.angleDeg} principalAngleDeg={r.principalAngleDeg} />
       </div>

@@ -23,6 +23,13 @@ const LOADING = 5;
 const UNLOADING = 6;
 const hidden: uPlot.Series.PathBuilder = () => null;
 
+/** The band's legend: ±band, or how the engine made it when not relative to the prediction. */
+function bandLabel(g: GaugeResult, slopeBand: number): string {
+  if (g.bandBasis === 'uncertainty') return 'Band from the uncertainties';
+  if (g.bandBasis === 'near-zero') return `Band ±${formatPercent(slopeBand, 0)} of the largest principal strain`;
+  return `Band ±${formatPercent(slopeBand, 0)}`;
+}
+
 /** Strain against pressure for one gauge: hold averages, fitted and predicted lines, tolerance band. */
 export default function StrainPressurePlot({ gauge, testPressure, slopeBand, pressureUnit }: Props) {
   const chartEl = useRef<HTMLDivElement>(null);
@@ -78,7 +85,7 @@ export default function StrainPressurePlot({ gauge, testPressure, slopeBand, pre
     { label: 'Unloading holds', color: CHART_COLORS.unloading, kind: 'square-open' },
     { label: 'Fitted (loading)', color: CHART_COLORS.ink, kind: 'line' },
     { label: 'Predicted', color: CHART_COLORS.brass, kind: 'dashed' },
-    { label: `Band ±${formatPercent(slopeBand, 0)}`, color: CHART_COLORS.bandFill, kind: 'band' },
+    { label: bandLabel(gauge, slopeBand), color: CHART_COLORS.bandFill, kind: 'band' },
   ];
   const summary = `Strain against pressure for gauge ${gauge.id}: measured ${formatSlope(gauge.measuredSlope, pressureUnit)}, predicted ${formatSlope(gauge.predictedSlope, pressureUnit)}, ratio ${formatRatio(gauge.ratio)}.`;
 

@@ -2,8 +2,10 @@
 // cylinder (ID 1800 mm, wall 16 mm, 6000 mm long, E 200 000 MPa, ν 0.3, yield 260 MPa) tested to
 // 3.4 MPa in four holds up and three down. Predictions are the engine's Lamé values for that
 // vessel; measured slopes, R², intervals and hysteresis were fitted from the hold strains below.
-import type { GaugeResult, Hold, ReductionResult, RosetteResult } from '../../lib/reduction/types';
+// The uncertainty budgets are the shares the engine finds for that vessel with the default inputs.
+import type { BudgetEntry, GaugeResult, Hold, ReductionResult, RosetteResult } from '../../lib/reduction/types';
 import type { ShellMapPlan } from './shell-map-layout';
+import type { Engine2GaugeFields } from '../../lib/reduction/compat';
 
 const HOLD_PRESSURES = [0, 0.851, 1.702, 2.548, 3.402, 2.551, 1.699, 0.849, 0.004];
 const HOLD_BRANCHES: Hold['branch'][] = [
@@ -27,7 +29,45 @@ export const FIXTURE_HOLDS: Hold[] = HOLD_PRESSURES.map((pressure, index) => ({
   samples: 1500,
 }));
 
-type GaugeRow = Omit<GaugeResult, 'points' | 'deviation' | 'notes'> & { notes?: string[] };
+type GaugeRow = Omit<GaugeResult, 'points' | 'deviation' | 'notes' | Engine2GaugeFields> &
+  Partial<Pick<GaugeResult, Engine2GaugeFields>> & { notes?: string[] };
+
+/** Default-input budget of a slope: relative contributions of each input (hoop and axial gauges differ). */
+function budgetOf(slope: number, hoopLike: boolean): { predictedU95: number; uncertaintyBudget: BudgetEntry[] } {
+  const rel: [BudgetEntry['input'], number, number, string][] = hoopLike
+    ? [
+        ['elasticModulus', 0.03, 0.03, 'relative'],
+        ['wallThickness', 0.32, 0.0199, 'mm'],
+        ['gaugeFactor', 0.005, 0.005, 'relative'],
+        ['poissonRatio', 0.015, 0.0088, ''],
+        ['transverseSensitivity', 0.005, 0.0018, 'absolute'],
+        ['insideDiameter', 3.6, 0.002, 'mm'],
+        ['misalignmentDeg', 1, 0.0001, '°'],
+      ]
+    : [
+        ['poissonRatio', 0.015, 0.0429, ''],
+        ['transverseSensitivity', 0.005, 0.0231, 'absolute'],
+        ['elasticModulus', 0.03, 0.03, 'relative'],
+        ['wallThickness', 0.32, 0.0199, 'mm'],
+        ['gaugeFactor', 0.005, 0.005, 'relative'],
+        ['insideDiameter', 3.6, 0.002, 'mm'],
+        ['misalignmentDeg', 1, 0.0001, '°'],
+      ];
+  const c = rel.map(([, , r]) => r * Math.abs(slope));
+  const uc = Math.sqrt(c.reduce((a, x) => a + x * x, 0));
+  const uncertaintyBudget = rel
+    .map(([input, u, , unit], i) => ({
+      input,
+      value: 0,
+      standardUncertainty: u,
+      unit,
+      contribution: c[i]!,
+      share: (c[i]! * c[i]!) / (uc * uc),
+      assumed: true,
+    }))
+    .sort((a, b) => b.contribution - a.contribution);
+  return { predictedU95: 2 * uc, uncertaintyBudget };
+}
 
 /** Hold averages → the points the fits used: zero and rising holds load, peak-down holds unload. */
 function toPoints(holdStrains: (number | null)[]): GaugeResult['points'] {
@@ -39,7 +79,19 @@ function toPoints(holdStrains: (number | null)[]): GaugeResult['points'] {
 }
 
 function gauge(row: GaugeRow): GaugeResult {
+  const hoopLike = Math.abs(Math.sin((row.angleDeg * Math.PI) / 180)) > 0.5;
   return {
+    ...budgetOf(row.predictedSlope, hoopLike),
+    bandSlope:
+      row.outcome === 'not-compared'
+        ? null
+        : ([0.9 * row.predictedSlope, 1.1 * row.predictedSlope].sort((a, b) => a - b) as [number, number]),
+    bandBasis: 'relative',
+    transverseCorrection: 'none',
+    pairedWith: null,
+    holdCreep: 0.6,
+    headPressure: 0,
+    effectiveSamples: null,
     ...row,
     deviation: row.ratio === null ? null : row.ratio - 1,
     points: toPoints(row.holdStrains),
@@ -253,7 +305,11 @@ export const FIXTURE_ROSETTE: RosetteResult = {
   vonMises: 165.57,
   yieldFraction: 0.6368,
   predictedPrincipalStrains: [HOOP, AXIAL],
+  expectedPrincipalAngleDeg: 90,
+  stressesPerUnitPressure: [56.232, 28.238],
+  vonMisesPerUnitPressure: 48.697,
   flags: [],
+  notes: [],
 };
 
 export const FIXTURE_RESULT: ReductionResult = {
@@ -270,9 +326,17 @@ export const FIXTURE_RESULT: ReductionResult = {
       radialStrainPerPressure: -125.4474,
       hoopStress: 189.565,
       axialStress: 94.782,
+      dimensionChanges: {
+        insideDiameter: 1.49,
+        meanDiameter: 1.483,
+        outsideDiameter: 1.476,
+        length: 1.137,
+        thickness: -0.007,
+      },
       diameterChange: 1.476,
       lengthChange: 1.137,
       thicknessChange: -0.007,
+      yieldCheck: { stress: 170.06, fraction: 0.6541, surface: 'inner', pressure: 3.4 },
       yieldFraction: 0.6541,
     },
     membrane: {
@@ -282,10 +346,18 @@ export const FIXTURE_RESULT: ReductionResult = {
       radialStrainPerPressure: -127.6875,
       hoopStress: 192.95,
       axialStress: 96.475,
+      dimensionChanges: {
+        insideDiameter: 1.4959,
+        meanDiameter: 1.489,
+        outsideDiameter: 1.4821,
+        length: 1.158,
+        thickness: -0.0069,
+      },
       diameterChange: 1.489,
       lengthChange: 1.158,
       thicknessChange: -0.0069,
-      yieldFraction: 0.7421,
+      yieldCheck: { stress: 167.1, fraction: 0.6427, surface: 'mid-wall', pressure: 3.4 },
+      yieldFraction: 0.6427,
     },
     membraneOverLame: 0.01786,
     edgeZoneDistance: 301.33,
@@ -294,6 +366,18 @@ export const FIXTURE_RESULT: ReductionResult = {
   gauges: FIXTURE_GAUGES,
   rosettes: [FIXTURE_ROSETTE],
   verdict: 'flagged',
+  yieldCheck: {
+    stress: 170.06,
+    fraction: 0.6541,
+    surface: 'inner',
+    pressure: 3.4,
+    model: 'lame',
+    limit: 0.9,
+    nearYield: false,
+  },
+  bandMode: 'fixed',
+  cycles: [],
+  uncertaintyInputs: [],
   warnings: [
     'Gauge H3 is 106 mm from nozzle N1, inside the edge zone (301 mm): reported, not compared.',
     'Gauge D1 has no position on the shell: distance to a discontinuity unknown.',
@@ -304,6 +388,14 @@ export const FIXTURE_RESULT: ReductionResult = {
     timeSpan: [0, 1900],
     peakPressure: 3.402,
     pressureUnitInLog: 'MPa',
+    pressureConversion: {
+      fromUnit: 'MPa',
+      toUnit: 'MPa',
+      absolute: false,
+      factor: 1,
+      atmosphere: 0,
+      atmosphereSource: 'none',
+    },
     usedHolds: true,
   },
 };

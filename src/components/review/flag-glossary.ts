@@ -18,6 +18,7 @@ export interface FlagExplanation {
 
 export const FLAG_CODES: FlagCode[] = [
   'near-yield',
+  'hold-creep',
   'reversed-sign',
   'no-response',
   'outside-band',
@@ -25,6 +26,7 @@ export const FLAG_CODES: FlagCode[] = [
   'hysteresis',
   'zero-shift',
   'edge-zone',
+  'principal-direction',
 ];
 
 export const FLAG_GLOSSARY: Record<FlagCode, FlagExplanation> = {
@@ -124,6 +126,32 @@ export const FLAG_GLOSSARY: Record<FlagCode, FlagExplanation> = {
     ],
     next: 'Stop raising the pressure and consult the responsible engineer before going on.',
     safety: true,
+  },
+  'hold-creep': {
+    code: 'hold-creep',
+    title: 'Creep in hold',
+    meaning:
+      'While the pressure stayed at test pressure, the strain kept changing by more than the limit (the larger of an absolute value and a share of peak strain).',
+    causes: [
+      'the metal yielding at that spot',
+      'a leak, with the pump making up the pressure',
+      'a gauge or its adhesive coming loose',
+      'the water or the metal warming or cooling during the hold',
+    ],
+    next: 'Do not raise the pressure further. Compare with the neighbouring gauges and the pressure trace: creep on several gauges points to the vessel, on one gauge to its bond; consult the responsible engineer.',
+    safety: true,
+  },
+  'principal-direction': {
+    code: 'principal-direction',
+    title: 'Principal direction',
+    meaning:
+      'The rosette’s largest principal strain points further from the predicted direction (hoop on a cylinder) than the set angle.',
+    causes: [
+      'the rosette bonded at another angle than the plan says',
+      'the grids wired to the channels in another order',
+      'local bending or shear from a nearby nozzle, support or weld',
+    ],
+    next: 'Check the installation record and the channel mapping; if both are right, the field at that spot is not the membrane field and needs a local analysis.',
   },
 };
 

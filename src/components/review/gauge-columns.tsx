@@ -10,6 +10,7 @@ import {
   formatSignificant,
   type PressureUnit,
 } from '../../lib/ui-format';
+import { dominantInput, inputLabel } from './budget-words';
 import FlagChip from './FlagChip';
 import OutcomeBadge from './OutcomeBadge';
 import type { GaugeSortKey } from './gauge-sort';
@@ -57,6 +58,21 @@ export function buildGaugeColumns(pressureUnit: PressureUnit): GaugeColumn[] {
       unit: 'meas./pred.',
       numeric: true,
       cell: (g) => <strong>{formatRatio(g.ratio)}</strong>,
+    },
+    {
+      key: 'predictedU95',
+      label: 'Prediction U95',
+      unit: `${slopeUnit}, largest input`,
+      numeric: true,
+      cell: (g) => {
+        const top = dominantInput(g);
+        return (
+          <>
+            {g.predictedU95 === null ? '—' : `±${formatSignificant(g.predictedU95, 3)}`}
+            {top && <span className="block text-xs whitespace-nowrap text-ink-700">{inputLabel(top)}</span>}
+          </>
+        );
+      },
     },
     { key: 'rSquared', label: 'R²', numeric: true, cell: (g) => formatRSquared(g.rSquared) },
     {

@@ -10,6 +10,7 @@ export type GaugeSortKey =
   | 'predictedSlope'
   | 'measuredSlope'
   | 'ratio'
+  | 'predictedU95'
   | 'rSquared'
   | 'hysteresis'
   | 'zeroShift'

@@ -17,6 +17,8 @@ import StrainPressurePlot from './StrainPressurePlot';
 import TestPressureHelper from './TestPressureHelper';
 import TimeHistoryPlot from './TimeHistoryPlot';
 import VerdictBanner from './VerdictBanner';
+import YieldCheckCard from './YieldCheckCard';
+import UncertaintyBudgetTable from './UncertaintyBudgetTable';
 import { FIXTURE_CHANNELS, FIXTURE_GAUGES, FIXTURE_PLAN, FIXTURE_RESULT, FIXTURE_ROSETTE } from './fixtures';
 
 const text = (html: string) =>
@@ -46,7 +48,7 @@ describe('OutcomeBadge and FlagChip', () => {
 });
 
 describe('flag glossary', () => {
-  it('explains all eight flag codes of DESIGN 3.3 with causes and a next step', () => {
+  it('explains all ten flag codes of DESIGN 3.3 with causes and a next step', () => {
     const all: FlagCode[] = [
       'outside-band',
       'nonlinear',
@@ -56,6 +58,8 @@ describe('flag glossary', () => {
       'reversed-sign',
       'edge-zone',
       'near-yield',
+      'hold-creep',
+      'principal-direction',
     ];
     expect([...FLAG_CODES].sort()).toEqual([...all].sort());
     for (const c of all) {
@@ -132,7 +136,7 @@ describe('overview, map, table', () => {
     );
     expect(html.match(/<tr/g)).toHaveLength(FIXTURE_GAUGES.length + 1);
     expect(html).not.toContain('aria-sort'); // plan order until a header is chosen
-    expect(html.match(/<th scope="col"[^>]*><button/g)).toHaveLength(10);
+    expect(html.match(/<th scope="col"[^>]*><button/g)).toHaveLength(11);
     const sorted = renderToString(
       h(GaugeTable, { gauges: FIXTURE_GAUGES, pressureUnit: 'MPa', initialSort: { key: 'ratio', dir: 'descending' } }),
     );
@@ -141,6 +145,40 @@ describe('overview, map, table', () => {
     expect(html).toContain('data-flag="reversed-sign"');
     expect(text(html)).toContain('act-R1/C');
     expect(text(html)).toContain('µε/MPa');
+  });
+});
+
+describe('yield check and uncertainty budget', () => {
+  it('YieldCheckCard: where the largest stress sits, the fraction, and what to do near yield', () => {
+    const near = { ...FIXTURE_RESULT.yieldCheck, stress: 282.9, fraction: 0.943, pressure: 80, nearYield: true };
+    const t = text(renderToString(h(YieldCheckCard, { yieldCheck: near, pressureUnit: 'MPa' })));
+    expect(t).toContain('von Mises at the bore (inner surface), Lamé thick wall');
+    expect(t).toContain('282.9 MPa');
+    expect(t).toContain('94.3 % of yield');
+    expect(t).toMatch(/Near yield\. Stop raising the pressure/);
+    const calm = text(
+      renderToString(h(YieldCheckCard, { yieldCheck: FIXTURE_RESULT.yieldCheck, pressureUnit: 'MPa' })),
+    );
+    expect(calm).not.toContain('Near yield.');
+  });
+  it('UncertaintyBudgetTable: U95, the dominant input, every input with its share, assumptions marked', () => {
+    const t = text(renderToString(h(UncertaintyBudgetTable, { gauge: results.H1!, pressureUnit: 'MPa' })));
+    expect(t).toMatch(/U95 \(k = 2\): ± \d+\.\d+ µε\/MPa\s*, mostly from elastic modulus/);
+    expect(t).toContain('wall thickness (assumed)');
+    expect(t).toContain('± 3.0 %');
+    const axial = text(renderToString(h(UncertaintyBudgetTable, { gauge: results.A1!, pressureUnit: 'MPa' })));
+    expect(axial).toMatch(/mostly from Poisson's ratio/);
+  });
+  it('says so when a result has no budget', () => {
+    const old = { ...results.H1!, predictedU95: null, uncertaintyBudget: [] };
+    expect(text(renderToString(h(UncertaintyBudgetTable, { gauge: old, pressureUnit: 'MPa' })))).toMatch(
+      /no uncertainty budget/,
+    );
+  });
+  it('GaugeTable names the largest input of each gauge’s band', () => {
+    const t = text(renderToString(h(GaugeTable, { gauges: FIXTURE_GAUGES, pressureUnit: 'MPa' })));
+    expect(t).toContain('Prediction U95');
+    expect(t).toContain('elastic modulus');
   });
 });
 

@@ -1,6 +1,7 @@
 // Arrays for the strain–pressure plot of one gauge: one shared, ascending pressure axis; hold
 // averages split into loading and unloading series (null where the other branch sits); the
-// fitted line, the predicted line through the origin and the tolerance band evaluated on it.
+// fitted line, the predicted line through the origin and the tolerance band evaluated on it (the
+// engine's bandSlope when the result has one: relative, near-zero or from the uncertainties).
 import type { GaugeResult } from '../../lib/reduction/types';
 
 export interface StrainPlotData {
@@ -41,8 +42,7 @@ export function buildStrainPlotData(gauge: GaugeResult, testPressure: number, sl
   const m = gauge.measuredSlope;
   const b = gauge.intercept ?? 0;
   const k = gauge.predictedSlope;
-  const lo = k * (1 - slopeBand);
-  const hi = k * (1 + slopeBand);
+  const [lo, hi] = gauge.bandSlope ?? [k * (1 - slopeBand), k * (1 + slopeBand)];
   return {
     x,
     loading,

@@ -2,6 +2,8 @@ import StrainPressurePlot from '../review/StrainPressurePlot';
 import FlagChip from '../review/FlagChip';
 import OutcomeBadge from '../review/OutcomeBadge';
 import { FLAG_GLOSSARY } from '../review/flag-glossary';
+import { TRANSVERSE_WORDS } from '../review/budget-words';
+import UncertaintyBudgetTable from '../review/UncertaintyBudgetTable';
 import DispositionForm from './DispositionForm';
 import type { RecordDisposition, RecordGauge } from './record-types';
 
@@ -79,7 +81,34 @@ export default function GaugeDetail({
             <span className="text-ink-700">(nominal {nominalThickness})</span>
           </dd>
         </div>
+        <div>
+          <dt className="text-ink-700">Band (in band between)</dt>
+          <dd className="num">{g.bandSlope ? `${fmt(g.bandSlope[0])} – ${fmt(g.bandSlope[1])}` : '—'}</dd>
+        </div>
+        <div>
+          <dt className="text-ink-700">Creep in the top hold</dt>
+          <dd className="num">{g.holdCreep === null ? '—' : `${fmt(g.holdCreep, 1)} µε`}</dd>
+        </div>
+        <div className="col-span-2">
+          <dt className="text-ink-700">Transverse sensitivity corrected</dt>
+          <dd>
+            {TRANSVERSE_WORDS[g.transverseCorrection]}
+            {g.pairedWith ? ` ${g.pairedWith}` : ''}
+          </dd>
+        </div>
+        {g.headPressure !== 0 && (
+          <div>
+            <dt className="text-ink-700">Water head at the gauge</dt>
+            <dd className="num">
+              {fmt(g.headPressure, 4)} {pressureUnit}
+            </dd>
+          </div>
+        )}
       </dl>
+      <div>
+        <h4 className="mb-1 font-semibold">Uncertainty of the prediction</h4>
+        <UncertaintyBudgetTable gauge={g} pressureUnit={pressureUnit} />
+      </div>
       {g.flags.length > 0 && (
         <div className="space-y-2">
           <h4 className="font-semibold">Flags</h4>

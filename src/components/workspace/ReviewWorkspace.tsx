@@ -8,10 +8,11 @@ import RosetteCard from '../review/RosetteCard';
 import SafetyCaution from '../review/SafetyCaution';
 import TimeHistoryPlot from '../review/TimeHistoryPlot';
 import VerdictBanner from '../review/VerdictBanner';
+import YieldCheckCard from '../review/YieldCheckCard';
 import type { FlagCode } from '../../lib/reduction/types';
 import GaugeDetail from './GaugeDetail';
 import SignOffBar from './SignOffBar';
-import type { RecordView } from './record-types';
+import { normalizeRecordResult, type RecordView } from './record-types';
 import { can } from '../../lib/roles';
 
 interface Props {
@@ -25,12 +26,16 @@ interface Props {
 /** The review screen: verdict, deviation overview, shell map, gauge table, one gauge in detail, rosettes, time history. */
 export default function ReviewWorkspace({ initial, role, userEmail, seriesUrl, readOnly = false }: Props) {
   const [record, setRecord] = useState(initial);
-  const result = record.result;
+  const plan = record.plan;
+  // a result stored by an older engine is read in the current shape
+  const result = useMemo(
+    () => (record.result && plan ? normalizeRecordResult(record.result, plan) : null),
+    [record.result, plan],
+  );
   const firstFlagged = result?.gauges.find((g) => g.outcome === 'flagged')?.id ?? result?.gauges[0]?.id ?? null;
   const [selected, setSelected] = useState<string | null>(firstFlagged);
   const reload = () => api<RecordView>(`/api/tests/${record.test.id}/record`).then(setRecord);
 
-  const plan = record.plan;
   const presentFlags = useMemo(
     () => [...new Set(result?.gauges.flatMap((g) => g.flags) ?? [])] as FlagCode[],
     [result],
@@ -52,6 +57,7 @@ export default function ReviewWorkspace({ initial, role, userEmail, seriesUrl, r
     <div className="space-y-6">
       <VerdictBanner verdict={result.verdict} undisposedFlaggedCount={record.openFlags.length} />
       <SafetyCaution />
+      <YieldCheckCard yieldCheck={result.yieldCheck} pressureUnit={result.pressureUnit} />
       {!readOnly && <SignOffBar record={record} role={role} userEmail={userEmail} onChanged={() => void reload()} />}
       <div className="grid gap-6 2xl:grid-cols-[minmax(0,3fr)_minmax(26rem,2fr)]">
         <div className="min-w-0 space-y-6">

@@ -1,6 +1,8 @@
 // The record as the API's /record and /share endpoints serialise it (src/server/record.server.ts recordView).
 import type { GaugeResult, ReductionResult, TestVerdict } from '../../lib/reduction/types';
+import type { StoredGauge, StoredResult } from '../../lib/reduction/compat';
 import type { Plan } from '../../lib/reduction/plan';
+import { normalizeResult } from '../../lib/reduction/compat';
 
 export interface RecordDisposition {
   gaugeId: string;
@@ -9,8 +11,19 @@ export interface RecordDisposition {
   by: string;
   at: string;
 }
-export type RecordGauge = GaugeResult & {
+type GaugeDisposition = {
   disposition?: { gaugeId: string; outcome: 'accepted' | 'excluded' | 'retest'; reason: string };
+};
+/** A gauge as the review shows it: the current engine's fields (normalizeResult fills older results). */
+export type RecordGauge = GaugeResult & GaugeDisposition;
+/** A stored result of any engine version, with dispositions applied: read it through normalizeRecordResult. */
+export type StoredRecordResult = Omit<StoredResult, 'gauges' | 'verdict'> & {
+  gauges: (StoredGauge & GaugeDisposition)[];
+  verdict: TestVerdict;
+};
+export type RecordResult = Omit<ReductionResult, 'gauges' | 'verdict'> & {
+  gauges: RecordGauge[];
+  verdict: TestVerdict;
 };
 
 export interface RecordView {
@@ -30,7 +43,7 @@ export interface RecordView {
     finishedAt: string | null;
     error: string | null;
   } | null;
-  result: (Omit<ReductionResult, 'gauges' | 'verdict'> & { gauges: RecordGauge[]; verdict: TestVerdict }) | null;
+  result: StoredRecordResult | null;
   dispositions: RecordDisposition[];
   signatures: {
     kind: 'review' | 'release';
@@ -42,4 +55,18 @@ export interface RecordView {
   }[];
   logs: { id: number; filename: string; sha256: string }[];
   openFlags: string[];
+}
+
+/** The record's result in the current engine's shape, dispositions kept (older results are filled in). */
+export function normalizeRecordResult(result: StoredRecordResult, plan: Plan): RecordResult {
+  const n = normalizeResult(result, {
+    yieldStrength: plan.material.yieldStrength,
+    yieldFraction: plan.tolerances.yieldFraction,
+    slopeBand: plan.tolerances.slopeBand,
+  });
+  return {
+    ...n,
+    verdict: result.verdict,
+    gauges: n.gauges.map((g, i) => ({ ...g, disposition: result.gauges[i]?.disposition })),
+  };
 }

@@ -25,5 +25,23 @@ export type { ShellInput, ShellState, PlannedGrid, DiscontinuityDistance, Shape,
 export * from './rosette';
 export * from './corrections';
 export { applyDispositions } from './dispositions';
+export { normalizeResult } from './compat';
+export type { StoredResult, StoredGauge, StoredRosette, NormalizeContext } from './compat';
+export { dimensionChanges, yieldCheckAt, vonMises3 } from './shell';
+export { planGridSetups, findPerpendicularPartners, headPressureAt, STANDARD_GRAVITY } from './installation';
+export type { GridSetup } from './installation';
+export {
+  gridBudget,
+  resolveUncertainty,
+  propagateCentral,
+  describeUncertainty,
+  UNCERTAINTY_DEFAULTS,
+  UNCERTAINTY_LABELS,
+} from './uncertainty';
+export type { ResolvedUncertainty, UncertaintyInput } from './uncertainty';
+export { flagGauge, isNearZeroPrediction, NEAR_ZERO_SHARE } from './flags';
+export type { GaugeFlagInput, GaugeFlagOutcome } from './flags';
+export { splitCycles, comparedCycle } from './cycles';
+export type { CycleSpan } from './cycles';
 export type { Disposition, DispositionOutcome, DispositionedGauge } from './dispositions';
 export type * from './types';

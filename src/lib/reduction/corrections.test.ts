@@ -7,12 +7,21 @@ import {
   indicatedStrain,
   uniaxialTransverseFactor,
   correctionMatrix,
+  leadWireFactor,
 } from './corrections';
 import { transformStrain } from './rosette';
 
 describe('gauge-factor mismatch — REFERENCES.md [memory]', () => {
   it('1000 µε at instrument F 2.00 with a 2.10 gauge → 952.38 µε', () =>
     expect(correctGaugeFactor(1000, 2.1, 2.0)).toBeCloseTo(952.381, 3));
+});
+
+describe('lead wires — REFERENCES.md [memory]: output reduced by R_G/(R_G + R_L)', () => {
+  it.each([
+    ['two-wire, 0.5 Ω per lead, 120 Ω gauge: both leads', 0.5, 120, 'two-wire', 121 / 120],
+    ['three-wire: one lead in the gauge arm', 0.5, 120, 'three-wire', 120.5 / 120],
+    ['350 Ω gauge, 5 Ω leads two-wire', 5, 350, 'two-wire', 360 / 350],
+  ] as const)('%s', (_n, rl, rg, wiring, want) => expect(leadWireFactor(rl, rg, wiring)).toBeCloseTo(want, 12));
 });
 
 describe('transverse sensitivity — REFERENCES.md, Micro-Measurements TN-509 [read for the method; equations memory]', () => {
@@ -46,6 +55,16 @@ describe('transverse sensitivity — REFERENCES.md, Micro-Measurements TN-509 [r
       const back = correct(ind[0]!, ind[1]!, ind[2]!, kt);
       back.forEach((v, k) => expect(v).toBeCloseTo(truth[k]!, 8));
     });
+  });
+  it('two perpendicular grids with different Kt: the forward model solved back exactly', () => {
+    const [x, y] = correctPerpendicularPair(
+      indicatedStrain(425, 100, 0.04),
+      indicatedStrain(100, 425, -0.01),
+      0.04,
+      -0.01,
+    );
+    expect(x).toBeCloseTo(425, 9);
+    expect(y).toBeCloseTo(100, 9);
   });
   it('two perpendicular grids', () => {
     const [x, y] = correctPerpendicularPair(indicatedStrain(425, 100, 0.04), indicatedStrain(100, 425, 0.04), 0.04);

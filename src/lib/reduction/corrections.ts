@@ -19,10 +19,37 @@ export function indicatedStrain(along: number, across: number, kt: number): numb
   return (along + kt * across) / (1 - NU0_CALIBRATION * kt);
 }
 
-/** Two perpendicular grids: εx = f(ε̂x − Kt ε̂y). */
-export function correctPerpendicularPair(ex: number, ey: number, kt: number): [number, number] {
-  const f = transverseFactor(kt);
-  return [f * (ex - kt * ey), f * (ey - kt * ex)];
+/**
+ * Two perpendicular grids at one place: εx = f(ε̂x − Kt ε̂y) for one Kt (TN-509). With a different
+ * Kt for each grid the same forward model solved exactly: εx = [(1 − ν0 Kx) ε̂x − Kx (1 − ν0 Ky) ε̂y] / (1 − Kx Ky).
+ */
+export function correctPerpendicularPair(ex: number, ey: number, kt: number, ktY = kt): [number, number] {
+  const [cxx, cxy] = perpendicularPairCoefficients(kt, ktY);
+  const [cyy, cyx] = perpendicularPairCoefficients(ktY, kt);
+  return [cxx * ex + cxy * ey, cyy * ey + cyx * ex];
+}
+
+/** Coefficients [on ε̂x, on ε̂y] of grid x's corrected strain in a perpendicular pair (Kt of x, Kt of y). */
+export function perpendicularPairCoefficients(ktX: number, ktY: number): [number, number] {
+  const d = 1 - ktX * ktY;
+  return [(1 - NU0_CALIBRATION * ktX) / d, (-ktX * (1 - NU0_CALIBRATION * ktY)) / d];
+}
+
+/** Nominal gauge resistance assumed when a plan gives lead resistance only, ohm (a common foil gauge). */
+export const DEFAULT_GAUGE_RESISTANCE = 120;
+
+/**
+ * Quarter-bridge lead-wire desensitisation: the bridge sees R_G/(R_G + R_L) of the gauge's change,
+ * R_L being both leads for a two-wire hook-up and one lead for three-wire. Returns the factor that
+ * restores the strain, (R_G + R_L)/R_G.
+ */
+export function leadWireFactor(
+  leadResistance: number,
+  gaugeResistance = DEFAULT_GAUGE_RESISTANCE,
+  wiring: 'two-wire' | 'three-wire' = 'two-wire',
+): number {
+  const rl = (wiring === 'two-wire' ? 2 : 1) * leadResistance;
+  return (gaugeResistance + rl) / gaugeResistance;
 }
 
 /** Rectangular rosette: εA = f(ε̂A − Kt ε̂C), εB = f[ε̂B(1+Kt) − Kt(ε̂A+ε̂C)], εC = f(ε̂C − Kt ε̂A). */
@@ -48,7 +75,8 @@ export function uniaxialTransverseFactor(kt: number, transverseRatio: number): n
 
 /**
  * Coefficients that turn the raw channel readings of a gauge into corrected strains per grid:
- * grid k = Σ_j m[k][j] × raw_j. Gauge factor first (per channel), then transverse sensitivity.
+ * grid k = Σ_j m[k][j] × raw_j. Gauge factor (and any lead-wire factor, `scale`) first, per
+ * channel, then transverse sensitivity.
  */
 export function correctionMatrix(
   kind: 'uniaxial' | 'rosette-rectangular' | 'rosette-delta',
@@ -56,8 +84,9 @@ export function correctionMatrix(
   instrumentGaugeFactor: number,
   kt: number,
   uniaxialTransverseRatio = 0,
+  scale = 1,
 ): number[][] {
-  const g = instrumentGaugeFactor / gaugeFactor;
+  const g = (scale * instrumentGaugeFactor) / gaugeFactor;
   if (kind === 'uniaxial') return [[g * (kt === 0 ? 1 : uniaxialTransverseFactor(kt, uniaxialTransverseRatio))]];
   const f = transverseFactor(kt);
   if (kind === 'rosette-rectangular')

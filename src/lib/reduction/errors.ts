@@ -27,6 +27,7 @@ export type InputErrorCode =
   | 'missing-column'
   | 'duplicate-column'
   | 'unknown-pressure-unit'
+  | 'implausible-pressure'
   | 'empty-column'
   | 'no-data'
   | 'too-few-levels'

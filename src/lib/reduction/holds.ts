@@ -4,6 +4,7 @@
 // kept in at most MAX_BLOCKS blocks whose size doubles as the run grows, so the settled part (the
 // run without its first settleFraction) is known at the end to within 1/32 of the run.
 import type { HoldBranch } from './types';
+import { splitCycles, type CycleSpan } from './cycles';
 
 export interface HoldSettings {
   /** half-width of the band, plan pressure unit */
@@ -17,6 +18,16 @@ export interface HoldSettings {
   gapSeconds?: number;
 }
 
+/** Sums over the first or the last third of a hold's settled part: per slot, and pressure. */
+export interface HoldWindow {
+  slotSum: Float64Array;
+  slotCount: Float64Array;
+  /** mean pressure and mean time over the window */
+  pressure: number;
+  time: number;
+  samples: number;
+}
+
 /** A detected hold with the sums of every slot over its settled part. */
 export interface RawHold {
   start: number;
@@ -27,6 +38,9 @@ export interface RawHold {
   samples: number;
   slotSum: Float64Array;
   slotCount: Float64Array;
+  /** the first and last third of the settled part (null when it has fewer than two blocks): creep */
+  early: HoldWindow | null;
+  late: HoldWindow | null;
 }
 
 const MAX_BLOCKS = 64;
@@ -41,7 +55,8 @@ interface Block {
   sumTT: number;
   sumTP: number;
   slotSum: Float64Array;
-  slotCount: Float64Array;
+  /** per slot the samples of this block without a value (count = n − miss) */
+  slotMiss: Float64Array;
 }
 
 export class HoldDetector {
@@ -72,7 +87,7 @@ export class HoldDetector {
         sumTT: 0,
         sumTP: 0,
         slotSum: new Float64Array(nSlots),
-        slotCount: new Float64Array(nSlots),
+        slotMiss: new Float64Array(nSlots),
       });
   }
 
@@ -89,6 +104,11 @@ export class HoldDetector {
         this.startRun(t, p, slots);
       }
     }
+  }
+
+  /** The holds completed so far, in time order (the run in progress is not among them). */
+  get completed(): readonly RawHold[] {
+    return this.out;
   }
 
   /** Close the last run and return every hold found, in time order. */
@@ -115,7 +135,7 @@ export class HoldDetector {
     b.t1 = t;
     b.sumT = b.sumP = b.sumTT = b.sumTP = 0;
     b.slotSum.fill(0);
-    b.slotCount.fill(0);
+    b.slotMiss.fill(0);
   }
 
   private add(t: number, p: number, slots: Float64Array) {
@@ -138,13 +158,11 @@ export class HoldDetector {
     b.sumTP += tr * p;
     // hot: k < nSlots, the length of both sums and (by contract) of the caller's slot values
     const ss = b.slotSum,
-      sc = b.slotCount;
+      sm = b.slotMiss;
     for (let k = 0; k < this.nSlots; k++) {
       const v = slots[k]!;
-      if (v === v) {
-        ss[k]! += v;
-        sc[k]!++;
-      }
+      if (v === v) ss[k]! += v;
+      else sm[k]!++;
     }
   }
 
@@ -166,7 +184,7 @@ export class HoldDetector {
         dst.sumTT = a.sumTT;
         dst.sumTP = a.sumTP;
         dst.slotSum.set(a.slotSum);
-        dst.slotCount.set(a.slotCount);
+        dst.slotMiss.set(a.slotMiss);
       }
       dst.n += c.n;
       dst.t1 = c.t1;
@@ -175,7 +193,7 @@ export class HoldDetector {
       dst.sumTT += c.sumTT;
       dst.sumTP += c.sumTP;
       addInto(dst.slotSum, c.slotSum);
-      addInto(dst.slotCount, c.slotCount);
+      addInto(dst.slotMiss, c.slotMiss);
     }
     this.nb = MAX_BLOCKS / 2;
     this.blockSize *= 2;
@@ -207,7 +225,7 @@ export class HoldDetector {
       sumTT += b.sumTT;
       sumTP += b.sumTP;
       addInto(slotSum, b.slotSum);
-      addInto(slotCount, b.slotCount);
+      addCounts(slotCount, b);
     }
     if (n < 2) return;
     const settledStart = firstBlock.t0;
@@ -223,24 +241,42 @@ export class HoldDetector {
       samples: n,
       slotSum,
       slotCount,
+      early: settled.length >= 2 ? this.window(settled, n, false) : null,
+      late: settled.length >= 2 ? this.window(settled, n, true) : null,
     });
+  }
+
+  /** Sums of the blocks that make up the first (or last) third of n samples; at least one block. */
+  private window(blocks: readonly Block[], n: number, fromEnd: boolean): HoldWindow {
+    const slotSum = new Float64Array(this.nSlots);
+    const slotCount = new Float64Array(this.nSlots);
+    let m = 0,
+      sumP = 0,
+      sumT = 0;
+    const order = fromEnd ? [...blocks].reverse() : blocks;
+    // stop before the middle block so the two windows never share one
+    const limit = Math.max(1, Math.floor(blocks.length / 2));
+    for (const [k, b] of order.entries()) {
+      if (k >= limit || (m > 0 && m >= n / 3)) break;
+      m += b.n;
+      sumP += b.sumP;
+      sumT += b.sumT;
+      addInto(slotSum, b.slotSum);
+      addCounts(slotCount, b);
+    }
+    return { slotSum, slotCount, pressure: sumP / m, time: this.runT0 + sumT / m, samples: m };
   }
 }
 
 export interface ClassifiedHold extends RawHold {
   index: number;
   branch: HoldBranch;
+  /** the cycle the hold belongs to (cycles.ts) */
+  cycle: number;
 }
 
-/**
- * Merge neighbouring holds at the same level, then name the branches: the highest hold splits
- * loading from unloading; holds at zero before it are `zero`, a last hold at zero is `return`.
- */
-export function classifyHolds(
-  raw: readonly RawHold[],
-  bandAbs: number,
-  zeroBand: number,
-): { holds: ClassifiedHold[]; peakIndex: number } {
+/** Merge neighbouring holds at the same level (a short excursion split them): sums add, windows keep the ends. */
+export function mergeHolds(raw: readonly RawHold[], bandAbs: number): RawHold[] {
   const merged: RawHold[] = [];
   for (const h of raw) {
     const prev = merged[merged.length - 1];
@@ -258,25 +294,28 @@ export function classifyHolds(
         samples: n,
         slotSum,
         slotCount,
+        early: prev.early ?? h.early,
+        late: h.late ?? prev.late,
       };
     } else merged.push(h);
   }
-  let peakIndex = -1;
-  let peakPressure = -Infinity;
-  merged.forEach((h, i) => {
-    if (peakIndex < 0 || h.pressure > peakPressure) {
-      peakIndex = i;
-      peakPressure = h.pressure;
-    }
-  });
-  const holds = merged.map((h, i): ClassifiedHold => {
-    const atZero = Math.abs(h.pressure) <= zeroBand;
-    let branch: HoldBranch;
-    if (i <= peakIndex) branch = atZero && i !== peakIndex ? 'zero' : 'loading';
-    else branch = atZero && i === merged.length - 1 ? 'return' : 'unloading';
-    return { ...h, index: i, branch };
-  });
-  return { holds, peakIndex };
+  return merged;
+}
+
+/**
+ * Merge neighbouring holds at the same level, split them into pressure cycles and name the
+ * branches (cycles.ts): per cycle, the zero hold it starts from, loading up to its highest hold,
+ * unloading after it, and `return` for a zero hold that ends a cycle and starts no other.
+ */
+export function classifyHolds(
+  raw: readonly RawHold[],
+  bandAbs: number,
+  zeroBand: number,
+): { holds: ClassifiedHold[]; cycles: CycleSpan[] } {
+  const merged = mergeHolds(raw, bandAbs);
+  const { cycles, branch, cycleOf } = splitCycles(merged, zeroBand);
+  const holds = merged.map((h, i): ClassifiedHold => ({ ...h, index: i, branch: branch[i]!, cycle: cycleOf[i]! }));
+  return { holds, cycles };
 }
 
 /** Detect and classify holds in arrays of time and pressure (for tests and small logs). */
@@ -295,6 +334,11 @@ export function detectHolds(
     if (ti !== undefined && pi !== undefined && Number.isFinite(pi)) det.push(ti, pi, none);
   }
   return classifyHolds(det.finish(), settings.bandAbs, zeroBand).holds;
+}
+
+/** counts[k] += the block's samples with a value in slot k. */
+function addCounts(counts: Float64Array, b: Block): void {
+  for (let k = 0; k < counts.length; k++) counts[k]! += b.n - b.slotMiss[k]!;
 }
 
 /** dst[k] += src[k] for every k of the shorter array (the slot sums of one detector share one length). */

@@ -18,8 +18,10 @@ export interface LogHeadInfo {
   /** 1-based line of the header */
   headerLine: number;
   columns: string[];
-  /** canonical unit in brackets after the pressure column, or null */
+  /** canonical unit in brackets or parentheses after the pressure column, or null */
   pressureUnit: string | null;
+  /** the unit is absolute pressure (`bar(a)`, `psia`): the engine subtracts the atmosphere */
+  pressureAbsolute: boolean;
   missingColumns: string[];
   duplicateColumns: string[];
   /** up to 5 data rows as cells */
@@ -53,8 +55,7 @@ export function inspectLogHead(plan: Plan, headText: string): LogHeadInfo {
   const headerLine = found.index + 1;
   const m = mapColumns(plan, found.cells);
   const pressureCell = found.cells[m.pressure]; // undefined when the pressure column is missing (-1)
-  const pressureUnit =
-    pressureCell !== undefined ? resolvePressureUnit(m.pressureUnit, pressureCell, headerLine) : null;
+  const unit = pressureCell !== undefined ? resolvePressureUnit(m.pressureUnit, pressureCell, headerLine) : null;
   const previewRows: string[][] = [];
   let decimalComma = false;
   for (const line of lines.slice(found.index + 1)) {
@@ -73,7 +74,8 @@ export function inspectLogHead(plan: Plan, headText: string): LogHeadInfo {
     decimalComma,
     headerLine,
     columns: found.cells,
-    pressureUnit,
+    pressureUnit: unit?.unit ?? null,
+    pressureAbsolute: unit?.absolute ?? false,
     missingColumns: m.missing,
     duplicateColumns: m.duplicate,
     previewRows,

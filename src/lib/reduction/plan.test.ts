@@ -21,7 +21,13 @@ describe('parsePlan: defaults', () => {
       zeroShiftFraction: 0.02,
       noResponseMicrostrain: 10,
       yieldFraction: 0.9,
+      holdCreepMicrostrain: 10,
+      holdCreepFraction: 0.01,
+      principalDirectionDeg: 10,
+      bandMode: 'fixed',
     });
+    expect(plan.testFluidDensity).toBe(1000);
+    expect(plan.uncertainty).toBeUndefined();
     expect(plan.holdDetection).toEqual({ band: 0.02, minDurationSeconds: 10, minSamples: 5, settleFraction: 0.3 });
     expect(plan.model).toBe('lame');
     expect(plan.gauges[0]!.instrumentGaugeFactor).toBe(2.0);
@@ -31,6 +37,38 @@ describe('parsePlan: defaults', () => {
     expect(parsePlan(JSON.stringify(plan))).toEqual(plan));
   it('keeps a partial tolerance override', () =>
     expect(parsePlan({ ...demoPlanInput, tolerances: { slopeBand: 0.05 } }).tolerances.minRSquared).toBe(0.995));
+});
+
+describe('plan rules that trip real users', () => {
+  const sphere = { ...demoPlanInput, vessel: { shape: 'sphere', insideDiameter: 3000, wallThickness: 20 } };
+  it.each([
+    ['absent', {}],
+    ['0', { length: 0 }],
+  ])('a sphere needs no length (%s)', (_n, extra) => {
+    const plan = parsePlan({ ...sphere, vessel: { ...sphere.vessel, ...extra } });
+    expect(plan.vessel.length).toBeUndefined();
+  });
+  it('a perpendicular pair by id is accepted both ways', () => {
+    const plan = parsePlan({
+      ...demoPlanInput,
+      gauges: [
+        { ...demoPlanInput.gauges[0]!, pairWith: 'A1' },
+        { ...demoPlanInput.gauges[2]!, pairWith: 'H1' },
+      ],
+    });
+    expect(plan.gauges[0]!.pairWith).toBe('A1');
+  });
+  it('two gauges may not claim the same partner', () => {
+    const issues = listPlanIssues({
+      ...demoPlanInput,
+      gauges: [
+        { ...demoPlanInput.gauges[0]!, pairWith: 'A1' },
+        { ...demoPlanInput.gauges[1]!, pairWith: 'A1' },
+        demoPlanInput.gauges[2]!,
+      ],
+    });
+    expect(issues).toContainEqual({ path: 'gauges[1].pairWith', message: "'A1' is already paired with 'H1'" });
+  });
 });
 
 describe('parsePlan: friendly errors naming the field', () => {
@@ -76,6 +114,44 @@ describe('parsePlan: friendly errors naming the field', () => {
     ],
     ['unknown units', { ...demoPlanInput, units: 'metric' }, "units: must be one of SI, US (got 'metric')"],
     ['cylinder without length', withVessel({ length: undefined }), 'vessel.length: is required for a cylinder'],
+    ['cylinder of length 0', withVessel({ length: 0 }), 'vessel.length: must be greater than 0 for a cylinder'],
+    [
+      "a strain channel named 'pressure' (the time history's pressure key)",
+      withGauge({ channels: ['pressure'] }),
+      "gauges[0].channels[0]: 'pressure' is reserved for the pressure trace of the time history: rename the strain column",
+    ],
+    [
+      'an unknown band mode',
+      { ...demoPlanInput, tolerances: { bandMode: 'loose' } },
+      "tolerances.bandMode: must be one of fixed, uncertainty (got 'loose')",
+    ],
+    [
+      'a negative uncertainty',
+      { ...demoPlanInput, uncertainty: { wallThickness: -1 } },
+      'uncertainty.wallThickness: must not be negative',
+    ],
+    [
+      'an elevation without the tap elevation',
+      withGauge({ elevation: 1200 }),
+      'pressureTapElevation: is required when a gauge gives its elevation (water head)',
+    ],
+    [
+      'a gauge resistance without lead resistance',
+      withGauge({ gaugeResistance: 350 }),
+      'gauges[0].leadResistance: is required with gaugeResistance or leadWiring',
+    ],
+    [
+      'pairWith an unknown gauge',
+      withGauge({ pairWith: 'X9' }),
+      "gauges[0].pairWith: names no gauge of this plan ('X9')",
+    ],
+    ['pairWith itself', withGauge({ pairWith: 'H1' }), 'gauges[0].pairWith: must name another gauge'],
+    [
+      'pairWith a parallel gauge',
+      withGauge({ pairWith: 'H2' }),
+      "gauges[0].pairWith: 'H2' is not perpendicular to this gauge (90° against 90°)",
+    ],
+    ['pairWith a rosette', withGauge({ pairWith: 'R1' }), "gauges[0].pairWith: 'R1' is not a uniaxial gauge"],
     ['not an object', 42, 'plan: must be a JSON object'],
   ])('%s', (_n, input, message) => {
     let err: unknown;

@@ -25,6 +25,10 @@ export const ENDS = ['closed', 'open'] as const;
 export const GAUGE_KINDS = ['uniaxial', 'rosette-rectangular', 'rosette-delta'] as const;
 export const FEATURE_KINDS = ['head', 'nozzle', 'support', 'thickness-change'] as const;
 export const MODELS = ['lame', 'membrane'] as const;
+export const BAND_MODES = ['fixed', 'uncertainty'] as const;
+export const LEAD_WIRINGS = ['two-wire', 'three-wire'] as const;
+/** The time history keys the pressure trace `pressure`: no strain channel may take that name. */
+export const RESERVED_CHANNEL_NAMES = ['pressure'] as const;
 
 export const featureSchema = z.object({
   id: z.string().optional(),
@@ -44,7 +48,8 @@ export const vesselSchema = z.object({
   ends: z.enum(ENDS, oneOf(ENDS)).default('closed'),
   insideDiameter: positive(),
   wallThickness: positive(),
-  length: positive().optional(),
+  /** seam to seam, plan length unit; a cylinder needs it, a sphere does not (0 or absent) */
+  length: nonNegative().optional(),
   features: z.array(featureSchema, expect('a list')).default([]),
 });
 
@@ -69,6 +74,34 @@ export const tolerancesSchema = z.object({
   zeroShiftFraction: fraction().default(0.02),
   noResponseMicrostrain: nonNegative().default(10),
   yieldFraction: num().gt(0, 'must be greater than 0').lte(2, 'must be at most 2').default(0.9),
+  /** hold-creep: strain change during the hold at test pressure, the larger of µε and a share of peak */
+  holdCreepMicrostrain: nonNegative().default(10),
+  holdCreepFraction: fraction().default(0.01),
+  /** principal-direction: a rosette's ε1 this many degrees away from the predicted direction */
+  principalDirectionDeg: num().gte(0, 'must not be negative').lte(90, 'must be at most 90').default(10),
+  /** `fixed`: ±slopeBand; `uncertainty`: |measured − predicted| against √(U_pred² + U_fit²) (DESIGN 3.4) */
+  bandMode: z.enum(BAND_MODES, oneOf(BAND_MODES)).default('fixed'),
+});
+
+/**
+ * Standard uncertainties (k = 1) of the prediction's inputs (DESIGN 3.4). Every field is optional;
+ * an absent one takes the default of `uncertainty.ts`, marked as an assumption in the result.
+ */
+export const uncertaintySchema = z.object({
+  /** plan length unit */
+  wallThickness: nonNegative().optional(),
+  /** plan length unit */
+  insideDiameter: nonNegative().optional(),
+  /** relative (0.03 for 3 %) */
+  elasticModulus: fraction().optional(),
+  /** absolute */
+  poissonRatio: fraction(0.5).optional(),
+  /** relative */
+  gaugeFactor: fraction().optional(),
+  /** absolute (a fraction like Kt itself) */
+  transverseSensitivity: fraction(0.1).optional(),
+  /** degrees */
+  misalignmentDeg: num().gte(0, 'must not be negative').lte(45, 'must be at most 45').optional(),
 });
 
 /**
@@ -105,7 +138,18 @@ export const gaugeSchema = z.object({
     .default(0),
   distanceToDiscontinuity: nonNegative().optional(),
   axialPosition: num().optional(),
+  /** 0–360 from top dead centre, clockwise looking from the reference end (where axialPosition is 0) */
   clockDeg: num().gte(0, 'must be between 0 and 360').lte(360, 'must be between 0 and 360').optional(),
+  /** a perpendicular uniaxial gauge at the same place, by id: its measured strain corrects Kt */
+  pairWith: text().optional(),
+  /** height of the gauge, plan length unit, on the same datum as pressureTapElevation (water head) */
+  elevation: num().optional(),
+  /** resistance of one lead wire in ohm: quarter-bridge lead-wire desensitisation is corrected */
+  leadResistance: nonNegative().optional(),
+  /** nominal gauge resistance in ohm (with leadResistance; 120 when absent) */
+  gaugeResistance: positive().optional(),
+  /** quarter-bridge wiring (with leadResistance): two-wire puts both leads in the gauge's arm, three-wire one */
+  leadWiring: z.enum(LEAD_WIRINGS, oneOf(LEAD_WIRINGS)).optional(),
 });
 
 const CHANNELS_BY_KIND: Record<(typeof GAUGE_KINDS)[number], number> = {
@@ -124,9 +168,19 @@ export const planSchema = z
     model: z.enum(MODELS, oneOf(MODELS)).default('lame'),
     /** plan pressure unit: MPa (SI) or psi (US) */
     testPressure: positive(),
-    columns: z.object({ pressure: text(), time: text().optional() }),
+    columns: z.object({
+      pressure: text(),
+      time: text().optional(),
+      /** barometric pressure for an absolute pressure column, plan pressure unit (default 101.325 kPa) */
+      atmosphericPressure: positive().optional(),
+    }),
     tolerances: tolerancesSchema.prefault({}),
     holdDetection: holdDetectionSchema.prefault({}),
+    uncertainty: uncertaintySchema.optional(),
+    /** density of the test fluid, kg/m³ in both unit systems (water head, with elevations) */
+    testFluidDensity: positive().default(1000),
+    /** height of the pressure tap, plan length unit, same datum as the gauges' elevation */
+    pressureTapElevation: num().optional(),
     gauges: z.array(gaugeSchema, expect('a list of gauges')).min(1, 'must list at least one gauge'),
   })
   .superRefine((plan, ctx) => {
@@ -147,6 +201,8 @@ export const planSchema = z
       issue(['material', 'yieldStrength'], 'must be smaller than the elastic modulus (same unit)');
     if (vessel.shape === 'cylinder' && vessel.length === undefined)
       issue(['vessel', 'length'], 'is required for a cylinder');
+    else if (vessel.shape === 'cylinder' && vessel.length === 0)
+      issue(['vessel', 'length'], 'must be greater than 0 for a cylinder');
     const ids = new Map<string, number>();
     const channels = new Map<string, string>();
     const reserved = new Set([plan.columns.pressure, plan.columns.time].filter(Boolean) as string[]);
@@ -164,6 +220,11 @@ export const planSchema = z
         );
       g.channels.forEach((c, k) => {
         if (reserved.has(c)) issue(['gauges', i, 'channels', k], `'${c}' is the pressure or time column`);
+        else if ((RESERVED_CHANNEL_NAMES as readonly string[]).includes(c))
+          issue(
+            ['gauges', i, 'channels', k],
+            `'${c}' is reserved for the pressure trace of the time history: rename the strain column`,
+          );
         else if (channels.has(c))
           issue(['gauges', i, 'channels', k], `channel '${c}' is already used by gauge ${channels.get(c)}`);
         else channels.set(c, g.id);
@@ -175,12 +236,54 @@ export const planSchema = z
         (g.axialPosition < 0 || g.axialPosition > vessel.length)
       )
         issue(['gauges', i, 'axialPosition'], `must be between 0 and the vessel length ${vessel.length}`);
+      if (g.kind !== 'uniaxial' && g.pairWith !== undefined)
+        issue(['gauges', i, 'pairWith'], 'only a uniaxial gauge pairs with a perpendicular gauge');
+      if (g.leadResistance === undefined && (g.gaugeResistance !== undefined || g.leadWiring !== undefined))
+        issue(['gauges', i, 'leadResistance'], 'is required with gaugeResistance or leadWiring');
     });
+    if (plan.pressureTapElevation === undefined && plan.gauges.some((g) => g.elevation !== undefined))
+      issue(['pressureTapElevation'], 'is required when a gauge gives its elevation (water head)');
+    checkPairs(plan.gauges, issue);
   })
   .transform((plan) => ({
     ...plan,
+    // a sphere has no length: 0 and absent mean the same
+    vessel:
+      plan.vessel.shape === 'sphere' && plan.vessel.length === 0 ? { ...plan.vessel, length: undefined } : plan.vessel,
     gauges: plan.gauges.map((g) => ({ ...g, instrumentGaugeFactor: g.instrumentGaugeFactor ?? g.gaugeFactor })),
   }));
+
+/** Two grids are perpendicular when their directions differ by 90° within this many degrees. */
+export const PERPENDICULAR_TOLERANCE_DEG = 5;
+
+/** Angle between two gauge directions as lines, 0–90°. */
+export function lineAngleBetween(a: number, b: number): number {
+  const d = (((a - b) % 180) + 180) % 180;
+  return Math.min(d, 180 - d);
+}
+
+type PairGauge = Pick<z.infer<typeof gaugeSchema>, 'id' | 'kind' | 'angleDeg' | 'pairWith'>;
+
+/** `pairWith` names another uniaxial gauge, perpendicular to this one, that names no third gauge. */
+function checkPairs(gauges: readonly PairGauge[], issue: (path: (string | number)[], message: string) => void) {
+  const byId = new Map(gauges.map((g) => [g.id, g]));
+  const claimedBy = new Map<string, string>();
+  gauges.forEach((g, i) => {
+    if (g.pairWith === undefined) return;
+    const other = byId.get(g.pairWith);
+    const path = ['gauges', i, 'pairWith'];
+    if (!other) issue(path, `names no gauge of this plan ('${g.pairWith}')`);
+    else if (other.id === g.id) issue(path, 'must name another gauge');
+    else if (other.kind !== 'uniaxial') issue(path, `'${other.id}' is not a uniaxial gauge`);
+    else if (Math.abs(lineAngleBetween(g.angleDeg, other.angleDeg) - 90) > PERPENDICULAR_TOLERANCE_DEG)
+      issue(path, `'${other.id}' is not perpendicular to this gauge (${other.angleDeg}° against ${g.angleDeg}°)`);
+    else if (other.pairWith !== undefined && other.pairWith !== g.id)
+      issue(path, `'${other.id}' is already paired with '${other.pairWith}'`);
+    else if (claimedBy.has(other.id) && claimedBy.get(other.id) !== g.id)
+      issue(path, `'${other.id}' is already paired with '${claimedBy.get(other.id)}'`);
+    else claimedBy.set(other.id, g.id);
+  });
+}
 
 export type Plan = z.infer<typeof planSchema>;
 export type PlanInput = z.input<typeof planSchema>;

@@ -1,10 +1,13 @@
-// Streaming log reader: finds each segment's header, maps the plan's columns, and hands every data
-// row to a callback as numbers. Holds only the current chunk and one partial line. Data lines go
-// through a hand-written byte scanner (numbers converted directly from bytes); lines with quotes
-// or odd content go through papaparse. No node imports: input is any AsyncIterable of bytes or text.
+// Push-style log reader: byte chunks of one segment at a time (cut anywhere), the segment's header
+// found and its columns mapped, every data row handed to a callback as numbers. Holds only one
+// partial line and a sniffing window of 4 KB. Data lines go through the byte number scanner
+// (number-scan.ts); lines with quotes go through papaparse. No node imports: any bytes or text in.
 import { InputError } from './errors';
+import { LineSplitter } from './line-splitter';
+import { latin1, scanNumber, scanned, scanPlainDecimal, skipCell } from './number-scan';
 import type { Plan } from './plan';
-import { pressureFactor, planPressureUnit } from './units';
+import type { PressureConversion } from './types';
+import { planPressureUnit, pressureFactor, standardAtmosphere } from './units';
 import {
   assertTextBytes,
   cleanCell,
@@ -22,19 +25,25 @@ import {
 
 export type ChunkSource = AsyncIterable<Uint8Array | string>;
 
-/** Called for each data row with a finite pressure: time (s from the log's start, or row index), pressure in plan units, channel values (NaN = missing). */
+/**
+ * Called for each data row with a pressure value: time (s from the log's start, or row index),
+ * gauge pressure in plan units, channel values (NaN = missing; the array is reused for every row).
+ */
 export type RowCallback = (t: number, p: number, channels: Float64Array) => void;
 
 const MAX_PREAMBLE_LINES = 1000;
 const MAX_PREAMBLE_BYTES = 1 << 20;
 const MAX_LINE_BYTES = 1 << 20;
-const POW10 = Array.from({ length: 23 }, (_, i) => 10 ** i);
+const SNIFF_BYTES = 4096;
 
 export interface SegmentInfo {
   headerLine: number;
   delimiter: Delimiter;
   encoding: Encoding;
+  /** canonical unit from the header, or null */
   pressureUnit: string | null;
+  /** how the pressure column becomes gauge pressure in the plan's unit; null: no unit, taken as the plan's */
+  conversion: PressureConversion | null;
   rows: number;
 }
 
@@ -50,24 +59,21 @@ export interface ReadSummary {
   warnings: string[];
   /** per mapped column (time, pressure, channels…) the count of numeric cells */
   validCounts: Map<string, number>;
+  /** the highest value of a pressure column without a unit, where it is, and its header text */
+  unitlessPeak: { value: number; line: number; source: number; column: string } | null;
 }
 
-/** Bytes [a, b) of buf (b ≤ buf.length) as Latin-1 text. */
-const latin1 = (buf: Uint8Array, a: number, b: number) => {
-  let s = '';
-  for (let i = a; i < b; i++) s += String.fromCharCode(buf[i]!);
-  return s;
-};
+const fmt = (x: number, digits = 6) => Number(x.toPrecision(digits)).toString();
 
 export class LogReader {
   private readonly plan: Plan;
   private readonly onRow: RowCallback;
-  private readonly nCh: number;
-  /** one value per mapped column: time, pressure, then the channels; colNames and validCounts run parallel */
+  /** one value per mapped column: time, pressure, then the channels; colNames and missingCounts run parallel */
   private readonly vals: Float64Array;
   private readonly chView: Float64Array;
   private readonly colNames: string[];
-  private readonly validCounts: Float64Array;
+  /** per mapped column the rows without a number in it (valid = rows − missing) */
+  private readonly missingCounts: Float64Array;
   private readonly warnings: string[] = [];
   private readonly segments: SegmentInfo[] = [];
   onProgress?: (bytes: number) => void;
@@ -86,10 +92,22 @@ export class LogReader {
   private decimalComma = false;
   private backwardsWarned = false;
   private repeatedHeaders = 0;
+  private unitlessPeak: ReadSummary['unitlessPeak'] = null;
 
   // per-segment state
-  private src = 0;
+  private src = -1;
+  private open = false;
   private lineNo = 0;
+  private splitter: LineSplitter | null = null;
+  private sniffed = false;
+  private sniffBuf: Uint8Array | null = null;
+  private transcoder: TextDecoder | null = null;
+  private headDecoder = new TextDecoder('utf-8');
+  private encoding: Encoding = 'utf-8';
+  private readonly encoder = new TextEncoder();
+  private segment: SegmentInfo | null = null;
+  private preambleBytes = 0;
+  private weak: { found: HeaderFound; line: number } | null = null;
   private delim = 44;
   private allowComma = false;
   /** per header field up to maxField (its last index): the slot in vals, or −1 for an unmapped field */
@@ -97,20 +115,31 @@ export class LogReader {
   private maxField = -1;
   private hasTime = false;
   private factor = 1;
+  private atmosphere = 0;
+  private unitless = false;
+  private pressureHeader = '';
   private segOffset = 0;
   private segFirst = true;
   private headerText = '';
-  private fieldEnd = 0;
 
   constructor(plan: Plan, onRow: RowCallback) {
     this.plan = plan;
     this.onRow = onRow;
     const chans = plan.gauges.flatMap((g) => g.channels);
-    this.nCh = chans.length;
-    this.vals = new Float64Array(2 + this.nCh);
+    this.vals = new Float64Array(2 + chans.length);
     this.chView = this.vals.subarray(2);
     this.colNames = [plan.columns.time ?? '(time)', plan.columns.pressure, ...chans];
-    this.validCounts = new Float64Array(2 + this.nCh);
+    this.missingCounts = new Float64Array(2 + chans.length);
+  }
+
+  /** The physical line last read (1-based, counting preamble and header). */
+  get line(): number {
+    return this.lineNo;
+  }
+
+  /** The segment being read (0-based). */
+  get source(): number {
+    return this.src;
   }
 
   private where(line: number, column?: string) {
@@ -118,121 +147,57 @@ export class LogReader {
     return `${seg}line ${line}${column !== undefined ? `, column '${column}'` : ''}`;
   }
 
-  /** Read one segment (a file with its own preamble and header). */
-  async readSource(source: ChunkSource, index: number): Promise<void> {
-    this.src = index;
+  /** Start the next segment (a file with its own preamble and header). */
+  beginSegment(): void {
+    if (this.open) this.endSegment();
+    this.src++;
+    this.open = true;
     this.lineNo = 0;
     this.segFirst = true;
-    let carry: Uint8Array | null = null;
-    let sniffed = false;
-    let sniffBuf: Uint8Array | null = null;
-    let transcoder: TextDecoder | null = null;
-    let headDecoder = new TextDecoder('utf-8');
-    let encoding: Encoding = 'utf-8';
-    const encoder = new TextEncoder();
-    /** this segment once its header line is found; null while still in the preamble */
-    let segment: SegmentInfo | null = null;
-    let preambleBytes = 0;
-    let weak: { found: HeaderFound; line: number } | null = null;
+    this.sniffed = false;
+    this.sniffBuf = null;
+    this.transcoder = null;
+    this.headDecoder = new TextDecoder('utf-8');
+    this.encoding = 'utf-8';
+    this.segment = null;
+    this.preambleBytes = 0;
+    this.weak = null;
+    this.splitter = new LineSplitter(
+      (buf, a, b) => this.line_(buf, a, b),
+      MAX_LINE_BYTES,
+      () => {
+        throw new InputError(
+          'not-delimited-text',
+          `${this.where(this.lineNo + 1)}: a line longer than 1 MB (not a delimited log?)`,
+          { line: this.lineNo + 1, source: this.src },
+        );
+      },
+    );
+  }
 
-    const preambleLine = (buf: Uint8Array, a: number, b: number) => {
-      preambleBytes += b - a + 1;
-      let text = headDecoder.decode(buf.subarray(a, b));
-      if (this.lineNo === 1) text = text.replace(/^\uFEFF/, '');
-      const { strong, weak: w } = findHeaderLine(this.plan, [text]);
-      if (strong) {
-        segment = this.setupSegment(strong, this.lineNo, encoding);
-        return;
-      }
-      if (w && !weak) weak = { found: w, line: this.lineNo };
-      if (this.lineNo >= MAX_PREAMBLE_LINES || preambleBytes > MAX_PREAMBLE_BYTES) this.failNoHeader(weak);
-    };
+  /** Bytes (or text) of the current segment, in order; a chunk may end anywhere. */
+  push(chunk: Uint8Array | string): void {
+    if (!this.open) this.beginSegment();
+    const raw = typeof chunk === 'string' ? this.encoder.encode(chunk) : chunk;
+    if (raw.length === 0) return;
+    this.bytesRead += raw.length;
+    this.handle(raw, false);
+    this.onProgress?.(this.bytesRead);
+  }
 
-    const processBytes = (buf: Uint8Array, final: boolean) => {
-      let pos = 0;
-      const n = buf.length;
-      if (segment) {
-        const z = buf.indexOf(0);
-        if (z >= 0) assertTextBytes(buf, 0, z + 1, this.lineNo + 1);
-      }
-      while (pos < n) {
-        let nl = buf.indexOf(10, pos);
-        if (nl < 0) {
-          if (!final) break;
-          nl = n;
-        }
-        this.lineNo++;
-        let end = nl;
-        if (end > pos && buf[end - 1] === 13) end--;
-        if (!segment) preambleLine(buf, pos, end);
-        else if (end > pos) this.dataLine(segment, buf, pos, end);
-        pos = nl + 1;
-      }
-      if (pos < n) {
-        if (n - pos > MAX_LINE_BYTES)
-          throw new InputError(
-            'not-delimited-text',
-            `${this.where(this.lineNo + 1)}: a line longer than 1 MB (not a delimited log?)`,
-            { line: this.lineNo + 1, source: index },
-          );
-        carry = buf.slice(pos);
-      } else carry = null;
-    };
-
-    const feed = (bytes: Uint8Array, final: boolean) => {
-      let buf = bytes;
-      if (carry && carry.length) {
-        const joined = new Uint8Array(carry.length + bytes.length);
-        joined.set(carry, 0);
-        joined.set(bytes, carry.length);
-        buf = joined;
-      }
-      carry = null;
-      processBytes(buf, final);
-    };
-
-    const start = (head: Uint8Array) => {
-      const s = sniffBytes(head);
-      encoding = s.encoding;
-      if (encoding === 'utf-16le' || encoding === 'utf-16be') transcoder = new TextDecoder(encoding);
-      if (encoding === 'windows-1252') headDecoder = new TextDecoder('windows-1252');
-      sniffed = true;
-      return head.subarray(s.bomLength);
-    };
-
-    const handle = (raw: Uint8Array, final: boolean) => {
-      let bytes = raw;
-      if (!sniffed) {
-        const acc: Uint8Array = sniffBuf ? concat(sniffBuf, raw) : raw;
-        if (acc.length < 4096 && !final) {
-          sniffBuf = acc;
-          return;
-        }
-        sniffBuf = null;
-        bytes = start(acc);
-      }
-      if (transcoder) bytes = encoder.encode(transcoder.decode(bytes, { stream: !final }));
-      feed(bytes, final);
-    };
-
-    for await (const chunk of source) {
-      const raw =
-        typeof chunk === 'string' ? encoder.encode(chunk) : chunk instanceof Uint8Array ? chunk : new Uint8Array(chunk);
-      if (raw.length === 0) continue;
-      this.bytesRead += raw.length;
-      handle(raw, false);
-      this.onProgress?.(this.bytesRead);
-    }
-    handle(new Uint8Array(0), true);
-    const leftover = carry as Uint8Array | null;
-    if (leftover && leftover.length) processBytes(leftover, true);
-    if (!segment) {
+  /** The end of the current segment: its last line, and an error when it had no header. */
+  endSegment(): void {
+    if (!this.open) this.beginSegment();
+    this.handle(new Uint8Array(0), true);
+    this.splitter?.finish();
+    this.open = false;
+    if (!this.segment) {
       if (this.lineNo === 0)
-        throw new InputError('no-data', index > 0 ? `log ${index + 1} is empty` : 'the log is empty', {
+        throw new InputError('no-data', this.src > 0 ? `log ${this.src + 1} is empty` : 'the log is empty', {
           line: 1,
-          source: index,
+          source: this.src,
         });
-      this.failNoHeader(weak);
+      this.failNoHeader(this.weak);
     }
     if (this.repeatedHeaders > 0) {
       this.warnings.push(
@@ -240,6 +205,58 @@ export class LogReader {
       );
       this.repeatedHeaders = 0;
     }
+  }
+
+  /** Read one whole segment from an async source (a stream, an S3 body). */
+  async readSource(source: ChunkSource): Promise<void> {
+    this.beginSegment();
+    for await (const chunk of source)
+      this.push(chunk instanceof Uint8Array || typeof chunk === 'string' ? chunk : new Uint8Array(chunk));
+    this.endSegment();
+  }
+
+  private handle(raw: Uint8Array, final: boolean) {
+    let bytes = raw;
+    if (!this.sniffed) {
+      const acc: Uint8Array = this.sniffBuf ? concat(this.sniffBuf, raw) : raw;
+      if (acc.length < SNIFF_BYTES && !final) {
+        this.sniffBuf = acc;
+        return;
+      }
+      this.sniffBuf = null;
+      const s = sniffBytes(acc);
+      this.encoding = s.encoding;
+      if (s.encoding === 'utf-16le' || s.encoding === 'utf-16be') this.transcoder = new TextDecoder(s.encoding);
+      if (s.encoding === 'windows-1252') this.headDecoder = new TextDecoder('windows-1252');
+      this.sniffed = true;
+      bytes = acc.subarray(s.bomLength);
+    }
+    if (this.transcoder) bytes = this.encoder.encode(this.transcoder.decode(bytes, { stream: !final }));
+    if (bytes.length === 0) return;
+    if (this.segment) {
+      const z = bytes.indexOf(0);
+      if (z >= 0) assertTextBytes(bytes, 0, z + 1, this.lineNo + 1);
+    }
+    this.splitter!.push(bytes);
+  }
+
+  private line_(buf: Uint8Array, a: number, b: number) {
+    this.lineNo++;
+    if (!this.segment) this.preambleLine(buf, a, b);
+    else if (b > a) this.dataLine(this.segment, buf, a, b);
+  }
+
+  private preambleLine(buf: Uint8Array, a: number, b: number) {
+    this.preambleBytes += b - a + 1;
+    let text = this.headDecoder.decode(buf.subarray(a, b));
+    if (this.lineNo === 1) text = text.replace(/^\uFEFF/, '');
+    const { strong, weak } = findHeaderLine(this.plan, [text]);
+    if (strong) {
+      this.segment = this.setupSegment(strong, this.lineNo);
+      return;
+    }
+    if (weak && !this.weak) this.weak = { found: weak, line: this.lineNo };
+    if (this.lineNo >= MAX_PREAMBLE_LINES || this.preambleBytes > MAX_PREAMBLE_BYTES) this.failNoHeader(this.weak);
   }
 
   /** The header at `line` lacks the `missing` columns (the pressure column when the list is empty). */
@@ -262,7 +279,7 @@ export class LogReader {
     );
   }
 
-  private setupSegment(found: HeaderFound, line: number, encoding: Encoding): SegmentInfo {
+  private setupSegment(found: HeaderFound, line: number): SegmentInfo {
     const m = mapColumns(this.plan, found.cells);
     const [duplicate] = m.duplicate;
     if (duplicate !== undefined)
@@ -273,12 +290,14 @@ export class LogReader {
       );
     const pressureHeader = found.cells[m.pressure]; // undefined when the pressure column is missing (-1)
     if (m.missing.length > 0 || pressureHeader === undefined) throw this.missingColumnError(line, m.missing);
-    const unit = resolvePressureUnit(m.pressureUnit, pressureHeader, line);
-    const planUnit = planPressureUnit(this.plan.units);
-    this.factor = unit ? pressureFactor(unit, planUnit) : 1;
-    if (unit && unit !== planUnit)
+    const conversion = this.pressureConversion(resolvePressureUnit(m.pressureUnit, pressureHeader, line));
+    this.factor = conversion?.factor ?? 1;
+    this.atmosphere = conversion?.atmosphere ?? 0;
+    this.unitless = conversion === null;
+    this.pressureHeader = pressureHeader;
+    if (conversion && (conversion.fromUnit !== conversion.toUnit || conversion.absolute))
       this.warnings.push(
-        `${this.segments.length ? `log ${this.src + 1}: ` : ''}pressure column '${pressureHeader}' is in ${unit}; converted to ${planUnit} (the plan's pressure unit)`,
+        `${this.segments.length ? `log ${this.src + 1}: ` : ''}pressure column '${pressureHeader}' is ${describeConversion(conversion)}`,
       );
     this.delim = found.delimiter.charCodeAt(0);
     this.allowComma = found.delimiter !== ',';
@@ -293,114 +312,67 @@ export class LogReader {
     const segment: SegmentInfo = {
       headerLine: line,
       delimiter: found.delimiter,
-      encoding,
-      pressureUnit: unit,
+      encoding: this.encoding,
+      pressureUnit: conversion?.fromUnit ?? null,
+      conversion,
       rows: 0,
     };
     this.segments.push(segment);
     return segment;
   }
 
-  /** Fast path: false when the line needs the general (quote-aware) path. */
+  /** Scale and offset that turn the header's unit into gauge pressure in the plan's unit. */
+  private pressureConversion(spec: { unit: string; absolute: boolean } | null): PressureConversion | null {
+    if (!spec) return null;
+    const toUnit = planPressureUnit(this.plan.units);
+    const given = this.plan.columns.atmosphericPressure;
+    const atmosphere = spec.absolute ? (given ?? standardAtmosphere(toUnit)) : 0;
+    return {
+      fromUnit: spec.unit,
+      toUnit,
+      absolute: spec.absolute,
+      factor: pressureFactor(spec.unit, toUnit),
+      atmosphere,
+      atmosphereSource: spec.absolute ? (given !== undefined ? 'plan' : 'standard') : 'none',
+    };
+  }
+
+  /**
+   * Fast path: false when the line needs the general (quote-aware) path. Every mapped slot is
+   * written: a value, or NaN for a cell the line does not reach.
+   */
   private scanLine(buf: Uint8Array, s: number, e: number): boolean {
     const vals = this.vals;
     const map = this.fieldSlot;
     const maxField = this.maxField;
     const delim = this.delim;
     let i = s;
-    for (let field = 0; field <= maxField; field++) {
+    let field = 0;
+    for (; field <= maxField; field++) {
       const slot = map[field]!; // field ≤ maxField, the last index of map
       if (slot >= 0) {
-        const v = this.parseField(buf, i, e);
-        if (v === -Infinity) return false; // quote
-        if (slot === 0 && v !== v && this.timeMode !== 'seconds') vals[0] = this.isoField(buf, i, this.fieldEnd);
-        else vals[slot] = v;
-        i = this.fieldEnd;
-      } else {
-        while (i < e) {
-          const c = buf[i];
-          if (c === delim) break;
-          if (c === 34) return false;
-          i++;
+        let v = scanPlainDecimal(buf, i, e, delim);
+        if (scanned.end < 0) {
+          v = scanNumber(buf, i, e, delim, this.allowComma);
+          if (scanned.quoted) return false;
+          if (scanned.comma) this.decimalComma = true;
+          if (slot === 0 && v !== v && this.timeMode !== 'seconds') v = this.isoField(buf, i, scanned.end);
         }
+        vals[slot] = v;
+        i = scanned.end;
+      } else {
+        i = skipCell(buf, i, e, delim);
+        if (i < 0) return false;
       }
       if (i >= e) break;
       i++; // the delimiter
     }
+    // a short line: the cells it does not reach are missing
+    for (field++; field <= maxField; field++) {
+      const slot = map[field]!;
+      if (slot >= 0) vals[slot] = NaN;
+    }
     return true;
-  }
-
-  /**
-   * A number from bytes [i, …) up to the delimiter; NaN for empty or not a number; −Infinity when quoted. Sets
-   * fieldEnd. Hot: every byte read is at j < e ≤ buf.length, and POW10 covers the exponents |e10| ≤ 22 it is used for.
-   */
-  private parseField(buf: Uint8Array, i: number, e: number): number {
-    const delim = this.delim;
-    let j = i;
-    while (j < e && buf[j] === 32) j++;
-    if (j < e && buf[j] === 34) return -Infinity;
-    const start = j;
-    let neg = false;
-    let c = j < e ? buf[j]! : 0;
-    if (c === 45) {
-      neg = true;
-      j++;
-    } else if (c === 43) j++;
-    let mant = 0,
-      digits = 0,
-      frac = 0,
-      sep = false,
-      comma = false;
-    for (; j < e; j++) {
-      c = buf[j]!;
-      if (c >= 48 && c <= 57) {
-        mant = mant * 10 + (c - 48);
-        digits++;
-        if (sep) frac++;
-      } else if (c === 46 && !sep) sep = true;
-      else if (c === 44 && !sep && this.allowComma) {
-        sep = true;
-        comma = true;
-      } else break;
-    }
-    let exp = 0;
-    let ok = digits > 0;
-    if (ok && j < e && (c === 101 || c === 69)) {
-      j++;
-      let eneg = false;
-      c = j < e ? buf[j]! : 0;
-      if (c === 45 || c === 43) {
-        eneg = c === 45;
-        j++;
-      }
-      let ed = 0;
-      while (j < e && (c = buf[j]!) >= 48 && c <= 57) {
-        exp = exp * 10 + (c - 48);
-        ed++;
-        j++;
-      }
-      if (ed === 0) ok = false;
-      if (eneg) exp = -exp;
-    }
-    while (j < e && buf[j] === 32) j++;
-    if (j < e && buf[j] !== delim) {
-      ok = false;
-      while (j < e && buf[j] !== delim) {
-        if (buf[j] === 34) return -Infinity;
-        j++;
-      }
-    }
-    this.fieldEnd = j;
-    if (!ok) return NaN;
-    if (comma) this.decimalComma = true;
-    let v: number;
-    const e10 = exp - frac;
-    if (digits > 15 || e10 > 22 || e10 < -22) v = parseNumberText(latin1(buf, start, j), this.allowComma);
-    else {
-      v = e10 === 0 ? mant : e10 > 0 ? mant * POW10[e10]! : mant / POW10[-e10]!;
-      if (neg) v = -v;
-    }
-    return Number.isFinite(v) ? v : NaN;
   }
 
   private isoField(buf: Uint8Array, a: number, b: number): number {
@@ -431,8 +403,10 @@ export class LogReader {
 
   private dataLine(segment: SegmentInfo, buf: Uint8Array, s: number, e: number) {
     const vals = this.vals;
-    vals.fill(NaN);
-    if (!this.scanLine(buf, s, e)) this.slowLine(new TextDecoder().decode(buf.subarray(s, e)));
+    if (!this.scanLine(buf, s, e)) {
+      vals.fill(NaN);
+      this.slowLine(new TextDecoder().decode(buf.subarray(s, e)));
+    }
     // a blank line (only spaces and delimiters) is skipped
     let any = false;
     for (let k = this.hasTime ? 0 : 1; k < vals.length; k++)
@@ -463,6 +437,7 @@ export class LogReader {
   /** k: a slot of vals, which colNames parallels */
   private noteMissing(k: number) {
     this.missing++;
+    this.missingCounts[k]!++;
     if (!this.firstMissing) this.firstMissing = { line: this.lineNo, column: this.colNames[k]!, source: this.src };
   }
 
@@ -470,12 +445,8 @@ export class LogReader {
     const vals = this.vals;
     segment.rows++;
     const rowIndex = this.rows++;
-    const counts = this.validCounts;
-    // vals and counts have the same fixed length (time, pressure, channels)
-    for (let k = 1; k < vals.length; k++) {
-      if (vals[k] === vals[k]) counts[k]!++;
-      else this.noteMissing(k);
-    }
+    // vals has a fixed length (time, pressure, channels)
+    for (let k = 1; k < vals.length; k++) if (vals[k] !== vals[k]) this.noteMissing(k);
     let t: number;
     if (!this.hasTime) {
       t = rowIndex;
@@ -486,7 +457,6 @@ export class LogReader {
         this.noteMissing(0);
         t = this.lastT === this.lastT ? this.lastT + (this.lastT - this.prevT || 0) : rowIndex;
       } else {
-        counts[0]!++;
         if (this.timeMode === null) this.timeMode = 'seconds';
         if (this.origin !== this.origin) {
           this.origin = raw;
@@ -512,14 +482,17 @@ export class LogReader {
     this.prevT = this.lastT;
     this.lastT = t;
     const p = vals[1]!;
-    if (p === p) this.onRow(t, p * this.factor, this.chView);
+    if (p !== p) return;
+    if (this.unitless && (this.unitlessPeak === null || p > this.unitlessPeak.value))
+      this.unitlessPeak = { value: p, line: this.lineNo, source: this.src, column: this.pressureHeader };
+    this.onRow(t, p * this.factor - this.atmosphere, this.chView);
   }
 
   summary(): ReadSummary {
     const validCounts = new Map<string, number>();
     this.colNames.forEach((name, k) => {
       if (k === 0 && !this.plan.columns.time) return;
-      validCounts.set(name, this.validCounts[k]!); // parallel to colNames from the constructor on
+      validCounts.set(name, this.rows - this.missingCounts[k]!); // parallel to colNames from the constructor on
     });
     return {
       rows: this.rows,
@@ -532,8 +505,21 @@ export class LogReader {
       segments: this.segments,
       warnings: this.warnings,
       validCounts,
+      unitlessPeak: this.unitlessPeak,
     };
   }
+}
+
+/**
+ * How a pressure column was converted, in words: "in bar; converted to MPa (the plan's pressure
+ * unit)", or for absolute pressure "absolute pressure in bar(a); converted to MPa (× 0.1) and to
+ * gauge pressure by subtracting the standard atmosphere 0.101325 MPa".
+ */
+export function describeConversion(c: PressureConversion): string {
+  if (!c.absolute) return `in ${c.fromUnit}; converted to ${c.toUnit} (the plan's pressure unit)`;
+  const scale = c.fromUnit !== c.toUnit ? ` (× ${fmt(c.factor)})` : '';
+  const atm = c.atmosphereSource === 'plan' ? "the plan's atmospheric pressure" : 'the standard atmosphere';
+  return `absolute pressure in ${c.fromUnit}; converted to ${c.toUnit}${scale} and to gauge pressure by subtracting ${atm} ${fmt(c.atmosphere)} ${c.toUnit}`;
 }
 
 function concat(a: Uint8Array, b: Uint8Array): Uint8Array {

@@ -9,6 +9,8 @@ import {
   edgeZoneDistance,
   distanceToNearestDiscontinuity,
   predictForPlan,
+  dimensionChanges,
+  yieldCheckAt,
   type ShellInput,
 } from './shell';
 import { demoPlan } from './testing/fixtures';
@@ -51,6 +53,96 @@ describe('Lamé — REFERENCES.md, Timoshenko Strength of Materials II [memory],
   it('σr is −p at the bore and 0 at the outer surface', () => {
     expect(lameStressAt(50, 100, 120, 100, 'cylinder').radial).toBeCloseTo(-50, 10);
     expect(lameStressAt(50, 100, 120, 120, 'cylinder').radial).toBeCloseTo(0, 10);
+  });
+});
+
+describe('Lamé with open ends — REFERENCES.md Lamé formulas with σz = 0 [derived here]', () => {
+  // a 100, b 120, p 50: A = 50·100²/(120² − 100²) = 113.636; outer εθ = 2A/E = 1136.36 µε, εz = −ν·2A/E = −340.91 µε
+  const open = lameOuterState(50, 100, 120, 200000, 0.3, 'cylinder', 'open');
+  it.each([
+    ['εθ(b) µε', micro(open.hoopStrain), 1136.36],
+    ['εz µε', micro(open.axialStrain), -340.91],
+    ['σz', open.axialStress, 0],
+  ])('%s', (_n, got, want) => expect(Math.abs(got - want)).toBeLessThan(0.006));
+  it('σz is 0 at every radius', () => expect(lameStressAt(50, 100, 120, 110, 'cylinder', 'open').axial).toBe(0));
+});
+
+describe('named dimension changes at pressure — hand values [derived here]', () => {
+  const thin: ShellInput = {
+    shape: 'cylinder',
+    ends: 'closed',
+    insideDiameter: 990, // mean radius 500 mm with t 10, the REFERENCES thin check
+    wallThickness: 10,
+    length: 2000,
+    elasticModulus: 200000,
+    poissonRatio: 0.3,
+    yieldStrength: 300,
+    testPressure: 2,
+  };
+  // membrane: εh 425, εa 100, εr −225 µε → ΔDm = 425e-6·1000 = 0.425; Δt = −225e-6·10 = −0.00225;
+  // ΔDi = ΔDm − Δt = 0.42725; ΔDo = ΔDm + Δt = 0.42275; ΔL = 100e-6·2000 = 0.2 mm
+  it.each([
+    ['meanDiameter', 0.425],
+    ['insideDiameter', 0.42725],
+    ['outsideDiameter', 0.42275],
+    ['thickness', -0.00225],
+    ['length', 0.2],
+  ] as const)('membrane %s', (key, want) => expect(dimensionChanges(thin, 'membrane', 2)[key]!).toBeCloseTo(want, 9));
+  const thick: ShellInput = {
+    ...thin,
+    insideDiameter: 200,
+    wallThickness: 20,
+    length: 1000,
+    testPressure: 50,
+  };
+  // Lamé a 100, b 120, p 50: at the bore σθ 277.273, σr −50, σz 113.636 → εθ(a) = (277.273 − 0.3·63.636)/E
+  // = 1290.91 µε, ΔDi = 200·εθ(a) = 0.25818; outer εθ 965.91 µε → ΔDo = 240·965.91e-6 = 0.23182;
+  // Δt = (ΔDo − ΔDi)/2 = −0.01318; εz = 227.27 µε → ΔL = 0.22727 mm
+  it.each([
+    ['insideDiameter', 0.25818],
+    ['outsideDiameter', 0.23182],
+    ['meanDiameter', 0.245],
+    ['thickness', -0.01318],
+    ['length', 0.22727],
+  ] as const)('Lamé %s', (key, want) =>
+    expect(Math.abs(dimensionChanges(thick, 'lame', 50)[key]! - want)).toBeLessThan(6e-6),
+  );
+  it('predictShell reports them by name for both models, and a sphere has no length change', () => {
+    expect(predictShell(thick, 'lame').dimensionChanges).toEqual(dimensionChanges(thick, 'lame', 50));
+    expect(predictShell(thin, 'membrane').dimensionChanges.meanDiameter).toBeCloseTo(0.425, 9);
+    expect(dimensionChanges({ ...thin, shape: 'sphere', length: undefined }, 'lame', 2).length).toBeNull();
+  });
+});
+
+describe('yield check — REFERENCES "Added for engine v2" [derived from Lamé]', () => {
+  const thick: ShellInput = {
+    shape: 'cylinder',
+    ends: 'closed',
+    insideDiameter: 200,
+    wallThickness: 40,
+    length: 1000,
+    elasticModulus: 200000,
+    poissonRatio: 0.3,
+    yieldStrength: 300,
+    testPressure: 80,
+  };
+  it('Lamé: von Mises at the bore √3·p·b²/(b² − a²) = 282.90 MPa, 0.943 of yield, the inner surface', () => {
+    // REFERENCES prints 282.87; √3·80·19600/9600 and its listed stresses (246.67, −80, 83.33) give 282.90
+    const y = yieldCheckAt(thick, 'lame', 80);
+    expect(y.stress).toBeCloseTo(282.9, 2);
+    expect(y.fraction).toBeCloseTo(0.943, 3);
+    expect(y.surface).toBe('inner');
+    expect(predictShell(thick, 'lame').yieldFraction).toBeCloseTo(0.943, 3);
+  });
+  it('membrane: σh 240, σa 120 MPa with the mean radius 120 mm, von Mises 207.85 MPa mid-wall', () => {
+    const y = yieldCheckAt(thick, 'membrane', 80);
+    expect(y.stress).toBeCloseTo(207.85, 2);
+    expect(y.surface).toBe('mid-wall');
+  });
+  it('at the outer surface the von Mises stress is only 144.34 MPa: the bore governs', () => {
+    const s = lameOuterState(80, 100, 140, 200000, 0.3, 'cylinder');
+    expect(s.hoopStress).toBeCloseTo(166.67, 2);
+    expect(Math.sqrt(s.hoopStress ** 2 - s.hoopStress * s.axialStress + s.axialStress ** 2)).toBeCloseTo(144.34, 2);
   });
 });
 
@@ -120,8 +212,12 @@ describe('effective thickness (solves the model backwards)', () => {
 });
 
 describe('edge zone and distance to discontinuities (DESIGN 3.3, 4.1)', () => {
-  it('2.5·√(r t) with the mean radius', () =>
-    expect(edgeZoneDistance(1800, 16)).toBeCloseTo(2.5 * Math.sqrt(908 * 16), 10));
+  it('at 2.5·√(r t) an edge disturbance e^(−βx) has decayed to about 4 % (β⁴ = 3(1 − ν²)/(r² t²), Timoshenko and Woinowsky-Krieger ch. 15, from memory)', () => {
+    const x = edgeZoneDistance(1800, 16);
+    expect(x).toBeCloseTo(301.33, 2); // 2.5·√(908 mm · 16 mm) by hand
+    const beta = (3 * (1 - 0.3 ** 2)) ** 0.25 / Math.sqrt(908 * 16);
+    expect(Math.exp(-beta * x)).toBeCloseTo(0.04, 2);
+  });
   const plan = demoPlan({
     vessel: {
       shape: 'cylinder',

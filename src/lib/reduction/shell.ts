@@ -1,7 +1,7 @@
 // Predicted strain of an elastic shell under internal pressure (DESIGN 3.1). Pure arithmetic in
 // the plan's own consistent units (MPa + mm, or psi + in): strains per unit pressure come out in
 // µε per plan pressure unit. Importable in the browser (the plan editor's live preview).
-import type { ModelPrediction, PredictedBlock, ShellModel } from './types';
+import type { DimensionChanges, ModelPrediction, PredictedBlock, ShellModel, YieldCheck } from './types';
 import type { Plan, PlanGauge } from './plan';
 
 export type Shape = 'cylinder' | 'sphere';
@@ -99,8 +99,75 @@ export function strainAtAngle(axial: number, hoop: number, angleDeg: number): nu
   return axial * c * c + hoop * s * s;
 }
 
-function vonMises3(s1: number, s2: number, s3: number): number {
+/** von Mises of three principal stresses. */
+export function vonMises3(s1: number, s2: number, s3: number): number {
   return Math.sqrt(0.5 * ((s1 - s2) ** 2 + (s2 - s3) ** 2 + (s3 - s1) ** 2));
+}
+
+/** Hoop strain at radius r of the Lamé field (σ from lameStressAt); sphere: both tangential stresses are σt. */
+function lameHoopStrain(s: { hoop: number; radial: number; axial: number }, E: number, nu: number, shape: Shape) {
+  return shape === 'sphere' ? (s.hoop - nu * (s.hoop + s.radial)) / E : (s.hoop - nu * (s.radial + s.axial)) / E;
+}
+
+/**
+ * Named dimension changes at pressure p. Lamé: u(r) = r·εθ(r) at the bore and the outer surface,
+ * Δt = u(b) − u(a). Membrane: the hoop strain at the mean radius, the wall thinning by εr·t
+ * split evenly to both faces.
+ */
+export function dimensionChanges(input: ShellInput, model: ShellModel, p: number): DimensionChanges {
+  const { shape, insideDiameter: Di, wallThickness: t, elasticModulus: E, poissonRatio: nu } = input;
+  const ends = input.ends ?? 'closed';
+  const a = Di / 2;
+  const b = a + t;
+  const L = shape === 'cylinder' && input.length !== undefined && input.length > 0 ? input.length : null;
+  if (model === 'lame') {
+    const inner = lameStressAt(p, a, b, a, shape, ends);
+    const outer = lameStressAt(p, a, b, b, shape, ends);
+    const dDi = 2 * a * lameHoopStrain(inner, E, nu, shape);
+    const dDo = 2 * b * lameHoopStrain(outer, E, nu, shape);
+    const axialStrain = lameOuterState(p, a, b, E, nu, shape, ends).axialStrain; // uniform through the wall
+    return {
+      insideDiameter: dDi,
+      meanDiameter: (dDi + dDo) / 2,
+      outsideDiameter: dDo,
+      length: L === null ? null : axialStrain * L,
+      thickness: (dDo - dDi) / 2,
+    };
+  }
+  const m = membraneState(p, a + t / 2, t, E, nu, shape, ends);
+  const dDm = m.hoopStrain * (Di + t);
+  const dt = m.radialStrain * t;
+  return {
+    insideDiameter: dDm - dt,
+    meanDiameter: dDm,
+    outsideDiameter: dDm + dt,
+    length: L === null ? null : m.axialStrain * L,
+    thickness: dt,
+  };
+}
+
+/**
+ * The largest stress in the wall at pressure p against yield (DESIGN 3.1): under Lamé the von Mises
+ * stress at the bore (√3·p·b²/(b² − a²) for a closed cylinder) or the membrane value if larger;
+ * under membrane the membrane von Mises (plane stress, mean radius).
+ */
+export function yieldCheckAt(input: ShellInput, model: ShellModel, p: number): YieldCheck {
+  const { shape, insideDiameter: Di, wallThickness: t, elasticModulus: E, poissonRatio: nu } = input;
+  const ends = input.ends ?? 'closed';
+  const a = Di / 2;
+  const m = membraneState(p, a + t / 2, t, E, nu, shape, ends);
+  const membrane = vonMises3(m.hoopStress, m.axialStress, 0);
+  let stress = membrane;
+  let surface: YieldCheck['surface'] = 'mid-wall';
+  if (model === 'lame') {
+    const bore = lameStressAt(p, a, a + t, a, shape, ends);
+    const atBore = vonMises3(bore.hoop, bore.radial, bore.axial);
+    if (atBore >= membrane) {
+      stress = atBore;
+      surface = 'inner';
+    }
+  }
+  return { stress, fraction: stress / input.yieldStrength, surface, pressure: p };
 }
 
 /**
@@ -117,20 +184,8 @@ export function predictShell(input: ShellInput, model: ShellModel): ModelPredict
     model === 'lame' ? lameOuterState(1, a, b, E, nu, shape, ends) : membraneState(1, a + t / 2, t, E, nu, shape, ends);
   const atTest =
     model === 'lame' ? lameOuterState(p, a, b, E, nu, shape, ends) : membraneState(p, a + t / 2, t, E, nu, shape, ends);
-  let diameterChange: number, thicknessChange: number, yieldFraction: number;
-  if (model === 'lame') {
-    diameterChange = atTest.hoopStrain * 2 * b; // outer diameter
-    const inner = lameStressAt(p, a, b, a, shape, ends);
-    const outer = lameStressAt(p, a, b, b, shape, ends);
-    const epsHoop = (s: { hoop: number; radial: number; axial: number }) =>
-      shape === 'sphere' ? (s.hoop - nu * (s.hoop + s.radial)) / E : (s.hoop - nu * (s.radial + s.axial)) / E;
-    thicknessChange = b * epsHoop(outer) - a * epsHoop(inner); // u(b) − u(a), u = r εθ
-    yieldFraction = vonMises3(inner.hoop, inner.radial, inner.axial) / input.yieldStrength; // at the bore
-  } else {
-    diameterChange = atTest.hoopStrain * (Di + t); // mean diameter
-    thicknessChange = atTest.radialStrain * t;
-    yieldFraction = Math.max(Math.abs(atTest.hoopStress), Math.abs(atTest.axialStress)) / input.yieldStrength;
-  }
+  const dims = dimensionChanges(input, model, p);
+  const yieldCheck = yieldCheckAt(input, model, p);
   return {
     model,
     hoopStrainPerPressure: perUnit.hoopStrain * 1e6,
@@ -138,10 +193,12 @@ export function predictShell(input: ShellInput, model: ShellModel): ModelPredict
     radialStrainPerPressure: perUnit.radialStrain * 1e6,
     hoopStress: atTest.hoopStress,
     axialStress: atTest.axialStress,
-    diameterChange,
-    lengthChange: input.length !== undefined ? atTest.axialStrain * input.length : 0,
-    thicknessChange,
-    yieldFraction,
+    dimensionChanges: dims,
+    diameterChange: model === 'lame' ? dims.outsideDiameter : dims.meanDiameter,
+    lengthChange: dims.length ?? 0,
+    thicknessChange: dims.thickness,
+    yieldCheck,
+    yieldFraction: yieldCheck.fraction,
   };
 }
 

@@ -138,3 +138,42 @@ export function interpolateSorted(xs: readonly number[], ys: readonly number[], 
   if (x1 === x0) return (y0 + y1) / 2;
   return y0 + ((y1 - y0) * (x - x0)) / (x1 - x0);
 }
+
+/** Two-sided 95 % interval half-width factor for an effective sample count (dof = nEff − 2, at least 1). */
+function tForEffective(nEff: number): number {
+  return tQuantile975(Math.max(1, nEff - 2));
+}
+
+export interface SerialCorrelation {
+  /** lag-1 autocorrelation of the block-mean residuals (0 when negative) */
+  rho: number;
+  /** block means used */
+  blocks: number;
+  /** effective sample count n(1 − ρ)/(1 + ρ) of the block means (Bartlett) */
+  effective: number;
+  /** standard error of the slope allowing for it, and its 95 % half-width */
+  slopeSE: number;
+  halfWidth95: number;
+}
+
+/**
+ * The slope's uncertainty from block means that allows for serial correlation: a least-squares fit
+ * of the block means, the lag-1 autocorrelation ρ of its residuals, n_eff = n(1 − ρ)/(1 + ρ)
+ * (Bartlett, common practice), SE = SE_blocks·√(n/n_eff), Student t with n_eff − 2 degrees of
+ * freedom. `sums` holds, from `offset`: n, Σx, Σy, Σx², Σxy, Σy², and over consecutive pairs m,
+ * Σyy', Σ(xy' + x'y), Σxx', Σ(y + y'), Σ(x + x'). Null with fewer than 4 blocks.
+ */
+export function serialCorrelationFromBlockSums(sums: Float64Array, offset: number): SerialCorrelation | null {
+  const fit = fitFromSums(sums, offset);
+  const [m = 0, syy1 = 0, sxy1 = 0, sxx1 = 0, sy1 = 0, sx1 = 0] = sums.subarray(offset + 6, offset + 12);
+  if (!fit || fit.n < 4 || fit.slopeSE === null || fit.residualSD === null) return null;
+  const b = fit.slope,
+    a = fit.intercept;
+  // Σ e_i e_{i−1} with e = y − a − b x, expanded over the pair sums
+  const lagged = syy1 - a * sy1 - b * sxy1 + a * a * m + a * b * sx1 + b * b * sxx1;
+  const sse = fit.residualSD * fit.residualSD * (fit.n - 2);
+  const rho = sse > 0 && m > 0 ? Math.min(0.999, Math.max(0, lagged / sse)) : 0;
+  const effective = (fit.n * (1 - rho)) / (1 + rho);
+  const slopeSE = fit.slopeSE * Math.sqrt(fit.n / effective);
+  return { rho, blocks: fit.n, effective, slopeSE, halfWidth95: tForEffective(effective) * slopeSE };
+}

@@ -2,7 +2,7 @@
 // column mapping. Shared by inspectLogHead (the upload endpoint's quick check) and the streaming reader.
 import Papa from 'papaparse';
 import { InputError } from './errors';
-import { normalizePressureUnit } from './units';
+import { parsePressureUnit, type PressureUnitSpec } from './units';
 import type { Plan } from './plan';
 
 export type Delimiter = ',' | ';' | '\t';
@@ -110,14 +110,23 @@ export function splitCells(line: string, delimiter: Delimiter): string[] {
   return r.data[0] ?? [''];
 }
 
-const UNIT_SUFFIX = /^(.*?)\s*\[([^\]]*)\]\s*$/;
+const BRACKET_SUFFIX = /^(.*?)\s*\[([^\]]*)\]\s*$/;
+/** a parenthesised suffix with at most one nested pair: `P (bar)`, `P (bar(a))` */
+const PAREN_SUFFIX = /^(.*?)\s*\(((?:[^()]|\([^()]*\))*)\)\s*$/;
 
-/** `P [MPa]` → { base: 'P', unit: 'MPa' }; `SG1` → { base: 'SG1', unit: null }. */
+/**
+ * `P [MPa]` → { base: 'P', unit: 'MPa' }; `P (bar)` → { base: 'P', unit: 'bar' }; `SG1` → { base: 'SG1', unit: null }.
+ * Brackets always hold a unit (an unknown one is refused later); parentheses count as a unit only
+ * when they hold a pressure unit, so `Pressure (PT-101)` stays one name.
+ */
 export function splitUnit(name: string): { base: string; unit: string | null } {
   const s = cleanCell(name);
-  const [, base, unit] = UNIT_SUFFIX.exec(s) ?? [];
-  if (base === undefined || unit === undefined) return { base: s, unit: null };
-  return { base: base.trim(), unit: unit.trim() };
+  const [, base, unit] = BRACKET_SUFFIX.exec(s) ?? [];
+  if (base !== undefined && unit !== undefined) return { base: base.trim(), unit: unit.trim() };
+  const [, pBase, pUnit] = PAREN_SUFFIX.exec(s) ?? [];
+  if (pBase !== undefined && pUnit !== undefined && pBase.trim() && parsePressureUnit(pUnit))
+    return { base: pBase.trim(), unit: pUnit.trim() };
+  return { base: s, unit: null };
 }
 
 export function cleanCell(cell: string): string {
@@ -212,14 +221,14 @@ export function findHeaderLine(
   return { strong: null, weak };
 }
 
-/** Canonical log pressure unit, or throw unknown-pressure-unit. */
-export function resolvePressureUnit(unit: string | null, column: string, line: number): string | null {
+/** The pressure unit written in the header (canonical, with absolute or gauge), or throw unknown-pressure-unit. */
+export function resolvePressureUnit(unit: string | null, column: string, line: number): PressureUnitSpec | null {
   if (unit === null) return null;
-  const u = normalizePressureUnit(unit);
+  const u = parsePressureUnit(unit);
   if (!u)
     throw new InputError(
       'unknown-pressure-unit',
-      `line ${line}, column '${column}': unknown pressure unit [${unit}] (use MPa, kPa, bar or psi)`,
+      `line ${line}, column '${column}': unknown pressure unit [${unit}] (use MPa, kPa, bar or psi; bar(a), psia or kPa abs for absolute pressure)`,
       { line, column },
     );
   return u;

@@ -1,2 +1,2 @@
 /** Version of the reduction engine, recorded with every result (bump on any change of numbers). */
-export const ENGINE_VERSION = '1.0.0';
+export const ENGINE_VERSION = '2.0.0';

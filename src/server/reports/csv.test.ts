@@ -9,6 +9,7 @@ import {
   buildReleasedReportInput,
   buildSiReportInput,
   buildUsReportInput,
+  engine2Input,
 } from './testing/report-fixture';
 
 interface ParsedCsv {
@@ -56,11 +57,21 @@ const SI_GAUGE_COLUMNS = [
   'deviation_pct',
   'slope_ci95_low_ue_per_MPa',
   'slope_ci95_high_ue_per_MPa',
+  'band_low_ue_per_MPa',
+  'band_high_ue_per_MPa',
+  'band_basis',
+  'predicted_u95_ue_per_MPa',
+  'dominant_uncertainty_input',
+  'dominant_uncertainty_share_pct',
   'r_squared',
   'unloading_slope_ue_per_MPa',
   'hysteresis_pct',
   'zero_shift_ue',
   'peak_strain_ue',
+  'hold_creep_ue',
+  'transverse_correction',
+  'paired_with',
+  'water_head_MPa',
   'effective_thickness_mm',
   'distance_to_discontinuity_mm',
   'flags',
@@ -168,6 +179,36 @@ describe.each([
     expect(r.von_mises_over_yield).toBe(result.yieldFraction.toFixed(3));
     // Hoop-dominated: ε1 lies near 90° from the axis.
     expect(Math.abs(Number(r.principal_angle_from_axis_deg))).toBeGreaterThan(85);
+  });
+});
+
+describe('renderSummaryCsv: the yield check and the uncertainty budget', () => {
+  it('a thick wall at 94 % of yield (REFERENCES "Added for engine v2"): the bore governs, near yield', async () => {
+    const input = await engine2Input();
+    const csv = parseSummary(renderSummaryCsv(input));
+    const h = csv.header;
+    expect(h.get('yield_check_surface')).toBe('inner');
+    expect(h.get('yield_check_fraction')).toBe('0.943');
+    expect(h.get('yield_check_stress_MPa')).toBe('282.9'); // √3·80·140²/(140² − 100²)
+    expect(h.get('near_yield')).toBe('yes');
+    expect(h.get('band_mode')).toBe('fixed');
+    expect(h.get('uncertainty_wall_thickness_mm')).toBe('0.8'); // 2 % of 40 mm, assumed
+    expect(h.get('uncertainty_wall_thickness_assumed')).toBe('yes');
+    expect(h.get('uncertainty_elastic_modulus_fraction')).toBe('0.03');
+    for (const g of csv.gauges) {
+      expect(g.flags).toContain('near-yield');
+      expect(Number(g.predicted_u95_ue_per_MPa)).toBeGreaterThan(0);
+      expect(g.dominant_uncertainty_input).not.toBe('');
+      expect(g.band_basis).toBe('relative');
+    }
+  }, 30_000);
+  it('an engine 1 result still gives the yield check, from its stored fraction, and no budget', () => {
+    const input = buildSiReportInput();
+    const csv = parseSummary(renderSummaryCsv(input));
+    expect(csv.header.get('yield_check_surface')).toBe('inner');
+    expect(csv.header.get('yield_check_fraction')).toBe(formatFixed(input.result.predicted.lame.yieldFraction, 3));
+    expect(csv.gauges[0]!.predicted_u95_ue_per_MPa).toBe('');
+    expect(csv.gauges[0]!.band_low_ue_per_MPa).not.toBe('');
   });
 });
 

@@ -15,8 +15,10 @@ import {
   neutraliseFormula,
   precisionFor,
   MODEL_LABELS,
+  YIELD_SURFACE_LABELS,
 } from './format';
-import { assertReportInputConsistent, unitLabels, type ReportInput } from './report-input';
+import { toReportRecord, unitLabels, type ReportInput, type ReportRecord } from './report-input';
+import { describeConversion } from '../../lib/reduction/reader';
 
 /** RFC 4180 line ends; spreadsheet programs accept them everywhere. */
 const NEWLINE = '\r\n';
@@ -31,8 +33,8 @@ type HeaderEntry = [key: string, value: string];
  * Render the summary CSV. The string starts with a BOM: encode it as UTF-8 unchanged
  * (e.g. `new Response(csv, { headers: { 'content-type': CSV_CONTENT_TYPE } })`).
  */
-export function renderSummaryCsv(input: ReportInput): string {
-  assertReportInputConsistent(input);
+export function renderSummaryCsv(raw: ReportInput): string {
+  const input = toReportRecord(raw);
   const header = buildHeaderEntries(input).map(([key, value]) => [`# ${key}`, value]);
 
   const gaugeColumns = buildGaugeColumns(input);
@@ -55,7 +57,7 @@ function unparse(rows: string[][]): string {
 }
 
 /** The header block as key/value pairs, keys plain ASCII with units in the name. */
-function buildHeaderEntries(input: ReportInput): HeaderEntry[] {
+function buildHeaderEntries(input: ReportRecord): HeaderEntry[] {
   const u = unitLabels(input.units);
   const p = precisionFor(input.units);
   const slope = `ue_per_${u.pressure}`;
@@ -100,6 +102,7 @@ function buildHeaderEntries(input: ReportInput): HeaderEntry[] {
     [`hoop_stress_at_test_pressure_${u.stress}`, formatFixed(used.hoopStress, p.stress)],
     [`axial_stress_at_test_pressure_${u.stress}`, formatFixed(used.axialStress, p.stress)],
     ['stress_over_yield_at_test_pressure', formatFixed(used.yieldFraction, 3)],
+    ...yieldCheckEntries(input),
     ['tolerance_slope_band_pct', formatPercent(t.slopeBand, 1)],
     ['tolerance_min_r_squared', formatPlain(t.minRSquared)],
     ['tolerance_hysteresis_pct', formatPercent(t.hysteresis, 1)],
@@ -107,6 +110,19 @@ function buildHeaderEntries(input: ReportInput): HeaderEntry[] {
     ['tolerance_zero_shift_pct_of_peak', formatPercent(t.zeroShiftFraction, 1)],
     ['tolerance_no_response_ue', formatPlain(t.noResponseMicrostrain)],
     ['tolerance_near_yield_pct', formatPercent(t.yieldFraction, 1)],
+    ['tolerance_hold_creep_ue', formatPlain(t.holdCreepMicrostrain)],
+    ['tolerance_hold_creep_pct_of_peak', formatPercent(t.holdCreepFraction, 1)],
+    ['tolerance_principal_direction_deg', formatPlain(t.principalDirectionDeg)],
+    ['band_mode', input.result.bandMode],
+    ...uncertaintyEntries(input),
+    [
+      'pressure_conversion',
+      input.result.log.pressureConversion
+        ? describeConversion(input.result.log.pressureConversion)
+        : 'none (the plan unit)',
+    ],
+    ['cycle_count', String(input.result.cycles.length)],
+    ['compared_cycle', String((input.result.cycles.find((c) => c.compared)?.index ?? 0) + 1)],
     ['engine_version', input.engineVersion],
     ['reduction_id', String(input.reductionId)],
     ['log_count', String(input.logs.length)],
@@ -140,4 +156,30 @@ function buildHeaderEntries(input: ReportInput): HeaderEntry[] {
   });
   input.result.warnings.forEach((w, i) => entries.push([`warning_${i + 1}`, text(w)]));
   return entries;
+}
+
+/** The yield check of DESIGN 3.1: the largest stress in the wall, where it sits, and against yield. */
+function yieldCheckEntries(input: ReportRecord): HeaderEntry[] {
+  const y = input.result.yieldCheck;
+  const u = unitLabels(input.units);
+  const p = precisionFor(input.units);
+  return [
+    [`yield_check_stress_${u.stress}`, formatFixed(y.stress, p.stress)],
+    ['yield_check_fraction', formatFixed(y.fraction, 3)],
+    ['yield_check_surface', y.surface],
+    ['yield_check_where', YIELD_SURFACE_LABELS[y.surface]],
+    [`yield_check_pressure_${u.pressure}`, formatPlain(y.pressure)],
+    ['near_yield', y.nearYield ? 'yes' : 'no'],
+  ];
+}
+
+/** The uncertainty inputs of DESIGN 3.4 as used (k = 1), each with whether it was assumed. */
+function uncertaintyEntries(input: ReportRecord): HeaderEntry[] {
+  const snake = (s: string) => s.replace(/Deg$/, '').replace(/[A-Z]/g, (c) => `_${c.toLowerCase()}`);
+  const suffix = (unit: string) =>
+    unit === 'relative' ? '_fraction' : unit === '°' ? '_deg' : unit === 'mm' || unit === 'in' ? `_${unit}` : '';
+  return input.result.uncertaintyInputs.flatMap((i): HeaderEntry[] => [
+    [`uncertainty_${snake(i.input)}${suffix(i.unit)}`, formatPlain(i.standardUncertainty)],
+    [`uncertainty_${snake(i.input)}_assumed`, i.assumed ? 'yes' : 'no'],
+  ]);
 }

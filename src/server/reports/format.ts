@@ -4,11 +4,12 @@ import type {
   FlagCode,
   GaugeOutcome,
   GaugeResult,
+  ReductionResult,
   RosetteResult,
   ShellModel,
   TestVerdict,
 } from '../../lib/reduction/types';
-import { outcomeOf, unitLabels, type ReportInput, type UnitSystem } from './report-input';
+import { outcomeOf, unitLabels, type ReportInput, type ReportRecord, type UnitSystem } from './report-input';
 
 /** Decimal places per quantity; US slopes (µε/psi) are ~145× smaller than SI ones (µε/MPa). */
 export interface Precision {
@@ -86,7 +87,22 @@ export const FLAG_LABELS: Record<FlagCode, string> = {
   'reversed-sign': 'reversed sign',
   'edge-zone': 'edge zone, not compared',
   'near-yield': 'near yield',
+  'hold-creep': 'strain creeps in the hold at test pressure',
+  'principal-direction': 'rosette principal direction off the prediction',
 };
+
+/** Where the stress of the yield check sits, in words (DESIGN 3.1). */
+export const YIELD_SURFACE_LABELS: Record<ReductionResult['yieldCheck']['surface'], string> = {
+  inner: 'von Mises at the bore (inner surface)',
+  outer: 'von Mises at the outer surface',
+  'mid-wall': 'membrane von Mises (mid-wall)',
+};
+
+/** The input that contributes most to a gauge's predicted-slope uncertainty, as a plain ASCII name. */
+export function dominantUncertainty(g: GaugeResult): string {
+  const [top] = g.uncertaintyBudget;
+  return top && top.contribution > 0 ? top.input : '';
+}
 
 /** The caution every export carries (DESIGN: reports carry it on every page). */
 export const REPORT_CAUTION =
@@ -108,7 +124,7 @@ export interface GaugeColumn {
 }
 
 /** The gauge table's columns in order; the PDF picks from the same list by csv name. */
-export function buildGaugeColumns(input: ReportInput): GaugeColumn[] {
+export function buildGaugeColumns(input: ReportRecord): GaugeColumn[] {
   const u = unitLabels(input.units);
   const p = precisionFor(input.units);
   const slope = `ue_per_${u.pressure}`;
@@ -123,11 +139,21 @@ export function buildGaugeColumns(input: ReportInput): GaugeColumn[] {
     { csv: 'deviation_pct', value: (g) => formatPercent(g.deviation, 2) },
     { csv: `slope_ci95_low_${slope}`, value: (g) => formatFixed(g.slopeCI95?.[0], p.slope) },
     { csv: `slope_ci95_high_${slope}`, value: (g) => formatFixed(g.slopeCI95?.[1], p.slope) },
+    { csv: `band_low_${slope}`, value: (g) => formatFixed(g.bandSlope?.[0], p.slope) },
+    { csv: `band_high_${slope}`, value: (g) => formatFixed(g.bandSlope?.[1], p.slope) },
+    { csv: 'band_basis', value: (g) => g.bandBasis },
+    { csv: `predicted_u95_${slope}`, value: (g) => formatFixed(g.predictedU95, p.slope) },
+    { csv: 'dominant_uncertainty_input', value: dominantUncertainty },
+    { csv: 'dominant_uncertainty_share_pct', value: (g) => formatPercent(g.uncertaintyBudget[0]?.share, 1) },
     { csv: 'r_squared', value: (g) => formatFixed(g.rSquared, 5) },
     { csv: `unloading_slope_${slope}`, value: (g) => formatFixed(g.unloadingSlope, p.slope) },
     { csv: 'hysteresis_pct', value: (g) => formatPercent(g.hysteresis, 2) },
     { csv: 'zero_shift_ue', value: (g) => formatFixed(g.zeroShift, 1) },
     { csv: 'peak_strain_ue', value: (g) => formatFixed(g.peakStrain, 1) },
+    { csv: 'hold_creep_ue', value: (g) => formatFixed(g.holdCreep, 1) },
+    { csv: 'transverse_correction', value: (g) => g.transverseCorrection },
+    { csv: 'paired_with', value: (g) => g.pairedWith ?? '' },
+    { csv: `water_head_${u.pressure}`, value: (g) => formatFixed(g.headPressure, p.slope + 2) },
     { csv: `effective_thickness_${u.length}`, value: (g) => formatFixed(g.effectiveThickness, p.length) },
     { csv: `distance_to_discontinuity_${u.length}`, value: (g) => formatFixed(g.distanceToDiscontinuity, p.distance) },
     { csv: 'flags', value: (g) => g.flags.join(';') },
@@ -145,7 +171,7 @@ export interface RosetteColumn {
 }
 
 /** The rosette table's columns: per unit pressure strains, stresses at test pressure. */
-export function buildRosetteColumns(input: ReportInput): RosetteColumn[] {
+export function buildRosetteColumns(input: ReportRecord): RosetteColumn[] {
   const u = unitLabels(input.units);
   const p = precisionFor(input.units);
   const slope = `ue_per_${u.pressure}`;
@@ -158,6 +184,10 @@ export function buildRosetteColumns(input: ReportInput): RosetteColumn[] {
     { csv: `predicted_eps1_${slope}`, value: (r) => formatFixed(r.predictedPrincipalStrains[0], p.slope) },
     { csv: `predicted_eps2_${slope}`, value: (r) => formatFixed(r.predictedPrincipalStrains[1], p.slope) },
     { csv: 'principal_angle_from_axis_deg', value: (r) => formatFixed(r.principalAngleDeg, 1) },
+    { csv: 'expected_principal_angle_deg', value: (r) => formatFixed(r.expectedPrincipalAngleDeg, 1) },
+    { csv: `sigma1_per_${u.pressure}`, value: (r) => formatFixed(r.stressesPerUnitPressure[0], 4) },
+    { csv: `sigma2_per_${u.pressure}`, value: (r) => formatFixed(r.stressesPerUnitPressure[1], 4) },
+    { csv: `von_mises_per_${u.pressure}`, value: (r) => formatFixed(r.vonMisesPerUnitPressure, 4) },
     { csv: `sigma1_at_test_pressure_${u.stress}`, value: (r) => formatFixed(r.principalStresses[0], p.stress) },
     { csv: `sigma2_at_test_pressure_${u.stress}`, value: (r) => formatFixed(r.principalStresses[1], p.stress) },
     { csv: `von_mises_at_test_pressure_${u.stress}`, value: (r) => formatFixed(r.vonMises, p.stress) },
@@ -167,14 +197,14 @@ export function buildRosetteColumns(input: ReportInput): RosetteColumn[] {
 }
 
 /** How many gauges ended in each outcome, in a fixed order. */
-export function countOutcomes(input: ReportInput): Record<GaugeOutcome, number> {
+export function countOutcomes(input: ReportRecord): Record<GaugeOutcome, number> {
   const counts: Record<GaugeOutcome, number> = { 'in-band': 0, flagged: 0, excluded: 0, 'not-compared': 0 };
   for (const g of input.result.gauges) counts[outcomeOf(input, g.id)] += 1;
   return counts;
 }
 
 /** A signature is only good for the reduction it names: say so when that is not this one. */
-export function isSignatureStale(input: ReportInput, reductionId: number): boolean {
+export function isSignatureStale(input: ReportRecord, reductionId: number): boolean {
   return reductionId !== input.reductionId;
 }
 

@@ -1,6 +1,7 @@
 // One gauge's strain-versus-pressure figure as vector graphics: hold-average points (loading and
 // unloading with different markers), the fitted loading line, the predicted line through the
-// origin and the ± slope band around it.
+// origin and the band around it (the engine's bandSlope: ± slope band, near-zero or from the
+// uncertainties; ± slope band × predicted when the result has none).
 import type { GaugeOutcome, GaugeResult } from '../../lib/reduction/types';
 import { OUTCOME_LABELS, formatFixed, formatPlain } from './format';
 import { COLOR, OUTCOME_COLOR } from './pdf-style';
@@ -88,14 +89,11 @@ export function drawStrainPressureFigure(doc: Doc, box: Box, gauge: GaugeResult,
   });
 
   const k = gauge.predictedSlope;
+  const [bandLo, bandHi] = gauge.bandSlope ?? [k * (1 - ctx.slopeBand), k * (1 + ctx.slopeBand)];
   const pressures = gauge.points.map((p) => p.pressure);
   const xAxis = buildAxis([ctx.testPressure, ...pressures], 5);
   const xEnd = xAxis.max;
-  const strains = [
-    ...gauge.points.map((p) => p.strain),
-    k * xEnd * (1 + ctx.slopeBand),
-    k * xEnd * (1 - ctx.slopeBand),
-  ];
+  const strains = [...gauge.points.map((p) => p.strain), bandHi * xEnd, bandLo * xEnd];
   if (gauge.measuredSlope !== null) strains.push(gauge.measuredSlope * xEnd + (gauge.intercept ?? 0));
   const yAxis = buildAxis(strains, 5);
   const sx = (p: number) => plot.x + ((p - xAxis.min) / (xAxis.max - xAxis.min)) * plot.width;
@@ -156,10 +154,10 @@ export function drawStrainPressureFigure(doc: Doc, box: Box, gauge: GaugeResult,
   const x0 = Math.max(0, xAxis.min);
   doc
     .polygon(
-      [sx(x0), sy(k * x0 * (1 + ctx.slopeBand))],
-      [sx(xEnd), sy(k * xEnd * (1 + ctx.slopeBand))],
-      [sx(xEnd), sy(k * xEnd * (1 - ctx.slopeBand))],
-      [sx(x0), sy(k * x0 * (1 - ctx.slopeBand))],
+      [sx(x0), sy(bandHi * x0)],
+      [sx(xEnd), sy(bandHi * xEnd)],
+      [sx(xEnd), sy(bandLo * xEnd)],
+      [sx(x0), sy(bandLo * x0)],
     )
     .fill(COLOR.band);
   doc
@@ -224,7 +222,13 @@ export function drawStrainPressureFigure(doc: Doc, box: Box, gauge: GaugeResult,
 }
 
 /** One legend line for a page of figures. */
-export function drawFigureLegend(doc: Doc, x: number, y: number, slopeBand: number): number {
+export function drawFigureLegend(
+  doc: Doc,
+  x: number,
+  y: number,
+  slopeBand: number,
+  bandMode: 'fixed' | 'uncertainty' = 'fixed',
+): number {
   let cx = x;
   const item = (draw: (mx: number, my: number) => void, label: string) => {
     draw(cx, y + 4);
@@ -258,6 +262,9 @@ export function drawFigureLegend(doc: Doc, x: number, y: number, slopeBand: numb
       .stroke(COLOR.muted);
     doc.undash();
   }, 'predicted');
-  item((mx, my) => doc.rect(mx, my - 3.5, 14, 7).fill(COLOR.band), `±${formatPlain(slopeBand * 100)} % band`);
+  item(
+    (mx, my) => doc.rect(mx, my - 3.5, 14, 7).fill(COLOR.band),
+    bandMode === 'uncertainty' ? 'band from the uncertainties' : `±${formatPlain(slopeBand * 100)} % band`,
+  );
   return 12;
 }

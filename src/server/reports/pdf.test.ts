@@ -1,11 +1,16 @@
 import { createRequire } from 'node:module';
 import { beforeAll, describe, expect, it } from 'vitest';
-import type { GaugeResult } from '../../lib/reduction/types';
+import type { StoredGauge } from '../../lib/reduction/compat';
 import { REPORT_CAUTION } from './format';
 import { renderReportPdf } from './pdf';
 import { MARGIN } from './pdf-style';
 import { interFontPath, splitTextRuns } from './pdf-text';
-import { buildReleasedReportInput, buildSiReportInput, buildUsReportInput } from './testing/report-fixture';
+import {
+  buildReleasedReportInput,
+  buildSiReportInput,
+  buildUsReportInput,
+  engine2Input,
+} from './testing/report-fixture';
 import { readPdfPages, type PdfPage } from './testing/read-pdf';
 
 const squash = (s: string) => s.replace(/\s+/g, '');
@@ -93,6 +98,24 @@ describe('renderReportPdf (SI, draft)', () => {
   });
 });
 
+describe('renderReportPdf: the yield check and the uncertainty budget', () => {
+  it('a thick wall at 94 % of yield prints the bore stress, NEAR YIELD, and each gauge’s largest uncertainty', async () => {
+    const all = squash((await readPdfPages(await renderReportPdf(await engine2Input()))).map((p) => p.text).join(' '));
+    // √3·80·140²/(140² − 100²) = 282.9 MPa, 94.3 % of 300 MPa (REFERENCES "Added for engine v2")
+    expect(all).toContain(squash('Yield check: von Mises at the bore (inner surface)'));
+    expect(all).toContain(squash('282.9 MPa at 80 MPa = 94.3 % of yield'));
+    expect(all).toContain(squash('NEAR YIELD'));
+    expect(all).toContain(squash('Largest uncertainty'));
+    expect(all).toContain(squash('Dimension changes (mm)'));
+  }, 60_000);
+  it('an engine 1 result reads too: its yield check from the stored fraction, not near yield', async () => {
+    const input = buildSiReportInput();
+    const all = squash((await readPdfPages(await renderReportPdf(input))).map((p) => p.text).join(' '));
+    expect(all).toContain(squash('Yield check: von Mises at the bore'));
+    expect(all).not.toContain(squash('NEAR YIELD'));
+  }, 60_000);
+});
+
 describe('renderReportPdf variants', () => {
   it('shows no DRAFT once released, and both signatures', async () => {
     const pages = await readPdfPages(await renderReportPdf(buildReleasedReportInput()));
@@ -129,7 +152,7 @@ describe('renderReportPdf variants', () => {
   it('wraps a long gauge list onto more pages and repeats the table header on each', async () => {
     const input = buildSiReportInput();
     const template = input.result.gauges[0]!;
-    const many: GaugeResult[] = Array.from({ length: 60 }, (_, i) => ({
+    const many: StoredGauge[] = Array.from({ length: 60 }, (_, i) => ({
       ...template,
       id: `G${String(i + 1).padStart(2, '0')}`,
       channel: `CH${i + 1}`,

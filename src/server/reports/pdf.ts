@@ -19,14 +19,27 @@ import {
   formatPlain,
   isSignatureStale,
   precisionFor,
+  YIELD_SURFACE_LABELS,
+  dominantUncertainty,
 } from './format';
 import { drawFigureLegend, drawStrainPressureFigure } from './pdf-figure';
 import { PageFlow, drawTable, type TableCell } from './pdf-layout';
 import { COLOR, CONTENT_BOTTOM, CONTENT_WIDTH, MARGIN, OUTCOME_COLOR, PAGE, VERDICT_COLOR } from './pdf-style';
 import { drawParagraph, drawTextLine, lineHeight, measureParagraph, measureText } from './pdf-text';
-import { assertReportInputConsistent, outcomeOf, unitLabels, type ReportInput } from './report-input';
+import { outcomeOf, toReportRecord, unitLabels, type ReportInput, type ReportRecord } from './report-input';
 
 export const PDF_CONTENT_TYPE = 'application/pdf';
+
+/** The budget's inputs in words, for the gauge table (DESIGN 3.4). */
+const UNCERTAINTY_WORDS: Record<string, string> = {
+  wallThickness: 'wall thickness',
+  insideDiameter: 'inside diameter',
+  elasticModulus: 'elastic modulus',
+  poissonRatio: "Poisson's ratio",
+  gaugeFactor: 'gauge factor',
+  transverseSensitivity: 'transverse sens.',
+  misalignmentDeg: 'misalignment',
+};
 
 export interface RenderPdfOptions {
   /** deflate page streams (default true); tests turn it off to read the bytes */
@@ -36,8 +49,8 @@ export interface RenderPdfOptions {
 type Doc = PDFKit.PDFDocument;
 
 /** Render the report. Output is byte-for-byte repeatable for the same input. */
-export async function renderReportPdf(input: ReportInput, options: RenderPdfOptions = {}): Promise<Buffer> {
-  assertReportInputConsistent(input);
+export async function renderReportPdf(raw: ReportInput, options: RenderPdfOptions = {}): Promise<Buffer> {
+  const input = toReportRecord(raw);
   const doc = new PDFDocument({
     autoFirstPage: false,
     bufferPages: true,
@@ -64,6 +77,7 @@ export async function renderReportPdf(input: ReportInput, options: RenderPdfOpti
   flow.addPage();
   drawTitleBlock(flow, input);
   drawVerdictBox(flow, input);
+  drawYieldCheck(flow, input);
   drawTestHeader(flow, input);
   drawGaugeTables(flow, input);
   drawRosettes(flow, input);
@@ -98,7 +112,7 @@ function showNumber(text: string): string {
   return `${sign ? '\u2212' : ''}${grouped}${fraction}`;
 }
 
-function drawTitleBlock(flow: PageFlow, input: ReportInput): void {
+function drawTitleBlock(flow: PageFlow, input: ReportRecord): void {
   const { doc } = flow;
   const x = MARGIN.left;
   let y = 40;
@@ -129,7 +143,7 @@ function drawTitleBlock(flow: PageFlow, input: ReportInput): void {
   flow.y = y + 12;
 }
 
-function drawVerdictBox(flow: PageFlow, input: ReportInput): void {
+function drawVerdictBox(flow: PageFlow, input: ReportRecord): void {
   const { doc } = flow;
   const counts = countOutcomes(input);
   const disposed = input.result.gauges.filter(
@@ -174,6 +188,20 @@ function drawVerdictBox(flow: PageFlow, input: ReportInput): void {
   flow.y = y + height + 12;
 }
 
+/** The yield check (DESIGN 3.1) in one line under the verdict; near yield in the flag colour, in bold. */
+function drawYieldCheck(flow: PageFlow, input: ReportRecord): void {
+  const y = input.result.yieldCheck;
+  const u = unitLabels(input.units);
+  const p = precisionFor(input.units);
+  const text =
+    `Yield check: ${YIELD_SURFACE_LABELS[y.surface]} (${MODEL_LABELS[y.model]}) ` +
+    `${showNumber(formatFixed(y.stress, p.stress))} ${u.stress} at ${formatPlain(y.pressure)} ${u.pressure} = ` +
+    `${formatPercent(y.fraction, 1)} % of yield (near-yield limit ${formatPercent(y.limit, 0)} %)` +
+    (y.nearYield ? '. NEAR YIELD: stop raising the pressure and consult the responsible engineer.' : '.');
+  flow.paragraph(text, 8.5, y.nearYield ? OUTCOME_COLOR.flagged : COLOR.ink, y.nearYield ? 700 : 400);
+  flow.y += 4;
+}
+
 /** Two blocks of label/value rows side by side. */
 function drawDefinitionColumns(flow: PageFlow, blocks: { title: string; rows: [string, string][] }[]): void {
   const { doc } = flow;
@@ -203,7 +231,7 @@ function drawDefinitionColumns(flow: PageFlow, blocks: { title: string; rows: [s
   flow.y = top + Math.max(...heights) + 6;
 }
 
-function drawTestHeader(flow: PageFlow, input: ReportInput): void {
+function drawTestHeader(flow: PageFlow, input: ReportRecord): void {
   const u = unitLabels(input.units);
   const p = precisionFor(input.units);
   const { predicted } = input.result;
@@ -252,6 +280,14 @@ function drawTestHeader(flow: PageFlow, input: ReportInput): void {
           `σh ${showNumber(formatFixed(used.hoopStress, p.stress))} ${u.stress}, σa ${showNumber(formatFixed(used.axialStress, p.stress))} ${u.stress}; ${formatPercent(used.yieldFraction, 1)} % of yield`,
         ],
         [
+          `Dimension changes (${u.length})`,
+          (() => {
+            const d = used.dimensionChanges;
+            const f = (v: number | null) => showNumber(formatFixed(v, p.length + 1) || '–');
+            return `inside Ø ${f(d.insideDiameter)}, mean Ø ${f(d.meanDiameter)}, outside Ø ${f(d.outsideDiameter)}, length ${f(d.length)}, wall ${f(d.thickness)}`;
+          })(),
+        ],
+        [
           'Edge-zone distance',
           `${formatFixed(predicted.edgeZoneDistance, p.length)} ${u.length} (2.5·(r·t)^½, r mean radius)`,
         ],
@@ -263,7 +299,11 @@ function drawTestHeader(flow: PageFlow, input: ReportInput): void {
     `Slope band ±${pct(t.slopeBand)} % of predicted · loading R² min. ${formatPlain(t.minRSquared)} · ` +
     `hysteresis max. ${pct(t.hysteresis)} % of peak · zero shift max. ${formatPlain(t.zeroShiftMicrostrain)} µε or ` +
     `${pct(t.zeroShiftFraction)} % of peak (the larger) · no response below ${formatPlain(t.noResponseMicrostrain)} µε · ` +
-    `near yield above ${pct(t.yieldFraction)} % of yield.`;
+    `near yield from ${pct(t.yieldFraction)} % of yield · creep in the top hold max. ${formatPlain(t.holdCreepMicrostrain)} µε or ` +
+    `${pct(t.holdCreepFraction)} % of peak · rosette ε1 within ${formatPlain(t.principalDirectionDeg)}° of the predicted direction · ` +
+    (input.result.bandMode === 'uncertainty'
+      ? 'band from the uncertainties, √(U_pred² + U_fit²).'
+      : 'band fixed at the slope band.');
   flow.ensureSpace(30);
   drawTextLine(flow.doc, 'Tolerances', MARGIN.left, flow.y, { size: 8.5, weight: 700 });
   flow.y += 13;
@@ -281,7 +321,7 @@ function drawTestHeader(flow: PageFlow, input: ReportInput): void {
   );
 }
 
-function drawGaugeTables(flow: PageFlow, input: ReportInput): void {
+function drawGaugeTables(flow: PageFlow, input: ReportRecord): void {
   const u = unitLabels(input.units);
   const columns = new Map(buildGaugeColumns(input).map((c) => [c.csv, c]));
   const slope = `ue_per_${u.pressure}`;
@@ -337,9 +377,11 @@ function drawGaugeTables(flow: PageFlow, input: ReportInput): void {
       { label: 'Zero shift µε', width: 7, align: 'right' },
       { label: 'Peak strain µε', width: 7.5, align: 'right' },
       { label: `Effective thickness ${u.length}`, width: 8.5, align: 'right' },
-      { label: `To discontinuity ${u.length}`, width: 8.5, align: 'right' },
-      { label: 'Flags', width: 17 },
-      { label: 'Disposition', width: 9 },
+      { label: `To discontinuity ${u.length}`, width: 7.5, align: 'right' },
+      { label: `Prediction U95 µε/${u.pressure}`, width: 7.5, align: 'right' },
+      { label: 'Largest uncertainty', width: 9 },
+      { label: 'Flags', width: 13 },
+      { label: 'Disposition', width: 7.5 },
     ],
     gauges.map((g) => [
       { text: g.id, weight: 600 },
@@ -349,6 +391,8 @@ function drawGaugeTables(flow: PageFlow, input: ReportInput): void {
       value('peak_strain_ue', g),
       value(`effective_thickness_${u.length}`, g),
       value(`distance_to_discontinuity_${u.length}`, g),
+      value(`predicted_u95_${slope}`, g),
+      { text: UNCERTAINTY_WORDS[dominantUncertainty(g)] ?? '–', color: COLOR.muted },
       { text: g.flags.length ? g.flags.join(', ') : '–', color: g.flags.length ? OUTCOME_COLOR.flagged : COLOR.faint },
       input.dispositions[g.id]?.outcome ?? '–',
     ]),
@@ -358,7 +402,7 @@ function drawGaugeTables(flow: PageFlow, input: ReportInput): void {
     flow.paragraph(`Flags: ${used.map((f) => `${f} = ${FLAG_LABELS[f]}`).join('; ')}.`, 7, COLOR.muted);
 }
 
-function drawRosettes(flow: PageFlow, input: ReportInput): void {
+function drawRosettes(flow: PageFlow, input: ReportRecord): void {
   if (input.result.rosettes.length === 0) return;
   const u = unitLabels(input.units);
   const columns = new Map(buildRosetteColumns(input).map((c) => [c.csv, c]));
@@ -412,7 +456,7 @@ function drawRosettes(flow: PageFlow, input: ReportInput): void {
   );
 }
 
-function drawDispositions(flow: PageFlow, input: ReportInput): void {
+function drawDispositions(flow: PageFlow, input: ReportRecord): void {
   const entries = input.result.gauges.filter((g) => input.dispositions[g.id]);
   flow.heading('Dispositions', 40);
   const undisposed = input.result.gauges.filter(
@@ -450,7 +494,7 @@ function drawDispositions(flow: PageFlow, input: ReportInput): void {
     );
 }
 
-function drawSignatures(flow: PageFlow, input: ReportInput): void {
+function drawSignatures(flow: PageFlow, input: ReportRecord): void {
   flow.heading('Signatures', 40);
   if (input.signatures.length === 0) {
     flow.paragraph('Not yet signed: no engineering review and no release.', 8.5, COLOR.muted);
@@ -485,7 +529,7 @@ function drawSignatures(flow: PageFlow, input: ReportInput): void {
   );
 }
 
-function drawWarnings(flow: PageFlow, input: ReportInput): void {
+function drawWarnings(flow: PageFlow, input: ReportRecord): void {
   const notes = input.result.gauges.flatMap((g) => g.notes.map((n) => `${g.id}: ${n}`));
   if (input.result.warnings.length === 0 && notes.length === 0) return;
   flow.heading('Reduction warnings and notes', 30);
@@ -493,7 +537,7 @@ function drawWarnings(flow: PageFlow, input: ReportInput): void {
   for (const n of notes) flow.paragraph(`• ${n}`, 8, COLOR.muted);
 }
 
-function drawFigures(flow: PageFlow, input: ReportInput): void {
+function drawFigures(flow: PageFlow, input: ReportRecord): void {
   const gauges = input.result.gauges;
   if (gauges.length === 0) return;
   const u = unitLabels(input.units);
@@ -509,7 +553,10 @@ function drawFigures(flow: PageFlow, input: ReportInput): void {
   for (let start = 0; start < gauges.length; start += perPage) {
     flow.addPage();
     flow.heading(start === 0 ? 'Strain versus pressure' : 'Strain versus pressure (continued)', 0);
-    flow.y += drawFigureLegend(flow.doc, MARGIN.left, flow.y, input.tolerances.slopeBand) + legendHeight - 12;
+    flow.y +=
+      drawFigureLegend(flow.doc, MARGIN.left, flow.y, input.tolerances.slopeBand, input.result.bandMode) +
+      legendHeight -
+      12;
     const top = flow.y;
     gauges.slice(start, start + perPage).forEach((g, i) => {
       const col = i % columns;
@@ -531,7 +578,7 @@ function drawFigures(flow: PageFlow, input: ReportInput): void {
 }
 
 /** Running header, footer with caution and page numbers, and the DRAFT mark, on every page. */
-function finishPages(doc: Doc, input: ReportInput): void {
+function finishPages(doc: Doc, input: ReportRecord): void {
   const range = doc.bufferedPageRange();
   const total = range.count;
   for (let i = 0; i < total; i += 1) {

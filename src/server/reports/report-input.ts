@@ -2,6 +2,7 @@
 // caller assembles from the database. The renderers are pure: same input, same bytes (apart from
 // generatedAt, which the caller sets). Vessel and material values are in the plan's own units.
 import type { Plan } from '../../lib/reduction/plan';
+import { normalizeResult, type StoredResult } from '../../lib/reduction/compat';
 import type { GaugeOutcome, ReductionResult, ShellModel, TestVerdict } from '../../lib/reduction/types';
 
 export type UnitSystem = 'SI' | 'US';
@@ -57,7 +58,8 @@ export interface ReportInput {
   reductionId: number;
   engineVersion: string;
   logs: ReportLog[];
-  result: ReductionResult;
+  /** the stored result, of any engine version (the renderers read it through toReportRecord) */
+  result: StoredResult;
   /** keyed by gauge id as in result.gauges (rosette grids as `R1/A`) */
   dispositions: Record<string, ReportDisposition>;
   /** each gauge's outcome after dispositions; a gauge missing here keeps result's outcome */
@@ -78,6 +80,20 @@ export function unitLabels(units: UnitSystem): UnitLabels {
   return units === 'SI'
     ? { pressure: 'MPa', stress: 'MPa', length: 'mm' }
     : { pressure: 'psi', stress: 'psi', length: 'in' };
+}
+
+/** The input with its result in the current engine's shape: what the renderers draw from. */
+export type ReportRecord = Omit<ReportInput, 'result'> & { result: ReductionResult };
+
+/** Check the input, and read a result stored by an older engine in the current shape. */
+export function toReportRecord(input: ReportInput): ReportRecord {
+  assertReportInputConsistent(input);
+  const result = normalizeResult(input.result, {
+    yieldStrength: input.material.yieldStrength,
+    yieldFraction: input.tolerances.yieldFraction,
+    slopeBand: input.tolerances.slopeBand,
+  });
+  return { ...input, result };
 }
 
 /** Raised when the caller hands the renderers a record that contradicts itself (a wiring bug). */
@@ -110,7 +126,7 @@ export function assertReportInputConsistent(input: ReportInput): void {
 }
 
 /** The outcome to report for a gauge: after dispositions when given, else the engine's. */
-export function outcomeOf(input: ReportInput, gaugeId: string): GaugeOutcome {
+export function outcomeOf(input: ReportInput | ReportRecord, gaugeId: string): GaugeOutcome {
   const gauge = input.result.gauges.find((g) => g.id === gaugeId);
   return input.gaugeOutcomes[gaugeId] ?? gauge?.outcome ?? 'not-compared';
 }

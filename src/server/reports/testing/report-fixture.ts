@@ -2,16 +2,18 @@
 // a closed carbon-steel cylinder with four uniaxial gauges (one flagged and accepted, one dead and
 // excluded, one in the edge zone of a head seam) and one rectangular rosette. Predictions follow
 // DESIGN 3.1 (Lamé at the outer surface, membrane at the mean radius); measured slopes are least
-// squares fits of the synthetic hold points, so the figures and the numbers agree.
+// squares fits of the synthetic hold points, so the figures and the numbers agree. The result
+// has the shape an engine 1 reduction stored (no yield check, no budget): the renderers must read
+// it as well as a current one. engine2Input builds a current one by running the engine.
+import type { FlagCode, GaugeOutcome, Hold } from '../../../lib/reduction/types';
 import type {
-  FlagCode,
-  GaugeOutcome,
-  GaugeResult,
-  Hold,
-  ModelPrediction,
-  ReductionResult,
-  RosetteResult,
-} from '../../../lib/reduction/types';
+  StoredGauge as GaugeResult,
+  StoredModel as ModelPrediction,
+  StoredResult as ReductionResult,
+  StoredRosette as RosetteResult,
+} from '../../../lib/reduction/compat';
+import { parsePlan, reduceLog, type PlanInput } from '../../../lib/reduction';
+import { chunked, syntheticLog } from '../../../lib/reduction/testing/synthetic-log';
 import type { ReportInput, UnitSystem } from '../report-input';
 
 interface Scenario {
@@ -193,7 +195,11 @@ function predictShell(s: Scenario, model: 'lame' | 'membrane'): ModelPrediction 
   const ea = ((axial - nu * hoop) / E) * 1e6;
   const er = ((-nu * (hoop + axial)) / E) * 1e6;
   const p = s.testPressure;
-  const vm = Math.sqrt(hoop * hoop - hoop * axial + axial * axial) * p;
+  // as engine 1 stored it: Lamé von Mises at the bore (σθ, σr = −p, σz), membrane the larger membrane stress
+  const A = (ri * ri) / (ro * ro - ri * ri);
+  const [bh, br, bz] = [A * (1 + (ro * ro) / (ri * ri)), -1, A];
+  const bore = Math.sqrt(0.5 * ((bh - br) ** 2 + (br - bz) ** 2 + (bz - bh) ** 2)) * p;
+  const vm = model === 'lame' ? bore : Math.max(hoop, axial) * p;
   return {
     model,
     hoopStrainPerPressure: eh,
@@ -415,6 +421,10 @@ function buildInput(s: Scenario): ReportInput {
       zeroShiftFraction: 0.02,
       noResponseMicrostrain: 10,
       yieldFraction: 0.9,
+      holdCreepMicrostrain: 10,
+      holdCreepFraction: 0.01,
+      principalDirectionDeg: 10,
+      bandMode: 'fixed',
     },
     reductionId: 34,
     engineVersion: '1.0.0',
@@ -481,4 +491,42 @@ export function buildReleasedReportInput(): ReportInput {
     reductionId: 34,
   });
   return input;
+}
+
+/**
+ * A current (engine 2) record: the thick-walled vessel of REFERENCES "Added for engine v2" (ID
+ * 200 mm, wall 40 mm, 80 MPa, yield 300 MPa: 94 % of yield at the bore), reduced by the engine from
+ * a synthetic log, nothing dispositioned.
+ */
+export async function engine2Input(): Promise<ReportInput> {
+  const planInput: PlanInput = {
+    units: 'SI',
+    vessel: { shape: 'cylinder', ends: 'closed', insideDiameter: 200, wallThickness: 40, length: 1000 },
+    material: { name: 'high-strength steel, generic', elasticModulus: 200000, poissonRatio: 0.3, yieldStrength: 300 },
+    model: 'lame',
+    testPressure: 80,
+    columns: { time: 'time_s', pressure: 'P [MPa]' },
+    gauges: [
+      { id: 'H1', kind: 'uniaxial', channels: ['SG1'], angleDeg: 90, distanceToDiscontinuity: 400 },
+      { id: 'A1', kind: 'uniaxial', channels: ['SG2'], angleDeg: 0, distanceToDiscontinuity: 400 },
+    ],
+  };
+  const plan = parsePlan(planInput);
+  const { result } = await reduceLog(
+    plan,
+    chunked(syntheticLog(plan, { rateHz: 1, holdSeconds: 30, rampSeconds: 15 })),
+  );
+  const base = buildSiReportInput();
+  return {
+    ...base,
+    vessel: { ...base.vessel, insideDiameter: 200, wallThickness: 40, length: 1000 },
+    material: { name: 'high-strength steel, generic', elasticModulus: 200000, poissonRatio: 0.3, yieldStrength: 300 },
+    testPressure: 80,
+    tolerances: plan.tolerances,
+    engineVersion: result.engineVersion,
+    result,
+    dispositions: {},
+    gaugeOutcomes: {},
+    verdict: result.verdict,
+  };
 }
