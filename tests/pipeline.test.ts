@@ -287,21 +287,6 @@ describe('reductions', () => {
   });
 });
 
-describe('released tests', () => {
-  it('answer 409 to every write', async () => {
-    const id = await createTest('Locked');
-    expect((await upload(technician, id, smallLog)).status).toBe(201);
-    const { tests } = await import('../src/db/schema');
-    await (await db()).update(tests).set({ status: 'released' }).where(eq(tests.id, id));
-    const up = await upload(technician, id, smallLog + '\n');
-    expect(up.status).toBe(409);
-    expect(up.body.error.code).toBe('test-released');
-    expect((await engineer.json(`/api/tests/${id}/plan`, { method: 'PUT', json: plan })).status).toBe(409);
-    expect((await technician.json(`/api/tests/${id}/reductions`, { method: 'POST', json: {} })).status).toBe(409);
-    expect((await engineer.json(`/api/tests/${id}`, { method: 'PATCH', json: { name: 'renamed' } })).status).toBe(409);
-  });
-});
-
 describe('the queue', () => {
   it('shares 20 jobs between two workers, each done exactly once', async () => {
     await Promise.all(workers.splice(0).map((w) => stopProcess(w)));
