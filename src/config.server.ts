@@ -30,7 +30,11 @@ export const configSchema = z.object({
   SMTP_USER: z.string().optional(),
   SMTP_PASSWORD: z.string().optional(),
   MAIL_FROM: z.string().min(3).default('Hoopline <hoopline@localhost>'),
-  AUTH_SECRET: z.string().min(16, 'must be at least 16 characters (use `openssl rand -hex 32`)').optional(),
+  AUTH_SECRET: z
+    .string()
+    .min(16, 'must be at least 16 characters (use `openssl rand -hex 32`)')
+    .optional()
+    .or(z.literal('').transform(() => undefined)),
   PUBLIC_BASE_URL: z.url().default('http://127.0.0.1:4321'),
   DEMO: bool.default(false),
   DEMO_PASSWORD: z.string().min(12, 'must be at least 12 characters').default('hoopline-demo-receiver'),

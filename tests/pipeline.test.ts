@@ -146,6 +146,21 @@ describe('tests and plans', () => {
     expect(await engineer.fetch(`/api/tests/${id}/plan`).then((r) => r.text())).toBe(JSON.stringify(changed));
   });
 
+  it('refuses a gauge id over 60 characters or outside the safe set with a 422, creating nothing', async () => {
+    const before = (await engineer.json('/api/tests?limit=1')).body.total;
+    for (const id of ['H'.repeat(61), '=1+2', '@SUM(A1)']) {
+      const bad = { ...plan, gauges: [{ ...plan.gauges[0], id }] };
+      const r = await engineer.json('/api/tests', {
+        method: 'POST',
+        json: { name: `bad id ${id.slice(0, 5)}`, plan: bad },
+      });
+      expect(r.status).toBe(422);
+      expect(r.body.error.code).toBe('invalid-plan');
+      expect(r.body.error.details.issues[0].path).toBe('gauges[0].id');
+    }
+    expect((await engineer.json('/api/tests?limit=1')).body.total).toBe(before);
+  });
+
   it('pages lists and answers 404 for an unknown test', async () => {
     const r = await engineer.json('/api/tests?limit=1&offset=0');
     expect(r.status).toBe(200);

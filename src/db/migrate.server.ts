@@ -16,7 +16,11 @@ export async function migrateDatabase(url: string, folder = migrationsFolder): P
   try {
     const db = drizzle(pool, { schema, mode: 'default' });
     await migrate(db, { migrationsFolder: folder });
-    await sealUnchainedAuditRows(db);
+    // (a folder that stops before the chain columns exist has nothing to seal)
+    const [cols] = await pool.query(
+      "SELECT 1 FROM information_schema.columns WHERE table_schema = DATABASE() AND table_name = 'audit_events' AND column_name = 'hash'",
+    );
+    if ((cols as unknown[]).length) await sealUnchainedAuditRows(db);
   } finally {
     await pool.end();
   }

@@ -11,7 +11,7 @@ import {
   findApiToken,
   findUserByEmail,
   findUserById,
-  hasRecentAccountLink,
+  hasRecentResetLink,
   insertAccountLink,
   insertApiToken,
   lockAccountLink,
@@ -112,7 +112,7 @@ export async function sendResetByAdmin(admin: RequestUser, userId: number): Prom
 
 /**
  * POST /api/password/forgot: a reset link to the address if it belongs to an active account;
- * the answer is the same either way. At most one link every five minutes per account.
+ * the answer is the same either way. At most one such link every five minutes per account.
  */
 export async function requestPasswordReset(emailRaw: string): Promise<void> {
   const email = emailRaw.trim().toLowerCase();
@@ -122,11 +122,11 @@ export async function requestPasswordReset(emailRaw: string): Promise<void> {
       await audit(tx, { actor: email, action: 'password-reset-requested', details: { sent: false } });
       return false;
     }
-    if (await hasRecentAccountLink(tx, user.id, new Date(Date.now() - 5 * 60_000))) return false;
+    if (await hasRecentResetLink(tx, user.id, new Date(Date.now() - 5 * 60_000))) return false;
     await sendAccountLink(
       tx,
       user,
-      user.passwordHash === NO_PASSWORD ? 'invite' : 'reset',
+      'reset',
       `Someone (we hope you) asked to reset the Hoopline password of ${user.email}. If it was not you, ignore this message: your password stays as it is.`,
     );
     await audit(tx, { userId: user.id, actor: email, action: 'password-reset-requested', details: { sent: true } });

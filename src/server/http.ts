@@ -71,18 +71,22 @@ export function requireSessionUser(ctx: Ctx, permission?: Permission): RequestUs
 
 /**
  * The signed-in user if their role holds `permission` (src/lib/roles.ts, DESIGN 1), else 401/403.
- * With an API token a GET also needs the `read` scope, and a write is allowed only for the
- * `upload` permission with the `upload` scope. Every endpoint calls this itself; the UI hiding
- * a button is not security.
+ * With an API token a GET also needs the `read` scope, and a write is refused unless the endpoint
+ * names the scope that allows it (`tokenWrite: 'upload'` for logs, live sessions and reductions).
+ * Every endpoint calls this itself; the UI hiding a button is not security.
  */
-export function requirePermission(ctx: Ctx, permission: Permission): RequestUser {
+export function requirePermission(
+  ctx: Ctx,
+  permission: Permission,
+  opts: { tokenWrite?: TokenScope } = {},
+): RequestUser {
   const user = ctx.locals.user;
   if (!user) throw new AppError('unauthenticated');
   if (!can(user.role, permission)) throw errors.forbidden(permission);
   if (user.via === 'token') {
     if (isRead(ctx.request)) requireScope(user, 'read');
-    else if (permission !== 'upload') throw new AppError('token-not-allowed');
-    else requireScope(user, 'upload');
+    else if (!opts.tokenWrite) throw new AppError('token-not-allowed');
+    else requireScope(user, opts.tokenWrite);
   }
   return user;
 }

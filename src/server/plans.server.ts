@@ -23,10 +23,10 @@ export function gaugeIdIssues(plan: Plan): { path: string; message: string }[] {
   const issues: { path: string; message: string }[] = [];
   plan.gauges.forEach((g, i) => {
     if (g.id.length > 60)
-      issues.push({ path: `gauges.${i}.id`, message: `is ${g.id.length} characters long; at most 60` });
+      issues.push({ path: `gauges[${i}].id`, message: `is ${g.id.length} characters long; at most 60` });
     else if (!GAUGE_ID_PATTERN.test(g.id))
       issues.push({
-        path: `gauges.${i}.id`,
+        path: `gauges[${i}].id`,
         message: `'${g.id.slice(0, 60)}' may hold only letters, digits, space, '.', '_' and '-', starting with a letter or digit`,
       });
   });

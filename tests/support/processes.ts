@@ -81,3 +81,19 @@ export async function stopProcess(child: ChildProcess, signal: NodeJS.Signals = 
     child.kill(signal);
   });
 }
+
+/** Start another app server (the built dist/) with env overrides, on a free port. */
+export async function startAppServer(
+  env: Record<string, string>,
+  overrides: Record<string, string> = {},
+): Promise<{ url: string; child: ChildProcess; stop: () => Promise<void> }> {
+  const { freePort } = await import('../global-setup');
+  const port = await freePort();
+  const child = spawn(process.execPath, ['dist/server/entry.mjs'], {
+    env: { ...process.env, ...env, HOST: '127.0.0.1', PORT: String(port), ...overrides },
+    stdio: ['ignore', 'ignore', 'inherit'],
+  });
+  const url = `http://127.0.0.1:${port}`;
+  await waitForHttp(`${url}/api/health`, 30_000);
+  return { url, child, stop: () => stopProcess(child) };
+}

@@ -179,12 +179,12 @@ export async function markAccountLinkUsed(db: Conn, id: number) {
   await db.update(accountLinks).set({ usedAt: new Date() }).where(eq(accountLinks.id, id));
 }
 
-/** Whether a link was sent to the user since `since` (resets are rate-limited per account). */
-export async function hasRecentAccountLink(db: Conn, userId: number, since: Date) {
+/** Whether a reset link was sent to the user since `since` (resets are rate-limited per account). */
+export async function hasRecentResetLink(db: Conn, userId: number, since: Date) {
   const [row] = await db
     .select({ id: accountLinks.id })
     .from(accountLinks)
-    .where(and(eq(accountLinks.userId, userId), gt(accountLinks.createdAt, since)))
+    .where(and(eq(accountLinks.userId, userId), eq(accountLinks.purpose, 'reset'), gt(accountLinks.createdAt, since)))
     .limit(1);
   return !!row;
 }

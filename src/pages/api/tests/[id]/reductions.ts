@@ -14,7 +14,7 @@ export const GET = endpoint(async (ctx) => {
 
 /** POST /api/tests/{id}/reductions — technician+; queues a reduction of every log with the current plan. */
 export const POST = endpoint(async (ctx) => {
-  const user = requirePermission(ctx, 'upload');
+  const user = requirePermission(ctx, 'upload', { tokenWrite: 'upload' });
   const id = await queueTestReduction(user, idParam(ctx.params.id, 'test'));
   return json({ id }, 202, { location: `/api/reductions/${id}` });
 });
