@@ -207,7 +207,10 @@ describe('the whole journey', () => {
     expect((await engineer.json(`/api/tests/${testId}`)).body.status).toBe('reviewed');
     const notice = await waitForMail(
       mailDir(),
-      (m) => m.to.includes('qa@example.com') && m.subject.includes('waits for release'),
+      (m) =>
+        m.to.includes('qa@example.com') &&
+        m.subject.includes('waits for release') &&
+        m.subject.includes('Review journey'),
     );
     expect(notice.text).toContain(`/tests/${testId}/review`);
     expect((await sign(engineer, 'release')).status).toBe(403);
