@@ -44,13 +44,19 @@ export function triggerRefusal(err: unknown): string | null {
   return d && (d.errno === 1644 || d.sqlState === '45000') ? (d.sqlMessage ?? 'refused by the database') : null;
 }
 
-const UNREACHABLE_CODES = new Set([
+/** Socket errors that mean the other side is not answering (any service). */
+export const NETWORK_ERROR_CODES = new Set([
   'ECONNREFUSED',
   'ECONNRESET',
   'ETIMEDOUT',
   'EPIPE',
   'EHOSTUNREACH',
   'ENOTFOUND',
+  'EAI_AGAIN',
+]);
+
+const UNREACHABLE_CODES = new Set([
+  ...NETWORK_ERROR_CODES,
   'PROTOCOL_CONNECTION_LOST',
   'PROTOCOL_SEQUENCE_TIMEOUT',
   'ER_SERVER_SHUTDOWN',

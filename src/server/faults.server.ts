@@ -1,18 +1,9 @@
 // Faults of the services Hoopline depends on, told apart from bugs: a stopped or unreachable
 // MariaDB, object storage that refuses or times out. They answer 503 (nothing was changed; try
 // again) and the worker retries them with back-off; a trigger's refusal answers 409.
-import { isDatabaseUnavailable, rootCause, triggerRefusal } from '../db/errors';
+import { isDatabaseUnavailable, NETWORK_ERROR_CODES, rootCause, triggerRefusal } from '../db/errors';
 import { AppError } from './errors';
 
-const NETWORK_CODES = new Set([
-  'ECONNREFUSED',
-  'ECONNRESET',
-  'ETIMEDOUT',
-  'EPIPE',
-  'EHOSTUNREACH',
-  'ENOTFOUND',
-  'EAI_AGAIN',
-]);
 const SDK_TRANSIENT_NAMES = new Set([
   'TimeoutError',
   'RequestTimeout',
@@ -30,7 +21,7 @@ export function isStorageUnavailable(err: unknown): boolean {
     const x = e as { code?: string; name?: string; message?: string; $metadata?: { httpStatusCode?: number } };
     const status = x.$metadata?.httpStatusCode;
     if (typeof status === 'number' && status >= 500) return true;
-    if (x.code && NETWORK_CODES.has(x.code)) return true;
+    if (x.code && NETWORK_ERROR_CODES.has(x.code)) return true;
     if (x.name && SDK_TRANSIENT_NAMES.has(x.name)) return true;
     if (typeof x.message === 'string' && /socket hang up|ECONNREFUSED|ECONNRESET|connect ETIMEDOUT/.test(x.message))
       return true;

@@ -44,7 +44,7 @@ describe('MariaDB stops', () => {
   it('mid-upload: the client gets 503, no log row and no object are left, and the pool recovers', async () => {
     const { testId } = await reducedTest(crew, 'DB stops mid-upload');
     const logsBefore = await objectCount(stack, `tests/${testId}/logs/`);
-    const up = slowUpload(stack, crew.technician, testId, await bigJourneyLog());
+    const up = slowUpload(stack, crew.technician, testId, bigJourneyLog());
     await new Promise((r) => setTimeout(r, 500)); // the header is checked; bytes are streaming to storage
     await stack.stopDb();
     up.finish();

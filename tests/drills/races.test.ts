@@ -122,7 +122,7 @@ describe('races', () => {
   it('a release during an upload: the release stands; the upload answers 409 and leaves no object', async () => {
     const { testId, reductionId } = await reviewedTest(crew, 'Release during upload');
     const objects = await objectCount(stack, `tests/${testId}/logs/`);
-    const up = slowUpload(stack, crew.technician, testId, await bigJourneyLog());
+    const up = slowUpload(stack, crew.technician, testId, bigJourneyLog());
     await new Promise((r) => setTimeout(r, 400)); // checked against the lock before it began streaming
     const rel = await release(testId, reductionId)();
     expect(rel.status).toBe(201);

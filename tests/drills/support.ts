@@ -1,6 +1,6 @@
 // Shared by the drills: the crew of a stack, objects in its bucket, a slowly streamed upload.
 import { ListObjectsV2Command, S3Client } from '@aws-sdk/client-s3';
-import type { Crew } from '../support/journey';
+import { journeyLog, type Crew } from '../support/journey';
 import type { Stack } from './stack';
 
 export async function crewOf(stack: Stack): Promise<Crew> {
@@ -59,24 +59,7 @@ export function slowUpload(stack: Stack, client: { cookieHeader(): string }, tes
   return { response, finish: () => release() };
 }
 
-/** A log big enough to stream for a moment (several hundred kilobytes). */
-export async function bigJourneyLog(): Promise<string> {
-  const { writeHydrotestCsv } = await import('../support/hydrotest-log');
-  const lines: string[] = [];
-  writeHydrotestCsv(
-    {
-      insideDiameter: 1000,
-      wallThickness: 10,
-      E: 200_000,
-      nu: 0.3,
-      testPressure: 2,
-      rateHz: 20,
-      channels: [
-        { name: 'SG1', angleDeg: 90 },
-        { name: 'SG2', angleDeg: 0 },
-      ],
-    },
-    (l) => lines.push(l),
-  );
-  return lines.join('\n') + '\n';
+/** A log big enough to stream for a moment (about 200 kilobytes). */
+export function bigJourneyLog(): string {
+  return journeyLog(0, { rateHz: 20 });
 }

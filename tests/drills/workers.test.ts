@@ -2,8 +2,7 @@
 // Either way the job is done exactly once, by a worker that held the lease, and a late
 // completion from a worker that lost its lease is refused.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { writeHydrotestCsv } from '../support/hydrotest-log';
-import { createTest, uploadLog, waitForReduction, type Crew } from '../support/journey';
+import { createTest, journeyLog, uploadLog, waitForReduction, type Crew } from '../support/journey';
 import { stopProcess } from '../support/processes';
 import { jsonOf, startStack, until, type Stack } from './stack';
 import { crewOf } from './support';
@@ -22,25 +21,8 @@ afterAll(async () => {
 /** A test with a log long enough that a reduction runs for several seconds. */
 async function longJob(name: string): Promise<{ testId: number; reductionId: number }> {
   const testId = await createTest(crew, name);
-  const lines: string[] = [];
-  writeHydrotestCsv(
-    {
-      insideDiameter: 1000,
-      wallThickness: 10,
-      E: 200_000,
-      nu: 0.3,
-      testPressure: 2,
-      rateHz: 200,
-      holdSeconds: 300,
-      rampSeconds: 60,
-      channels: [
-        { name: 'SG1', angleDeg: 90 },
-        { name: 'SG2', angleDeg: 0 },
-      ],
-    },
-    (l) => lines.push(l),
-  );
-  expect((await uploadLog(crew.technician, testId, lines.join('\n'))).status).toBe(201);
+  const log = journeyLog(0, { rateHz: 200, holdSeconds: 300, rampSeconds: 60 });
+  expect((await uploadLog(crew.technician, testId, log)).status).toBe(201);
   const q = await crew.technician.json(`/api/tests/${testId}/reductions`, { method: 'POST', json: {} });
   return { testId, reductionId: q.body.id };
 }

@@ -2,7 +2,7 @@
 // reviewed or released (a worker must be running). Every gauge reads true, so nothing is flagged.
 import { expect } from 'vitest';
 import type { Client } from './http';
-import { makeHydrotestCsv } from './hydrotest-log';
+import { makeHydrotestCsv, type SyntheticLogOptions } from './hydrotest-log';
 import { TEST_PASSWORD } from './processes';
 
 export const journeyPlan = {
@@ -17,8 +17,14 @@ export const journeyPlan = {
   ],
 };
 
-/** A log of the journey plan; `variant` changes the bytes (a second, different log). */
-export function journeyLog(variant = 0): string {
+/**
+ * A log of the journey plan; `variant` changes the bytes (a second, different log); `timing`
+ * makes it longer (a higher rate, longer holds).
+ */
+export function journeyLog(
+  variant = 0,
+  timing: Pick<SyntheticLogOptions, 'rateHz' | 'holdSeconds' | 'rampSeconds'> = {},
+): string {
   return (
     makeHydrotestCsv({
       insideDiameter: 1000,
@@ -30,6 +36,7 @@ export function journeyLog(variant = 0): string {
         { name: 'SG1', angleDeg: 90 },
         { name: 'SG2', angleDeg: 0 },
       ],
+      ...timing,
     }) + '\n'.repeat(variant)
   );
 }

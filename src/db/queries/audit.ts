@@ -1,6 +1,6 @@
 import { and, asc, desc, eq, gt, gte, isNull, like, lte, sql, type SQL } from 'drizzle-orm';
 import type { Conn } from '../client.server';
-import { auditChainHeads, auditEvents } from '../schema';
+import { auditChainHeads, auditEvents, type AuditEvent } from '../schema';
 import { GENESIS_HASH, auditRowHash, type ChainedContent } from './audit-chain';
 
 export interface AuditInput {
@@ -10,6 +10,18 @@ export interface AuditInput {
   testId?: number | null;
   details?: Record<string, unknown>;
 }
+
+/** What the hash covers of a stored row, at place `seq` of its chain. */
+const chainedContent = (r: AuditEvent, seq: number): ChainedContent => ({
+  chainKey: r.chainKey,
+  seq,
+  at: r.at,
+  userId: r.userId,
+  actor: r.actor,
+  action: r.action,
+  testId: r.testId,
+  details: r.details,
+});
 
 /** Lock the head of a chain (created on first use) and return where the next row goes. */
 async function lockChainHead(tx: Conn, chainKey: number): Promise<{ lastSeq: number; lastHash: string }> {
@@ -81,16 +93,7 @@ export async function sealUnchainedAuditRows(db: Conn): Promise<number> {
       await db.transaction(async (tx) => {
         const head = await lockChainHead(tx, r.chainKey);
         const seq = head.lastSeq + 1;
-        const hash = auditRowHash(head.lastHash, {
-          chainKey: r.chainKey,
-          seq,
-          at: r.at,
-          userId: r.userId,
-          actor: r.actor,
-          action: r.action,
-          testId: r.testId,
-          details: r.details,
-        });
+        const hash = auditRowHash(head.lastHash, chainedContent(r, seq));
         await tx
           .update(auditEvents)
           .set({ chainSeq: seq, prevHash: head.lastHash, hash })
@@ -138,16 +141,7 @@ export async function verifyAuditChain(db: Conn, chainKey: number): Promise<Chai
     for (const r of batch) {
       if (r.chainSeq !== expectSeq) return bad(r.id, `row ${expectSeq} of the chain is missing`);
       if (r.prevHash !== prevHash) return bad(r.id, 'the row does not link to the row before it');
-      const hash = auditRowHash(prevHash, {
-        chainKey,
-        seq: r.chainSeq,
-        at: r.at,
-        userId: r.userId,
-        actor: r.actor,
-        action: r.action,
-        testId: r.testId,
-        details: r.details,
-      });
+      const hash = auditRowHash(prevHash, chainedContent(r, r.chainSeq));
       if (hash !== r.hash) return bad(r.id, 'the row was changed after it was written');
       prevHash = hash;
       expectSeq++;

@@ -90,19 +90,21 @@ export async function claimNextReduction(db: Conn, workerId: string, leaseSecond
   });
 }
 
+/** The job is running under this worker's lease, and the lease has not run out. */
+const leaseHeld = (id: number, workerId: string) =>
+  and(
+    eq(reductions.id, id),
+    eq(reductions.leaseOwner, workerId),
+    eq(reductions.status, 'running'),
+    gt(reductions.leaseUntil, new Date()),
+  );
+
 /** Extend the lease without touching progress (the worker's lease timer); false when the job is no longer ours. */
 export async function renewLease(db: Conn, id: number, workerId: string, leaseSeconds: number): Promise<boolean> {
   const [res] = await db
     .update(reductions)
     .set({ leaseUntil: new Date(Date.now() + leaseSeconds * 1000) })
-    .where(
-      and(
-        eq(reductions.id, id),
-        eq(reductions.leaseOwner, workerId),
-        eq(reductions.status, 'running'),
-        gt(reductions.leaseUntil, new Date()),
-      ),
-    );
+    .where(leaseHeld(id, workerId));
   return res.affectedRows > 0;
 }
 
@@ -117,14 +119,7 @@ export async function heartbeatReduction(
   const [res] = await db
     .update(reductions)
     .set({ progress: Math.max(0, Math.min(1, progress)), leaseUntil: new Date(Date.now() + leaseSeconds * 1000) })
-    .where(
-      and(
-        eq(reductions.id, id),
-        eq(reductions.leaseOwner, workerId),
-        eq(reductions.status, 'running'),
-        gt(reductions.leaseUntil, new Date()),
-      ),
-    );
+    .where(leaseHeld(id, workerId));
   return res.affectedRows > 0;
 }
 
