@@ -4,6 +4,24 @@ import node from '@astrojs/node';
 import react from '@astrojs/react';
 import tailwindcss from '@tailwindcss/vite';
 import authAstro from 'auth-astro';
+import { fileURLToPath } from 'node:url';
+
+/**
+ * Make the built server entry import src/server/startup.server.ts before anything else, so the
+ * server refuses an unsafe configuration (DESIGN 6) before it listens.
+ */
+function startupChecksFirst() {
+  const startup = fileURLToPath(new URL('./src/server/startup.server.ts', import.meta.url));
+  return {
+    name: 'hoopline:startup-checks-first',
+    enforce: /** @type {const} */ ('post'),
+    /** @param {string} code @param {string} id */
+    transform(code, id) {
+      if (id !== '\0@astrojs-ssr-virtual-entry') return null;
+      return { code: `import ${JSON.stringify(startup)};\n${code}`, map: null };
+    },
+  };
+}
 
 export default defineConfig({
   output: 'server',
@@ -19,8 +37,34 @@ export default defineConfig({
       { protocol: 'http', hostname: 'localhost' },
     ],
   },
+  experimental: {
+    // Astro hashes its own inline scripts (island loader, hydration directives) and styles into
+    // each page's Content-Security-Policy header; src/server/security.server.ts adds the rest.
+    csp: {
+      directives: [
+        "default-src 'self'",
+        "img-src 'self' data: blob:",
+        "font-src 'self'",
+        "connect-src 'self'",
+        "object-src 'none'",
+        "base-uri 'self'",
+        "form-action 'self'",
+        "frame-ancestors 'none'",
+      ],
+    },
+  },
   vite: {
-    plugins: [tailwindcss()],
-    ssr: { external: ['pdfkit', 'mysql2', 'bcryptjs', 'jstat'] },
+    plugins: [tailwindcss(), startupChecksFirst()],
+    ssr: {
+      external: [
+        'pdfkit',
+        'mysql2',
+        'bcryptjs',
+        'jstat',
+        '@zxcvbn-ts/core',
+        '@zxcvbn-ts/language-common',
+        '@zxcvbn-ts/language-en',
+      ],
+    },
   },
 });

@@ -4,6 +4,7 @@
 import Credentials from '@auth/core/providers/credentials';
 import { defineConfig } from 'auth-astro';
 import { checkCredentials } from './src/server/auth/credentials.server';
+import { endSessionsOnSignOut } from './src/server/auth/sessions.server';
 
 export default defineConfig({
   secret: process.env.AUTH_SECRET,
@@ -29,14 +30,23 @@ export default defineConfig({
       if (user) {
         token.uid = (user as { id?: string }).id;
         token.role = (user as { role?: string }).role;
+        token.epoch = (user as { epoch?: number }).epoch;
       }
       return token;
     },
     session({ session, token }) {
-      const s = session as typeof session & { uid?: string; role?: string };
+      const s = session as typeof session & { uid?: string; role?: string; epoch?: number };
       s.uid = typeof token.uid === 'string' ? token.uid : undefined;
       s.role = typeof token.role === 'string' ? token.role : undefined;
+      s.epoch = typeof token.epoch === 'number' ? token.epoch : undefined;
       return s;
+    },
+  },
+  // Signing out ends every session of the account, on every device (the session epoch).
+  events: {
+    async signOut(message) {
+      const uid = 'token' in message ? message.token?.uid : undefined;
+      if (typeof uid === 'string') await endSessionsOnSignOut(Number(uid));
     },
   },
 });

@@ -30,10 +30,16 @@ export const configSchema = z.object({
   SMTP_USER: z.string().optional(),
   SMTP_PASSWORD: z.string().optional(),
   MAIL_FROM: z.string().min(3).default('Hoopline <hoopline@localhost>'),
-  AUTH_SECRET: z.string().min(16, 'must be at least 16 characters (use `openssl rand -hex 32`)').optional(),
+  AUTH_SECRET: z
+    .string()
+    .min(16, 'must be at least 16 characters (use `openssl rand -hex 32`)')
+    .optional()
+    .or(z.literal('').transform(() => undefined)),
   PUBLIC_BASE_URL: z.url().default('http://127.0.0.1:4321'),
   DEMO: bool.default(false),
-  DEMO_PASSWORD: z.string().min(8, 'must be at least 8 characters').default('hoopline-demo'),
+  DEMO_PASSWORD: z.string().min(12, 'must be at least 12 characters').default('hoopline-demo-receiver'),
+  DEMO_RESET: bool.default(false),
+  TRUST_PROXY: bool.default(false),
   MAIL_DIR: z.string().default('.data/mail'),
   UPLOAD_MAX_BYTES: z.coerce
     .number()
@@ -43,6 +49,8 @@ export const configSchema = z.object({
   WORKER_LEASE_SECONDS: z.coerce.number().int().min(5).default(60),
   WORKER_POLL_MS: z.coerce.number().int().min(50).default(1000),
   MAIL_RETRY_SECONDS: z.coerce.number().min(0.1).default(30),
+  WORKER_RETRY_BASE_MS: z.coerce.number().int().min(10).default(2000),
+  WORKER_RETRY_MAX_SECONDS: z.coerce.number().int().min(1).default(300),
 });
 
 export type Config = z.infer<typeof configSchema>;

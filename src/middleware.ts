@@ -1,18 +1,34 @@
-// Every request passes here: origin check for cookie-authenticated writes, who the caller is,
-// and turning away anonymous callers (pages redirect to /signin, the API answers 401 JSON).
-// Each endpoint still checks the role itself (src/server/http.ts requireRole).
+// Every request passes here: security headers and the body limit (src/server/security.server.ts),
+// origin check for cookie-authenticated writes, who the caller is, and turning away anonymous
+// callers (pages redirect to /signin, the API answers 401 JSON). Each endpoint still checks the
+// role itself (src/server/http.ts requirePermission).
+import type { APIContext, MiddlewareNext } from 'astro';
 import { defineMiddleware } from 'astro:middleware';
 import { AppError, errors } from './server/errors';
 import { errorResponse } from './server/http';
 import { resolveRequestUser } from './server/auth/request-user.server';
 import { getConfig } from './config.server';
+import { guardRequest } from './server/security.server';
 
-const PUBLIC_PREFIXES = ['/signin', '/api/auth/', '/api/health', '/share/', '/api/share/', '/_astro/', '/favicon'];
+const PUBLIC_PREFIXES = [
+  '/signin',
+  '/api/auth/',
+  '/api/health',
+  '/share/',
+  '/api/share/',
+  '/_astro/',
+  '/favicon',
+  '/forgot-password',
+  '/set-password/',
+  '/api/password/',
+];
 const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
 
 const isPublic = (path: string) => PUBLIC_PREFIXES.some((p) => path === p.replace(/\/$/, '') || path.startsWith(p));
 
-export const onRequest = defineMiddleware(async (ctx, next) => {
+export const onRequest = defineMiddleware((ctx, next) => guardRequest(ctx, () => resolveCaller(ctx, next)));
+
+async function resolveCaller(ctx: APIContext, next: MiddlewareNext) {
   const { request, url } = ctx;
   const path = url.pathname;
   const isApi = path.startsWith('/api/');
@@ -38,7 +54,7 @@ export const onRequest = defineMiddleware(async (ctx, next) => {
   if (path.startsWith('/api/auth/') || path.startsWith('/_astro/')) return next();
 
   try {
-    ctx.locals.user = await resolveRequestUser(request);
+    ctx.locals.user = await resolveRequestUser(request, { allowToken: isApi });
   } catch (err) {
     if (err instanceof AppError) return errorResponse(err);
     console.error('resolving the caller failed:', err);
@@ -54,4 +70,4 @@ export const onRequest = defineMiddleware(async (ctx, next) => {
     return ctx.redirect(`/signin?next=${back}`, 302);
   }
   return next();
-});
+}

@@ -5,6 +5,7 @@ import path from 'node:path';
 import { spawn } from 'node:child_process';
 import { runRootSql, startMariaDB, stopMariaDB } from '../fake-services/mariadb.mjs';
 import { freePort } from './global-setup';
+import { inviteAndActivate } from './support/accounts';
 import { Client, signedIn } from './support/http';
 import { waitForHttp } from './support/processes';
 
@@ -63,16 +64,7 @@ describe('sign-in', () => {
   it('slows down repeated failures for one e-mail: after five, even the right password waits', async () => {
     // a throwaway account, so the other test files' sign-ins are not throttled
     const admin = await signedIn('admin@example.com');
-    const made = await admin.json('/api/admin/users', {
-      method: 'POST',
-      json: {
-        email: 'throttle-check@example.com',
-        name: 'Throttle check',
-        role: 'technician',
-        password: 'a-long-password-1',
-      },
-    });
-    expect(made.status).toBe(201);
+    await inviteAndActivate(admin, 'throttle-check@example.com', 'technician', 'a-long-password-1');
     expect(await new Client().signIn('throttle-check@example.com', 'a-long-password-1')).toBe(true);
     for (let i = 0; i < 5; i++)
       expect(await new Client().signIn('throttle-check@example.com', `wrong-${i}`)).toBe(false);
@@ -137,7 +129,7 @@ describe('accounts from the command line', () => {
     const password = /password \(shown once\): (\S+)/.exec(made.stdout)?.[1];
     expect(password).toBeTruthy();
     expect(await new Client().signIn('first-admin@example.org', password)).toBe(true);
-    const again = run('another-password-1');
+    const again = run('another-quiet-harbour-41');
     expect(again.status).toBe(2);
     expect(again.stderr).toContain('exists already');
   });
@@ -197,7 +189,12 @@ describe('local services', () => {
 
     // A second app server on its own MariaDB, which we then stop.
     const dataDir = path.join(inject('dataDir'), 'mariadb-health');
-    const db = await startMariaDB({ dataDir, port: await freePort(), log: () => undefined });
+    const db = await startMariaDB({
+      dataDir,
+      port: await freePort(),
+      password: 'health-check-only-pw',
+      log: () => undefined,
+    });
     const port = await freePort();
     const env = { ...inject('env'), DATABASE_URL: db.url, HOST: '127.0.0.1', PORT: String(port) };
     const server = spawn(process.execPath, ['dist/server/entry.mjs'], {

@@ -10,7 +10,7 @@ import path from 'node:path';
 import { startMariaDB, stopMariaDB } from '../fake-services/mariadb.mjs';
 import { startS3 } from '../fake-services/s3.mjs';
 import { startSmtp } from '../fake-services/smtp.mjs';
-import { serverEnv, TEST_PASSWORD, waitForHttp } from './support/processes';
+import { serverEnv, TEST_PASSWORD, testCredentials, waitForHttp } from './support/processes';
 
 export async function freePort(): Promise<number> {
   return new Promise((resolve, reject) => {
@@ -37,19 +37,31 @@ export default async function setup(project: TestProject) {
   const dataDir = mkdtempSync(path.join(tmpdir(), 'hoopline-test-'));
   const mailDir = path.join(dataDir, 'mail');
   const [dbPort, s3Port, smtpPort, appPort] = [await freePort(), await freePort(), await freePort(), await freePort()];
-  const db = await startMariaDB({ dataDir: path.join(dataDir, 'mariadb'), port: dbPort, log: () => undefined });
+  const creds = testCredentials();
+  const db = await startMariaDB({
+    dataDir: path.join(dataDir, 'mariadb'),
+    port: dbPort,
+    password: creds.dbPassword,
+    log: () => undefined,
+  });
   const bucket = 'hoopline-test';
-  const s3 = await startS3({ directory: path.join(dataDir, 's3'), port: s3Port, bucket });
+  const s3 = await startS3({
+    directory: path.join(dataDir, 's3'),
+    port: s3Port,
+    bucket,
+    accessKeyId: creds.s3AccessKeyId,
+    secretAccessKey: creds.s3SecretAccessKey,
+  });
   const smtp = await startSmtp({ directory: mailDir, port: smtpPort });
   const baseUrl = `http://127.0.0.1:${appPort}`;
-  const env = serverEnv({ dbUrl: db.url, s3Endpoint: s3.endpoint, bucket, smtpPort, mailDir, baseUrl });
+  const env = serverEnv({ dbUrl: db.url, s3Endpoint: s3.endpoint, bucket, ...creds, smtpPort, mailDir, baseUrl });
   Object.assign(process.env, env);
 
   const { migrateDatabase } = await import('../src/db/migrate.server');
   await migrateDatabase(db.url);
   const { getDb, closeDb } = await import('../src/db/client.server');
   const { seedDemoAccounts } = await import('../src/server/demo-seed.server');
-  await seedDemoAccounts(getDb(), TEST_PASSWORD);
+  await seedDemoAccounts(getDb(), TEST_PASSWORD, { reset: true });
   await closeDb();
 
   if (process.env.HOOPLINE_SKIP_BUILD !== '1') {

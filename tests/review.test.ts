@@ -51,6 +51,19 @@ function upload(c: Client, id: number, body: string) {
   return c.json(`/api/tests/${id}/logs`, { method: 'POST', body: form });
 }
 
+/** The current reduction of the test, as the signer saw it. */
+async function currentReductionId(id: number): Promise<number> {
+  return (await engineer.json(`/api/tests/${id}`)).body.currentReduction.id;
+}
+
+/** Sign (review or release) with the reduction shown and the signer's password. */
+async function sign(c: Client, kind: 'review' | 'release', extra: Record<string, unknown> = {}) {
+  return c.json(`/api/tests/${testId}/${kind}`, {
+    method: 'POST',
+    json: { reductionId: await currentReductionId(testId), password: inject('testPassword'), ...extra },
+  });
+}
+
 async function waitDone(id: number) {
   for (let i = 0; i < 600; i++) {
     const r = await engineer.json(`/api/reductions/${id}`);
@@ -99,7 +112,7 @@ describe('the whole journey', () => {
   });
 
   it('refuses a review while a flagged gauge has no disposition, and dispositions from the wrong role', async () => {
-    const early = await engineer.json(`/api/tests/${testId}/review`, { method: 'POST', json: {} });
+    const early = await sign(engineer, 'review');
     expect(early.status).toBe(409);
     expect(early.body.error.details.gaugeIds).toEqual(['H2']);
     expect(
@@ -150,20 +163,58 @@ describe('the whole journey', () => {
     expect(list.body.latest[0].outcome).toBe('accepted');
   });
 
+  it("asks for the signer's password: a wrong one is 401 and signs nothing; a missing one is 400", async () => {
+    const wrong = await sign(engineer, 'review', { password: 'not-my-password-at-all' });
+    expect(wrong.status).toBe(401);
+    expect(wrong.body.error.code).toBe('wrong-password');
+    const missing = await engineer.json(`/api/tests/${testId}/review`, {
+      method: 'POST',
+      json: { reductionId: await currentReductionId(testId) },
+    });
+    expect(missing.status).toBe(400);
+    expect((await engineer.json(`/api/tests/${testId}`)).body.status).toBe('reduced');
+    const trail = await admin.json(`/api/tests/${testId}/audit?limit=200`);
+    expect(trail.body.items.some((e: { action: string }) => e.action === 'review-signed')).toBe(false);
+  });
+
+  it('refuses a signature on a reduction other than the current one (409), and any signature by API token', async () => {
+    const stale = await sign(engineer, 'review', { reductionId: (await currentReductionId(testId)) + 1000 });
+    expect(stale.status).toBe(409);
+    expect(stale.body.error.code).toBe('stale-reduction');
+    const made = await engineer.json('/api/account/tokens', {
+      method: 'POST',
+      json: { name: 'cannot sign', scopes: ['read', 'upload'] },
+    });
+    const viaToken = Client.withToken(made.body.token);
+    const r = await sign(viaToken, 'review');
+    expect(r.status).toBe(403);
+    expect(r.body.error.code).toBe('token-not-allowed');
+  });
+
   it('lets only the engineer sign the review, and only QA release it', async () => {
-    expect((await technician.json(`/api/tests/${testId}/review`, { method: 'POST', json: {} })).status).toBe(403);
-    expect((await admin.json(`/api/tests/${testId}/review`, { method: 'POST', json: {} })).status).toBe(403);
-    expect((await qa.json(`/api/tests/${testId}/release`, { method: 'POST', json: {} })).status).toBe(409);
-    const signed = await engineer.json(`/api/tests/${testId}/review`, { method: 'POST', json: {} });
+    expect((await sign(technician, 'review')).status).toBe(403);
+    expect((await sign(admin, 'review')).status).toBe(403);
+    expect((await sign(qa, 'release')).status).toBe(409);
+    const signed = await sign(engineer, 'review', { statement: 'Bridge completion of H2 checked on site.' });
     expect(signed.status).toBe(201);
+    // the stored signature says who, which reduction, and the statement signed
+    expect(signed.body.statement).toContain('I, Imke Sorensen (demo), have reviewed reduction');
+    expect(signed.body.statement).toContain('Remark: Bridge completion of H2 checked on site.');
+    const rec = await qa.json(`/api/tests/${testId}/record`);
+    const sig = rec.body.signatures.find((x: { kind: string }) => x.kind === 'review');
+    expect(sig.reductionId).toBe(signed.body.reductionId);
+    expect(sig.statement).toBe(signed.body.statement);
     expect((await engineer.json(`/api/tests/${testId}`)).body.status).toBe('reviewed');
     const notice = await waitForMail(
       mailDir(),
-      (m) => m.to.includes('qa@example.com') && m.subject.includes('waits for release'),
+      (m) =>
+        m.to.includes('qa@example.com') &&
+        m.subject.includes('waits for release') &&
+        m.subject.includes('Review journey'),
     );
     expect(notice.text).toContain(`/tests/${testId}/review`);
-    expect((await engineer.json(`/api/tests/${testId}/release`, { method: 'POST', json: {} })).status).toBe(403);
-    expect((await admin.json(`/api/tests/${testId}/release`, { method: 'POST', json: {} })).status).toBe(403);
+    expect((await sign(engineer, 'release')).status).toBe(403);
+    expect((await sign(admin, 'release')).status).toBe(403);
   });
 
   it('does not let the signer of the review release it, even with the QA role', async () => {
@@ -172,7 +223,7 @@ describe('the whole journey', () => {
     expect((await admin.json(`/api/admin/users/${eng.id}`, { method: 'PATCH', json: { role: 'qa' } })).status).toBe(
       200,
     );
-    const own = await engineer.json(`/api/tests/${testId}/release`, { method: 'POST', json: {} });
+    const own = await sign(engineer, 'release');
     expect(own.status).toBe(403);
     expect(own.body.error.code).toBe('own-review');
     expect(
@@ -181,8 +232,9 @@ describe('the whole journey', () => {
   });
 
   it('releases, after which every write answers 409', async () => {
-    const rel = await qa.json(`/api/tests/${testId}/release`, { method: 'POST', json: {} });
+    const rel = await sign(qa, 'release');
     expect(rel.status).toBe(201);
+    expect(rel.body.snapshotSha256).toMatch(/^[0-9a-f]{64}$/);
     expect((await qa.json(`/api/tests/${testId}`)).body.status).toBe('released');
     expect(
       (
@@ -198,7 +250,10 @@ describe('the whole journey', () => {
     expect(
       (await technician.json(`/api/tests/${testId}/notes`, { method: 'POST', json: { body: 'late note' } })).status,
     ).toBe(409);
-    expect((await qa.json(`/api/tests/${testId}/release`, { method: 'POST', json: {} })).status).toBe(409);
+    expect((await sign(qa, 'release')).status).toBe(409);
+    expect((await engineer.json(`/api/tests/${testId}`, { method: 'PATCH', json: { name: 'renamed' } })).status).toBe(
+      409,
+    );
   });
 
   it('exports the released record: CSV without DRAFT, a real PDF with its font embedded and text inside', async () => {
@@ -216,6 +271,35 @@ describe('the whole journey', () => {
     expect(text).toContain('Review journey');
     expect(text).toContain('H2');
     expect(text).not.toContain('DRAFT');
+  });
+
+  it('keeps the released record frozen when its vessel and material are edited afterwards', async () => {
+    const before = await (await qa.fetch(`/api/tests/${testId}/export.csv`)).text();
+    const t = (await engineer.json(`/api/tests/${testId}`)).body;
+    const vessel = await engineer.json(`/api/vessels/${t.vessel.id}`, {
+      method: 'PATCH',
+      json: { name: 'Renamed after release', wallThicknessMm: 12 },
+    });
+    expect(vessel.status).toBe(200);
+    const material = await engineer.json(`/api/materials/${t.material.id}`, {
+      method: 'PATCH',
+      json: { name: 'renamed steel', yieldStrengthMPa: 999 },
+    });
+    expect(material.status).toBe(200);
+    const after = await (await qa.fetch(`/api/tests/${testId}/export.csv`)).text();
+    const strip = (csv: string) => csv.replace(/^# generated_at,.*$/m, '');
+    expect(strip(after)).toBe(strip(before));
+    expect(after).not.toContain('Renamed after release');
+    const rec = (await qa.json(`/api/tests/${testId}/record`)).body;
+    expect(rec.vessel.name).not.toBe('Renamed after release');
+    expect(rec.vessel.wallThicknessMm).toBe(10);
+    expect(rec.material.name).toBe('review-test steel');
+    const report = await (await qa.fetch(`/tests/${testId}/report`)).text();
+    expect(report).not.toContain('Renamed after release');
+    const check = await qa.json(`/api/tests/${testId}/audit/verify`);
+    expect(check.status).toBe(200);
+    expect(check.body.ok).toBe(true);
+    expect(check.body.snapshot.ok).toBe(true);
   });
 
   it('shares the record by e-mail with an inspector who needs no account', async () => {
@@ -244,9 +328,23 @@ describe('the whole journey', () => {
     const page = await inspector.fetch(`/share/${token}`);
     expect(page.status).toBe(200);
     expect(await page.text()).toContain('Review journey');
+    // the share link's token is never stored: not in the database's outbox, not in the audit trail
+    const { outbox, auditEvents } = await import('../src/db/schema');
+    const stored = JSON.stringify([
+      ...(await (await db()).select().from(outbox)),
+      ...(await (await db()).select().from(auditEvents)),
+    ]);
+    expect(stored).not.toContain(token);
     const rec = await inspector.json(`/api/share/${token}`);
     expect(rec.status).toBe(200);
     expect(rec.body.result.gauges).toHaveLength(3);
+    // the inspector sees names and statements, never staff e-mail addresses
+    expect(rec.body.signatures.map((x: { name: string }) => x.name)).toContain('Imke Sorensen (demo)');
+    for (const staff of ['engineer@example.com', 'qa@example.com', 'technician@example.com'])
+      expect(JSON.stringify(rec.body)).not.toContain(staff);
+    const shared = await (await inspector.fetch(`/share/${token}`)).text();
+    for (const staff of ['engineer@example.com', 'qa@example.com']) expect(shared).not.toContain(staff);
+    expect(await (await inspector.fetch(`/api/share/${token}/export.csv`)).text()).not.toContain('qa@example.com');
     expect((await inspector.fetch(`/api/share/${token}/export.csv`)).status).toBe(200);
     expect((await inspector.fetch(`/api/share/${token}/export.pdf`)).status).toBe(200);
     expect((await inspector.json(`/api/share/${token}/series?points=100`)).status).toBe(200);

@@ -5,12 +5,21 @@ interface TokenRow {
   id: number;
   name: string;
   prefix: string;
+  scopes: string;
   createdAt: string;
+  expiresAt: string | null;
   lastUsedAt: string | null;
   revokedAt: string | null;
 }
 
-/** Create (shown once), list and revoke personal API tokens. */
+const stateOf = (t: TokenRow) =>
+  t.revokedAt
+    ? `revoked ${formatDateTime(t.revokedAt)}`
+    : !t.expiresAt || new Date(t.expiresAt).getTime() <= Date.now()
+      ? 'expired'
+      : 'active';
+
+/** Create (shown once), list and revoke personal API tokens, each with scopes and an expiry. */
 export default function ApiTokenManager() {
   const [rows, setRows] = useState<TokenRow[]>([]);
   const [fresh, setFresh] = useState<{ name: string; token: string } | null>(null);
@@ -27,12 +36,15 @@ export default function ApiTokenManager() {
   async function create(e: SubmitEvent<HTMLFormElement>) {
     e.preventDefault();
     const form = e.currentTarget;
-    const name = String(new FormData(form).get('name') ?? '');
+    const data = new FormData(form);
+    const name = String(data.get('name') ?? '');
+    const scopes = data.getAll('scopes').map(String);
+    const expiresInDays = Number(data.get('days') ?? 90);
     setError(null);
     try {
       const r = await api<{ token: string; name: string }>('/api/account/tokens', {
         method: 'POST',
-        jsonBody: { name },
+        jsonBody: { name, scopes, expiresInDays },
       });
       setFresh({ name: r.name, token: r.token });
       form.reset();
@@ -68,6 +80,21 @@ export default function ApiTokenManager() {
             maxLength={120}
           />
         </div>
+        <fieldset className="flex items-center gap-3">
+          <legend className="label">Scopes</legend>
+          <label className="flex items-center gap-1 text-sm">
+            <input type="checkbox" name="scopes" value="upload" defaultChecked /> upload logs, run reductions
+          </label>
+          <label className="flex items-center gap-1 text-sm">
+            <input type="checkbox" name="scopes" value="read" defaultChecked /> read (every GET)
+          </label>
+        </fieldset>
+        <div className="w-32">
+          <label htmlFor="token-days" className="label">
+            Valid for (days)
+          </label>
+          <input id="token-days" name="days" type="number" min={1} max={365} defaultValue={90} className="field" />
+        </div>
         <button className="btn-primary" type="submit">
           Create token
         </button>
@@ -97,7 +124,9 @@ export default function ApiTokenManager() {
           <tr>
             <th scope="col">Name</th>
             <th scope="col">Starts with</th>
+            <th scope="col">Scopes</th>
             <th scope="col">Created</th>
+            <th scope="col">Expires</th>
             <th scope="col">Last used</th>
             <th scope="col">State</th>
             <th scope="col">
@@ -108,7 +137,7 @@ export default function ApiTokenManager() {
         <tbody>
           {rows.length === 0 && (
             <tr>
-              <td colSpan={6} className="text-ink-700">
+              <td colSpan={8} className="text-ink-700">
                 No tokens yet.
               </td>
             </tr>
@@ -117,9 +146,11 @@ export default function ApiTokenManager() {
             <tr key={t.id}>
               <td>{t.name}</td>
               <td className="font-mono">{t.prefix}…</td>
+              <td>{t.scopes.replace(',', ', ')}</td>
               <td>{formatDateTime(t.createdAt)}</td>
+              <td>{formatDateTime(t.expiresAt)}</td>
               <td>{formatDateTime(t.lastUsedAt)}</td>
-              <td>{t.revokedAt ? `revoked ${formatDateTime(t.revokedAt)}` : 'active'}</td>
+              <td>{stateOf(t)}</td>
               <td>
                 {!t.revokedAt && (
                   <button className="btn-secondary" onClick={() => revoke(t.id)}>

@@ -1,5 +1,6 @@
 import { useEffect, useState, type SubmitEvent } from 'react';
 import { signIn } from 'auth-astro/client';
+import { safeNextPath } from '../lib/safe-redirect';
 
 interface Props {
   next: string;
@@ -33,7 +34,7 @@ export default function SignInForm({ next, initialError = null }: Props) {
       );
       return;
     }
-    window.location.href = next.startsWith('/') ? next : '/';
+    window.location.href = safeNextPath(next);
   }
 
   return (

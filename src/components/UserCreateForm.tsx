@@ -3,7 +3,10 @@ import { api } from './api';
 
 const ROLES = ['technician', 'engineer', 'qa', 'admin'] as const;
 
-/** The admin's form for a new account; the first password is typed here and passed on in person. */
+/**
+ * The admin's form for a new account. The person receives an e-mail with a one-time link and
+ * chooses their own password: no administrator ever knows it.
+ */
 export default function UserCreateForm({ onCreated }: { onCreated: () => void }) {
   const [error, setError] = useState<string | null>(null);
   const [done, setDone] = useState<string | null>(null);
@@ -17,9 +20,9 @@ export default function UserCreateForm({ onCreated }: { onCreated: () => void })
     try {
       await api('/api/admin/users', {
         method: 'POST',
-        jsonBody: { email: d.get('email'), name: d.get('name'), role: d.get('role'), password: d.get('password') },
+        jsonBody: { email: d.get('email'), name: d.get('name'), role: d.get('role') },
       });
-      setDone(`Account ${d.get('email')} created.`);
+      setDone(`Invitation sent to ${d.get('email')}: they choose their password from the e-mailed link (7 days).`);
       form.reset();
       onCreated();
     } catch (err) {
@@ -30,7 +33,7 @@ export default function UserCreateForm({ onCreated }: { onCreated: () => void })
   return (
     <form
       onSubmit={create}
-      className="grid gap-3 md:grid-cols-[1fr_1fr_10rem_1fr_auto] md:items-end"
+      className="grid gap-3 md:grid-cols-[1fr_1fr_10rem_auto] md:items-end"
       aria-label="New account"
     >
       <div>
@@ -57,30 +60,16 @@ export default function UserCreateForm({ onCreated }: { onCreated: () => void })
           ))}
         </select>
       </div>
-      <div>
-        <label htmlFor="nu-password" className="label">
-          First password (10+ characters)
-        </label>
-        <input
-          id="nu-password"
-          name="password"
-          type="password"
-          minLength={10}
-          required
-          autoComplete="new-password"
-          className="field"
-        />
-      </div>
       <button type="submit" className="btn-primary">
-        Create account
+        Send invitation
       </button>
       {error && (
-        <p role="alert" className="error-text md:col-span-5">
+        <p role="alert" className="error-text md:col-span-4">
           {error}
         </p>
       )}
       {done && (
-        <p role="status" className="text-sm text-ok md:col-span-5">
+        <p role="status" className="text-sm text-ok md:col-span-4">
           {done}
         </p>
       )}

@@ -1,10 +1,21 @@
 // The one database connection pool. Server-only: islands never import this.
-import { drizzle, type MySql2Database } from 'drizzle-orm/mysql2';
+import type { MySqlDatabase } from 'drizzle-orm/mysql-core';
+import {
+  drizzle,
+  type MySql2Database,
+  type MySql2PreparedQueryHKT,
+  type MySql2QueryResultHKT,
+} from 'drizzle-orm/mysql2';
 import mysql from 'mysql2/promise';
 import { getConfig } from '../config.server';
+import { isDeadlock } from './errors';
 import * as schema from './schema';
 
 export type Db = MySql2Database<typeof schema>;
+/** A transaction on the app's database. */
+export type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
+/** The pool-backed database or a transaction on it: every query function takes either. */
+export type Conn = MySqlDatabase<MySql2QueryResultHKT, MySql2PreparedQueryHKT, typeof schema>;
 
 let handle: { pool: mysql.Pool; db: Db } | null = null;
 
@@ -32,6 +43,22 @@ function open(): { pool: mysql.Pool; db: Db } {
 
 export function getDb(): Db {
   return open().db;
+}
+
+/**
+ * Run `fn` in one transaction (REPEATABLE READ): it commits when `fn` resolves and rolls back
+ * when it throws. When MariaDB picks it as a deadlock victim it runs again, at most three times,
+ * so `fn` must only touch the database.
+ */
+export async function inTransaction<T>(fn: (tx: Tx) => Promise<T>, db: Db = getDb()): Promise<T> {
+  for (let attempt = 1; ; attempt++) {
+    try {
+      return await db.transaction(fn);
+    } catch (err) {
+      if (attempt >= 3 || !isDeadlock(err)) throw err;
+      await new Promise((r) => setTimeout(r, 20 * attempt + Math.random() * 30));
+    }
+  }
 }
 
 /** The raw pool (health checks, FOR UPDATE SKIP LOCKED claims). */

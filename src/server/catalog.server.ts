@@ -1,6 +1,6 @@
 // Vessels and materials as the API shows and edits them (stored in SI).
 import { z } from 'zod';
-import { getDb } from '../db/client.server';
+import { getDb, inTransaction } from '../db/client.server';
 import {
   findMaterial,
   findVessel,
@@ -52,16 +52,21 @@ export const vesselBody = z
     message: 'must be less than the inside radius',
   });
 
-export async function createMaterial(user: RequestUser, body: z.infer<typeof materialBody>) {
-  const id = await insertMaterial(getDb(), body);
-  await auditBy(user, 'material-created', null, { materialId: id, name: body.name });
-  return id;
+export function createMaterial(user: RequestUser, body: z.infer<typeof materialBody>) {
+  return inTransaction(async (tx) => {
+    const id = await insertMaterial(tx, body);
+    await auditBy(tx, user, 'material-created', null, { materialId: id, name: body.name });
+    return id;
+  });
 }
 
+/** Edit a material. A released test keeps the material it was released with (its frozen record). */
 export async function editMaterial(user: RequestUser, id: number, patch: Partial<z.infer<typeof materialBody>>) {
-  if (!(await findMaterial(getDb(), id))) throw errors.notFound('material');
-  await updateMaterial(getDb(), id, patch);
-  await auditBy(user, 'material-changed', null, { materialId: id, ...patch });
+  await inTransaction(async (tx) => {
+    if (!(await findMaterial(tx, id))) throw errors.notFound('material');
+    await updateMaterial(tx, id, patch);
+    await auditBy(tx, user, 'material-changed', null, { materialId: id, ...patch });
+  });
 }
 
 export async function createVessel(user: RequestUser, body: z.infer<typeof vesselBody>) {
@@ -70,16 +75,19 @@ export async function createVessel(user: RequestUser, body: z.infer<typeof vesse
     throw new AppError('tag-taken', `A vessel tagged '${body.tag}' exists already.`);
   if (body.materialId && !(await findMaterial(db, body.materialId)))
     throw errors.invalid('materialId: no material with that id');
-  const id = await insertVessel(db, {
-    ...body,
-    lengthMm: body.lengthMm ?? null,
-    materialId: body.materialId ?? null,
-    createdBy: user.id,
+  return inTransaction(async (tx) => {
+    const id = await insertVessel(tx, {
+      ...body,
+      lengthMm: body.lengthMm ?? null,
+      materialId: body.materialId ?? null,
+      createdBy: user.id,
+    });
+    await auditBy(tx, user, 'vessel-created', null, { vesselId: id, tag: body.tag });
+    return id;
   });
-  await auditBy(user, 'vessel-created', null, { vesselId: id, tag: body.tag });
-  return id;
 }
 
+/** Edit a vessel. A released test keeps the vessel it was released with (its frozen record). */
 export async function editVessel(user: RequestUser, id: number, patch: Record<string, unknown>) {
   const db = getDb();
   const before = await findVessel(db, id);
@@ -95,10 +103,12 @@ export async function editVessel(user: RequestUser, id: number, patch: Record<st
     if (other && other.id !== id)
       throw new AppError('tag-taken', `A vessel tagged '${merged.data.tag}' exists already.`);
   }
-  await updateVessel(db, id, {
-    ...merged.data,
-    lengthMm: merged.data.lengthMm ?? null,
-    materialId: merged.data.materialId ?? null,
+  await inTransaction(async (tx) => {
+    await updateVessel(tx, id, {
+      ...merged.data,
+      lengthMm: merged.data.lengthMm ?? null,
+      materialId: merged.data.materialId ?? null,
+    });
+    await auditBy(tx, user, 'vessel-changed', null, { vesselId: id, fields: Object.keys(patch) });
   });
-  await auditBy(user, 'vessel-changed', null, { vesselId: id, fields: Object.keys(patch) });
 }

@@ -3,8 +3,10 @@
 // hydrotested at 1.95 MPa (1.3 × MAWP 1.5 MPa). One test is logged and queued for reduction (the
 // worker reduces it on start) with one axial gauge reading 12 % low (a poor bond) and one hoop
 // gauge beside the nozzle (edge zone); a second test is still in planning.
-// Idempotent: accounts are put back to their demo role and password; other rows are created once.
-import { getDb, type Db } from '../db/client.server';
+// Idempotent: a missing account is created; an existing one is left alone unless `reset` (the
+// seed script passes DEMO_RESET=true), which puts it back to its demo role and password and
+// enables it. Other rows are created once.
+import { getDb, inTransaction, type Db } from '../db/client.server';
 import { insertLog } from '../db/queries/logs';
 import { queueReduction } from '../db/queries/reductions';
 import { findTestByName, insertNote, insertTest, replaceGauges, updateTest } from '../db/queries/tests';
@@ -12,6 +14,7 @@ import { createUser, findUserByEmail, resetUser } from '../db/queries/users';
 import { findMaterialByName, findVesselByTag, insertMaterial, insertVessel } from '../db/queries/vessels';
 import type { Role } from '../lib/roles';
 import { hashPassword } from './auth/passwords.server';
+import { passwordProblem } from './auth/password-policy.server';
 import { createHash } from 'node:crypto';
 import { inspectLogHead, parsePlan, type PlanInput } from '../lib/reduction';
 import { syntheticLog } from '../lib/reduction/testing/synthetic-log';
@@ -44,13 +47,29 @@ export const demoVessel = {
   features: [{ kind: 'nozzle', axialPosition: 2100, clockDeg: 0, size: 150 }],
 };
 
-/** The demo accounts (with `password`), the generic materials and the demo vessel. */
-export async function seedDemoAccounts(db: Db, password: string): Promise<{ users: number; materials: number }> {
+/**
+ * The demo accounts (with `password`), the generic materials and the demo vessel. Existing
+ * accounts keep their password, role and state unless `reset` is true (DEMO_RESET=true).
+ */
+export async function seedDemoAccounts(
+  db: Db,
+  password: string,
+  opts: { reset: boolean },
+): Promise<{ users: number; created: number; reset: number; materials: number }> {
+  const problem = passwordProblem(password);
+  if (problem) throw new Error(`DEMO_PASSWORD: ${problem}`);
   const passwordHash = await hashPassword(password);
+  let created = 0;
+  let reset = 0;
   for (const a of demoAccounts) {
     const existing = await findUserByEmail(db, a.email);
-    if (existing) await resetUser(db, existing.id, { role: a.role, passwordHash });
-    else await createUser(db, { ...a, passwordHash });
+    if (!existing) {
+      await createUser(db, { ...a, passwordHash });
+      created++;
+    } else if (opts.reset) {
+      await resetUser(db, existing.id, { role: a.role, passwordHash });
+      reset++;
+    }
   }
   let steelId: number | null = null;
   for (const m of genericMaterials) {
@@ -58,7 +77,7 @@ export async function seedDemoAccounts(db: Db, password: string): Promise<{ user
     if (m.name.startsWith('Carbon')) steelId = id;
   }
   if (!(await findVesselByTag(db, demoVessel.tag))) await insertVessel(db, { ...demoVessel, materialId: steelId });
-  return { users: demoAccounts.length, materials: genericMaterials.length };
+  return { users: demoAccounts.length, created, reset, materials: genericMaterials.length };
 }
 
 export const demoPlan: PlanInput & { remarks?: string } = {
@@ -161,19 +180,21 @@ export async function seedDemoScenario(): Promise<string[]> {
     });
     const reductionId = await queueReduction(db, { testId, plan: demoPlan, logIds: [logId], queuedBy: technician.id });
     await updateTest(db, testId, {});
-    await audit({
-      userId: technician.id,
-      actor: technician.email,
-      action: 'log-uploaded',
-      testId,
-      details: { logId, demo: true },
-    });
-    await audit({
-      userId: technician.id,
-      actor: technician.email,
-      action: 'reduction-queued',
-      testId,
-      details: { reductionId, demo: true },
+    await inTransaction(async (tx) => {
+      await audit(tx, {
+        userId: technician.id,
+        actor: technician.email,
+        action: 'log-uploaded',
+        testId,
+        details: { logId, demo: true },
+      });
+      await audit(tx, {
+        userId: technician.id,
+        actor: technician.email,
+        action: 'reduction-queued',
+        testId,
+        details: { reductionId, demo: true },
+      });
     });
     done.push(LOGGED);
   }

@@ -12,9 +12,19 @@ export const errorCatalogue = {
   unauthenticated: { status: 401, message: 'Sign in, or send Authorization: Bearer <API token>.' },
   'invalid-token': {
     status: 401,
-    message: 'The API token is unknown or has been revoked. Create a new one on your account page.',
+    message: 'The API token is unknown, expired or revoked. Create a new one on your account page.',
+  },
+  'wrong-password': {
+    status: 401,
+    message: 'That is not your password; nothing was signed. Type the password you sign in with.',
   },
   forbidden: { status: 403, message: 'Your role may not do this. Ask an administrator if you should.' },
+  'token-not-allowed': {
+    status: 403,
+    message:
+      'An API token cannot do this: sign in to Hoopline in the browser. Tokens upload logs and read; they never sign or manage accounts.',
+  },
+  'token-scope': { status: 403, message: 'This API token lacks the scope for this request.' },
   'cross-origin': {
     status: 403,
     message: 'Cross-site requests are refused. Submit the form from Hoopline itself, or use an API token.',
@@ -24,6 +34,22 @@ export const errorCatalogue = {
     message: 'You signed the engineering review of this test; another person must release it.',
   },
   'not-found': { status: 404, message: 'Nothing with that id.' },
+  'own-account': {
+    status: 409,
+    message: 'You cannot disable your own account; ask another administrator.',
+  },
+  'stale-reduction': {
+    status: 409,
+    message: 'The record changed since you opened it. Reload the page, check the current reduction, then sign.',
+  },
+  'plan-changed': {
+    status: 409,
+    message: 'The test plan changed while the log was uploading; nothing was stored. Upload the log again.',
+  },
+  'database-refused': {
+    status: 409,
+    message: 'The database refused the change because the record is locked; nothing was changed.',
+  },
   'method-not-allowed': { status: 405, message: 'This address is read-only.' },
   'test-released': { status: 409, message: 'This test is released and locked; nothing about it can change.' },
   'no-result': { status: 409, message: 'There is no finished reduction yet. Upload a log and run a reduction first.' },
@@ -50,10 +76,23 @@ export const errorCatalogue = {
     message: 'You cannot take the admin role from your own account; ask another administrator.',
   },
   'link-gone': { status: 410, message: 'This link has expired or been revoked. Ask the QA manager for a new one.' },
+  'account-link-gone': {
+    status: 410,
+    message:
+      'This link has been used already or has expired. Ask for a new one on the sign-in page or from an administrator.',
+  },
   'too-large': { status: 413, message: 'The request is larger than the limit.' },
   'invalid-plan': { status: 422, message: 'The test plan is not valid.' },
   'unknown-gauge': { status: 422, message: 'The current reduction has no gauge with that id.' },
   'empty-file': { status: 422, message: 'The file is empty.' },
+  'weak-password': {
+    status: 422,
+    message: 'Choose a longer or less common password: at least 12 characters that are not easy to guess.',
+  },
+  throttled: {
+    status: 429,
+    message: 'Too many failed attempts. Wait a little and try again.',
+  },
   unavailable: {
     status: 503,
     message: 'A service Hoopline needs is not answering; nothing was changed. Try again shortly.',
@@ -101,10 +140,24 @@ export const errors = {
       `This needs the role ${rolesFor(permission).join(' or ')}. Ask an administrator if you should have it.`,
     ),
   notFound: (what: string) => new AppError('not-found', `No ${what} with that id.`),
+  tooLargeBody: (limitBytes: number) =>
+    new AppError('too-large', `The request body is larger than the limit of ${Math.round(limitBytes / 1024)} KB.`, {
+      limitBytes,
+    }),
   tooLarge: (limitBytes: number) =>
     new AppError('too-large', `The file is larger than the limit of ${Math.round(limitBytes / 1024 / 1024)} MB.`, {
       limitBytes,
     }),
   invalid: (message: string, details?: unknown) => new AppError('invalid-request', message, details),
   unavailable: (message?: string) => new AppError('unavailable', message),
+  throttled: (waitMs: number) =>
+    new AppError('throttled', `Too many failed attempts. Wait ${Math.ceil(waitMs / 1000)} s and try again.`, {
+      retryAfterSeconds: Math.ceil(waitMs / 1000),
+    }),
+  tokenScope: (scope: string) =>
+    new AppError(
+      'token-scope',
+      `This API token lacks the \`${scope}\` scope. Create a token with it on your account page.`,
+      { needs: scope },
+    ),
 };

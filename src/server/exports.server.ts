@@ -5,8 +5,11 @@ import { renderReportPdf } from './reports/pdf';
 import { AppError } from './errors';
 import type { TestRecord } from './record.server';
 
-/** The renderers' input for a record with a finished reduction (409 without one). */
-export function buildReportInput(r: TestRecord, now = new Date()): ReportInput {
+/**
+ * The renderers' input for a record with a finished reduction (409 without one). Through a
+ * share link (`forInspector`) the signers' e-mail addresses are left out.
+ */
+export function buildReportInput(r: TestRecord, now = new Date(), forInspector = false): ReportInput {
   if (!r.result || !r.reduction || !r.plan)
     throw new AppError('no-result', 'There is nothing to export yet: the test has no finished reduction.');
   const plan = r.plan;
@@ -51,14 +54,20 @@ export function buildReportInput(r: TestRecord, now = new Date()): ReportInput {
     verdict: r.verdict ?? r.result.verdict,
     signatures: r.signatures
       .filter((s) => s.reductionId === r.reduction!.id)
-      .map((s) => ({ kind: s.kind, name: s.name, email: s.email, at: s.createdAt, reductionId: s.reductionId })),
+      .map((s) => ({
+        kind: s.kind,
+        name: s.name,
+        email: forInspector ? '' : s.email,
+        at: s.createdAt,
+        reductionId: s.reductionId,
+      })),
   };
 }
 
 const fileStem = (r: TestRecord) => `hoopline-test-${r.test.id}-${r.test.status === 'released' ? 'released' : 'draft'}`;
 
-export function csvResponse(r: TestRecord): Response {
-  const body = renderSummaryCsv(buildReportInput(r));
+export function csvResponse(r: TestRecord, forInspector = false): Response {
+  const body = renderSummaryCsv(buildReportInput(r, new Date(), forInspector));
   return new Response(body, {
     headers: {
       'content-type': 'text/csv; charset=utf-8',
@@ -68,8 +77,8 @@ export function csvResponse(r: TestRecord): Response {
   });
 }
 
-export async function pdfResponse(r: TestRecord): Promise<Response> {
-  const pdf = await renderReportPdf(buildReportInput(r));
+export async function pdfResponse(r: TestRecord, forInspector = false): Promise<Response> {
+  const pdf = await renderReportPdf(buildReportInput(r, new Date(), forInspector));
   return new Response(new Uint8Array(pdf), {
     headers: {
       'content-type': 'application/pdf',

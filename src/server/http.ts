@@ -1,8 +1,14 @@
-// Small helpers every endpoint uses: JSON responses, the error shape, role checks, body parsing.
+// Small helpers every endpoint uses: JSON responses, the error shape, role and token-scope
+// checks, body parsing with a size limit.
 import type { APIContext } from 'astro';
 import { z } from 'zod';
 import { can, type Permission, type Role } from '../lib/roles';
 import { AppError, errors, toAppError } from './errors';
+import { describeFault, faultToAppError } from './faults.server';
+
+/** What an API token may do: `read` every GET; `upload` logs, live sessions and reductions. */
+export const tokenScopes = ['read', 'upload'] as const;
+export type TokenScope = (typeof tokenScopes)[number];
 
 export interface RequestUser {
   id: number;
@@ -10,7 +16,12 @@ export interface RequestUser {
   name: string;
   role: Role;
   via: 'session' | 'token';
+  /** the token's scopes; null for a browser session */
+  scopes: readonly TokenScope[] | null;
 }
+
+/** The largest JSON body any endpoint reads (DESIGN 6): larger answers 413 before parsing. */
+export const JSON_BODY_LIMIT = 1024 * 1024;
 
 export function json(data: unknown, status = 200, headers: Record<string, string> = {}): Response {
   return new Response(JSON.stringify(data), {
@@ -20,31 +31,92 @@ export function json(data: unknown, status = 200, headers: Record<string, string
 }
 
 export function errorResponse(err: AppError): Response {
-  return json({ error: { code: err.code, message: err.message, details: err.details ?? null } }, err.status);
+  const retry = (err.details as { retryAfterSeconds?: number } | undefined)?.retryAfterSeconds;
+  return json(
+    { error: { code: err.code, message: err.message, details: err.details ?? null } },
+    err.status,
+    retry ? { 'retry-after': String(retry) } : {},
+  );
 }
 
-/** The signed-in user, or 401. */
-export function requireUser(ctx: Pick<APIContext, 'locals'>): RequestUser {
+type Ctx = Pick<APIContext, 'locals' | 'request'>;
+const isRead = (request: Request) => request.method === 'GET' || request.method === 'HEAD';
+
+function requireScope(user: RequestUser, scope: TokenScope): void {
+  if (user.via === 'token' && !user.scopes?.includes(scope)) throw errors.tokenScope(scope);
+}
+
+/**
+ * The signed-in user, or 401. An API token passes only for reading (scope `read`); a token can
+ * never write through an endpoint that asks for a plain user (its own tokens, for one).
+ */
+export function requireUser(ctx: Ctx): RequestUser {
   const user = ctx.locals.user;
   if (!user) throw new AppError('unauthenticated');
+  if (user.via === 'token') {
+    if (!isRead(ctx.request)) throw new AppError('token-not-allowed');
+    requireScope(user, 'read');
+  }
+  return user;
+}
+
+/** A person signed in with the browser: API tokens are refused (signing, managing tokens). */
+export function requireSessionUser(ctx: Ctx, permission?: Permission): RequestUser {
+  const user = ctx.locals.user;
+  if (!user) throw new AppError('unauthenticated');
+  if (user.via === 'token') throw new AppError('token-not-allowed');
+  if (permission && !can(user.role, permission)) throw errors.forbidden(permission);
   return user;
 }
 
 /**
  * The signed-in user if their role holds `permission` (src/lib/roles.ts, DESIGN 1), else 401/403.
+ * With an API token a GET also needs the `read` scope, and a write is refused unless the endpoint
+ * names the scope that allows it (`tokenWrite: 'upload'` for logs, live sessions and reductions).
  * Every endpoint calls this itself; the UI hiding a button is not security.
  */
-export function requirePermission(ctx: Pick<APIContext, 'locals'>, permission: Permission): RequestUser {
-  const user = requireUser(ctx);
+export function requirePermission(
+  ctx: Ctx,
+  permission: Permission,
+  opts: { tokenWrite?: TokenScope } = {},
+): RequestUser {
+  const user = ctx.locals.user;
+  if (!user) throw new AppError('unauthenticated');
   if (!can(user.role, permission)) throw errors.forbidden(permission);
+  if (user.via === 'token') {
+    if (isRead(ctx.request)) requireScope(user, 'read');
+    else if (!opts.tokenWrite) throw new AppError('token-not-allowed');
+    else requireScope(user, opts.tokenWrite);
+  }
   return user;
 }
 
-/** Parse a JSON body with a zod schema; 400 naming the fields when it does not fit. */
+/** The body as text, refusing more than `limit` bytes whatever Content-Length says (413). */
+export async function readBodyText(request: Request, limit = JSON_BODY_LIMIT): Promise<string> {
+  const declared = Number(request.headers.get('content-length') ?? NaN);
+  if (Number.isFinite(declared) && declared > limit) throw errors.tooLargeBody(limit);
+  if (!request.body) return '';
+  const reader = request.body.getReader();
+  const parts: Uint8Array[] = [];
+  let size = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    size += value.byteLength;
+    if (size > limit) {
+      await reader.cancel().catch(() => undefined);
+      throw errors.tooLargeBody(limit);
+    }
+    parts.push(value);
+  }
+  return Buffer.concat(parts).toString('utf8');
+}
+
+/** Parse a JSON body (at most 1 MB) with a zod schema; 400 naming the fields when it does not fit. */
 export async function readJson<T extends z.ZodType>(request: Request, schema: T): Promise<z.infer<T>> {
+  const text = await readBodyText(request);
   let body: unknown;
   try {
-    const text = await request.text();
     body = text.length ? JSON.parse(text) : {};
   } catch {
     throw errors.invalid('The request body is not valid JSON.');
@@ -70,14 +142,23 @@ export function idParam(value: string | undefined, what: string): number {
 
 type Handler = (ctx: APIContext) => Promise<Response> | Response;
 
-/** Wrap an endpoint: AppErrors become the error shape; anything else is logged and answers 500. */
+/**
+ * Wrap an endpoint: AppErrors become the error shape; a stopped database or storage answers 503;
+ * anything else is logged and answers 500 with no internal detail.
+ */
 export function endpoint(handler: Handler): Handler {
   return async (ctx) => {
     try {
       return await handler(ctx);
     } catch (err) {
       const mapped = mapError(err);
-      if (mapped) return errorResponse(mapped);
+      if (mapped) {
+        if (mapped.status === 503)
+          console.error(
+            `[${new Date().toISOString()}] ${ctx.request.method} ${ctx.url.pathname}: ${describeFault(err)}`,
+          );
+        return errorResponse(mapped);
+      }
       console.error(`[${new Date().toISOString()}] ${ctx.request.method} ${ctx.url.pathname} failed:`, err);
       return errorResponse(new AppError('internal'));
     }
@@ -87,5 +168,5 @@ export function endpoint(handler: Handler): Handler {
 /** Map known error kinds to an AppError (zod errors from a handler are a bad request). */
 export function mapError(err: unknown): AppError | null {
   if (err instanceof z.ZodError) return zodToAppError(err);
-  return toAppError(err);
+  return toAppError(err) ?? faultToAppError(err);
 }

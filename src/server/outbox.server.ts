@@ -1,14 +1,33 @@
 // E-mail goes through the outbox table: a message is stored first and sent after, so an SMTP
-// outage delays it instead of losing it. Senders (the app right after enqueueing, and the
-// worker process on every poll) claim a due message, try it, and back off on failure.
-import { getDb } from '../db/client.server';
+// outage delays it instead of losing it. Bodies are stored encrypted (secret-box.server.ts):
+// they carry share and invitation links. Senders (the app right after a change commits, and
+// the worker process on every poll) claim a due message, try it, and back off on failure.
+import { getDb, type Conn } from '../db/client.server';
 import { claimMail, enqueueMail, listDueMail, markMailRetry, markMailSent } from '../db/queries/review';
 import { getConfig } from '../config.server';
 import { sendMail } from './mail.server';
+import { openText, sealText } from './secret-box.server';
 
 const MAX_ATTEMPTS = 12;
 const backoffMs = (attempt: number) =>
   Math.min(getConfig().MAIL_RETRY_SECONDS * 1000 * 2 ** Math.max(0, attempt - 1), 60 * 60_000);
+
+export interface OutgoingMail {
+  to: string;
+  subject: string;
+  text: string;
+  testId?: number | null;
+}
+
+/** Store a message inside the caller's transaction (it is sent once that commits: call kickOutbox). */
+export async function enqueueMailIn(db: Conn, m: OutgoingMail): Promise<number> {
+  return enqueueMail(db, { toAddress: m.to, subject: m.subject, textBody: sealText(m.text), testId: m.testId ?? null });
+}
+
+/** Try the due messages now, without waiting for the answer. */
+export function kickOutbox(): void {
+  void deliverDueMail().catch(() => undefined);
+}
 
 /** Store a message and try to send it at once (without waiting for the answer). */
 export async function queueMail(
@@ -17,8 +36,8 @@ export async function queueMail(
   textBody: string,
   testId: number | null = null,
 ): Promise<number> {
-  const id = await enqueueMail(getDb(), { toAddress, subject, textBody, testId });
-  void deliverDueMail().catch(() => undefined);
+  const id = await enqueueMailIn(getDb(), { to: toAddress, subject, text: textBody, testId });
+  kickOutbox();
   return id;
 }
 
@@ -28,8 +47,21 @@ export async function deliverDueMail(): Promise<number> {
   let sent = 0;
   for (const m of await listDueMail(db)) {
     if (!(await claimMail(db, m.id, 60_000))) continue;
+    let text: string;
     try {
-      await sendMail(m.toAddress, m.subject, m.textBody);
+      text = openText(m.textBody);
+    } catch {
+      await markMailRetry(
+        db,
+        m.id,
+        'the body cannot be decrypted: AUTH_SECRET changed since it was queued',
+        new Date(),
+        true,
+      );
+      continue;
+    }
+    try {
+      await sendMail(m.toAddress, m.subject, text);
       await markMailSent(db, m.id);
       sent++;
     } catch (err) {

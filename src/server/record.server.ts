@@ -1,16 +1,18 @@
 // A test's record as people review, export and share it: the test, its vessel and material,
 // the plan, the current reduction's result with the engineers' dispositions applied, the
 // signatures and the logs. One loader, so the review page, the exports and the inspector's link
-// always show the same thing.
-import { getDb } from '../db/client.server';
+// always show the same thing. A released test's record is the snapshot frozen at release
+// (src/server/snapshot.server.ts), never the live vessel, material or reduction rows.
+import { getDb, type Conn } from '../db/client.server';
 import { listLogs } from '../db/queries/logs';
 import { findReduction } from '../db/queries/reductions';
 import { listDispositions, listSignatures } from '../db/queries/review';
-import { findTestWithVessel } from '../db/queries/tests';
+import { findTest, findTestWithVessel } from '../db/queries/tests';
 import { applyDispositions, type DispositionedGauge } from '../lib/reduction/dispositions';
 import { parsePlan, type Plan } from '../lib/reduction/plan';
 import type { ReductionResult, TestVerdict } from '../lib/reduction/types';
 import { errors } from './errors';
+import { loadFrozenRecord } from './snapshot.server';
 
 export interface LatestDisposition {
   gaugeId: string;
@@ -21,10 +23,43 @@ export interface LatestDisposition {
   at: Date;
 }
 
-export async function loadTestRecord(testId: number) {
-  const db = getDb();
+type TestWithVessel = NonNullable<Awaited<ReturnType<typeof findTestWithVessel>>>;
+
+/** The record from the live rows (inside a transaction, pass it: the release freezes this). */
+export async function loadLiveRecord(testId: number, db: Conn = getDb()) {
   const row = await findTestWithVessel(db, testId);
   if (!row) throw errors.notFound('test');
+  return assembleRecord(db, row);
+}
+
+/** The record people see: for a released test its frozen snapshot, otherwise the live rows. */
+export async function loadTestRecord(testId: number, db: Conn = getDb()): Promise<TestRecord> {
+  const row = await findTestWithVessel(db, testId);
+  if (!row) throw errors.notFound('test');
+  if (row.test.status === 'released') {
+    const frozen = await loadFrozenRecord(db, testId);
+    // a test released before snapshots existed has none: its live rows are all there is
+    if (frozen) return frozen;
+  }
+  return assembleRecord(db, row);
+}
+
+/**
+ * The stored time history of the reduction the record shows (the released one, from the frozen
+ * record, for a released test), or null before any reduction finished. 404 for no such test.
+ */
+export async function seriesKeyOf(testId: number, db: Conn = getDb()): Promise<string | null> {
+  const test = await findTest(db, testId);
+  if (!test) throw errors.notFound('test');
+  if (test.status === 'released') {
+    const frozen = await loadFrozenRecord(db, testId);
+    if (frozen) return frozen.reduction?.seriesKey ?? null;
+  }
+  const reduction = test.currentReductionId ? await findReduction(db, test.currentReductionId) : undefined;
+  return reduction?.seriesKey ?? null;
+}
+
+async function assembleRecord(db: Conn, row: TestWithVessel) {
   const { test } = row;
   let plan: Plan | null = null;
   try {
@@ -36,8 +71,8 @@ export async function loadTestRecord(testId: number) {
   const result = reduction?.status === 'done' ? (reduction.result as ReductionResult) : null;
   const [allDispositions, signatures, logs] = await Promise.all([
     reduction ? listDispositions(db, reduction.id) : Promise.resolve([]),
-    listSignatures(db, testId),
-    listLogs(db, testId),
+    listSignatures(db, test.id),
+    listLogs(db, test.id),
   ]);
   const latest = new Map<string, LatestDisposition>();
   for (const d of allDispositions)
@@ -77,7 +112,7 @@ export async function loadTestRecord(testId: number) {
   };
 }
 
-export type TestRecord = Awaited<ReturnType<typeof loadTestRecord>>;
+export type TestRecord = Awaited<ReturnType<typeof assembleRecord>>;
 
 /** The serialisable view of a record for the API, the share link and the islands. */
 export function recordView(r: TestRecord) {
@@ -126,4 +161,36 @@ export function recordView(r: TestRecord) {
     })),
     openFlags: r.openFlags,
   };
+}
+
+/**
+ * The record as the inspector's link shows it: no staff e-mail addresses and no internal error
+ * text (a failed reduction says only that it failed). Names and the signed statements stay.
+ */
+export function shareRecordView(r: TestRecord) {
+  const view = recordView(r);
+  return {
+    ...view,
+    reduction: view.reduction
+      ? {
+          ...view.reduction,
+          error: view.reduction.error ? 'The reduction did not finish; the engineer has the details.' : null,
+        }
+      : null,
+    result: view.result
+      ? {
+          ...view.result,
+          gauges: view.result.gauges.map((g) =>
+            g.disposition ? { ...g, disposition: withoutEmail(g.disposition as LatestDisposition) } : g,
+          ),
+        }
+      : null,
+    dispositions: view.dispositions.map(withoutEmail),
+    signatures: view.signatures.map(({ email: _email, ...s }) => s),
+  };
+}
+
+function withoutEmail<T extends { byEmail?: string }>(d: T): Omit<T, 'byEmail'> {
+  const { byEmail: _byEmail, ...rest } = d;
+  return rest;
 }

@@ -1,17 +1,24 @@
-// Dispositions, the engineering review and the QA release. Each signature names the exact
-// reduction it covers; release locks the test; the reviewer cannot also release.
-import { getDb } from '../db/client.server';
-import { insertDisposition, insertSignature } from '../db/queries/review';
+// Dispositions, the engineering review and the QA release. Each runs in one transaction that
+// locks the test row first and re-checks the status under the lock, so concurrent changes leave
+// one consistent outcome; the audit row commits with the change. A signature names the exact
+// reduction and the statement signed, and needs the signer's password; release freezes the record.
+import type { Tx } from '../db/client.server';
+import { cancelOpenReductions } from '../db/queries/reductions';
+import { insertDisposition, insertReleaseSnapshot, insertSignature } from '../db/queries/review';
 import { updateTest } from '../db/queries/tests';
 import { listUsers } from '../db/queries/users';
 import type { DispositionOutcome } from '../db/schema';
-import { auditBy } from './audit.server';
 import { can } from '../lib/roles';
+import { signatureStatement, signedText } from '../lib/signing';
 import { getConfig } from '../config.server';
+import { auditBy } from './audit.server';
+import { confirmSignerPassword } from './auth/credentials.server';
 import { AppError, errors } from './errors';
 import type { RequestUser } from './http';
-import { queueMail } from './outbox.server';
-import { loadTestRecord, type TestRecord } from './record.server';
+import { withLockedTest } from './locks.server';
+import { enqueueMailIn, kickOutbox } from './outbox.server';
+import { loadLiveRecord, type TestRecord } from './record.server';
+import { freezeRecord } from './snapshot.server';
 
 function requireDoneReduction(r: TestRecord) {
   if (!r.reduction || !r.result)
@@ -22,8 +29,14 @@ function requireDoneReduction(r: TestRecord) {
   return { reduction: r.reduction, result: r.result };
 }
 
-function unlocked(r: TestRecord) {
-  if (r.test.status === 'released') throw new AppError('test-released');
+/** The signer saw reduction `seen`; refuse when another one is current now. */
+function requireSameReduction(current: number, seen: number) {
+  if (current !== seen)
+    throw new AppError(
+      'stale-reduction',
+      `You opened reduction ${seen}, but reduction ${current} is current now. Reload the page and check it before signing.`,
+      { currentReductionId: current },
+    );
 }
 
 /** Record a disposition for a gauge of the current reduction; a review signed earlier is withdrawn. */
@@ -32,103 +45,179 @@ export async function dispositionGauge(
   testId: number,
   d: { gaugeId: string; outcome: DispositionOutcome; reason: string },
 ) {
-  const record = await loadTestRecord(testId);
-  unlocked(record);
-  const { reduction } = requireDoneReduction(record);
-  const rosetteIds = new Set(record.result!.rosettes.map((x) => x.id));
-  if (!record.gauges.some((g) => g.id === d.gaugeId) && !rosetteIds.has(d.gaugeId))
-    throw new AppError('unknown-gauge', `The current reduction has no gauge '${d.gaugeId}'.`, {
-      gaugeIds: record.gauges.map((g) => g.id),
+  return withLockedTest(testId, { forWrite: true }, async (tx) => {
+    const record = await loadLiveRecord(testId, tx);
+    const { reduction, result } = requireDoneReduction(record);
+    const rosetteIds = new Set(result.rosettes.map((x) => x.id));
+    if (!record.gauges.some((g) => g.id === d.gaugeId) && !rosetteIds.has(d.gaugeId))
+      throw new AppError('unknown-gauge', `The current reduction has no gauge '${d.gaugeId}'.`, {
+        gaugeIds: record.gauges.map((g) => g.id),
+      });
+    const id = await insertDisposition(tx, {
+      testId,
+      reductionId: reduction.id,
+      gaugeId: d.gaugeId,
+      outcome: d.outcome,
+      reason: d.reason,
+      userId: user.id,
     });
-  const db = getDb();
-  const id = await insertDisposition(db, {
-    testId,
-    reductionId: reduction.id,
-    gaugeId: d.gaugeId,
-    outcome: d.outcome,
-    reason: d.reason,
-    userId: user.id,
+    const after = await loadLiveRecord(testId, tx);
+    const status = record.test.status === 'reviewed' ? 'reduced' : record.test.status;
+    await updateTest(tx, testId, {
+      verdict: after.verdict,
+      flaggedCount: after.gauges.filter((g) => g.outcome === 'flagged' && g.disposition?.outcome !== 'accepted').length,
+      status,
+    });
+    await auditBy(tx, user, 'gauge-dispositioned', testId, { dispositionId: id, reductionId: reduction.id, ...d });
+    if (status !== record.test.status)
+      await auditBy(tx, user, 'review-withdrawn', testId, { reason: `disposition of ${d.gaugeId} after the review` });
+    return { id, verdict: after.verdict };
   });
-  const after = await loadTestRecord(testId);
-  const status = record.test.status === 'reviewed' ? 'reduced' : record.test.status;
-  await updateTest(db, testId, {
-    verdict: after.verdict,
-    flaggedCount: after.gauges.filter((g) => g.outcome === 'flagged' && g.disposition?.outcome !== 'accepted').length,
-    status,
+}
+
+export interface SignatureRequest {
+  /** the reduction the signer looked at */
+  reductionId: number;
+  password: string;
+  /** the signer's own remark, stored after the statement */
+  statement?: string;
+}
+
+/** The statement a reviewer signs for this record now (the sign-off dialog shows the same). */
+function reviewStatement(user: RequestUser, r: TestRecord) {
+  return signatureStatement({
+    kind: 'review',
+    signerName: user.name,
+    testName: r.test.name,
+    testId: r.test.id,
+    reductionId: r.reduction!.id,
+    engineVersion: r.reduction!.engineVersion,
+    verdict: r.verdict ?? 'unknown',
   });
-  await auditBy(user, 'gauge-dispositioned', testId, { dispositionId: id, reductionId: reduction.id, ...d });
-  if (status !== record.test.status)
-    await auditBy(user, 'review-withdrawn', testId, { reason: `disposition of ${d.gaugeId} after the review` });
-  return { id, verdict: after.verdict };
 }
 
 /** The engineer's review: only on a finished, complete reduction whose every flag has a disposition. */
-export async function signReview(user: RequestUser, testId: number) {
+export async function signReview(user: RequestUser, testId: number, body: SignatureRequest) {
   if (!can(user.role, 'review')) throw errors.forbidden('review');
-  const record = await loadTestRecord(testId);
-  unlocked(record);
-  const { reduction, result } = requireDoneReduction(record);
-  if (record.test.status === 'reviewed')
-    throw new AppError('already-reviewed', 'This reduction has been reviewed already.');
-  if (record.test.status !== 'reduced')
-    throw new AppError(
-      'not-reduced',
-      'The newest logs have not been reduced yet: run a reduction that covers every log, then review.',
-    );
-  if (result.verdict === 'incomplete')
-    throw new AppError(
-      'incomplete',
-      'The log has not reached test pressure and come back to zero; a partial record cannot be reviewed.',
-    );
-  if (record.openFlags.length)
-    throw new AppError('open-flags', `Disposition every flagged gauge first: ${record.openFlags.join(', ')}.`, {
-      gaugeIds: record.openFlags,
-    });
-  const statement = `Engineering review of reduction ${reduction.id} (engine ${reduction.engineVersion}), verdict ${record.verdict}.`;
-  const db = getDb();
-  const id = await insertSignature(db, {
-    testId,
-    reductionId: reduction.id,
-    kind: 'review',
-    userId: user.id,
-    statement,
-  });
-  await updateTest(db, testId, { status: 'reviewed' });
-  await auditBy(user, 'review-signed', testId, { signatureId: id, reductionId: reduction.id, verdict: record.verdict });
-  const base = getConfig().PUBLIC_BASE_URL;
-  const qa = (await listUsers(db)).filter((u) => can(u.role, 'release') && !u.disabled);
-  for (const q of qa)
-    await queueMail(
-      q.email,
-      `Hoopline: "${record.test.name}" is reviewed and waits for release`,
-      `${user.name} signed the engineering review of "${record.test.name}" (verdict: ${record.verdict}).\n\nRelease it here: ${base}/tests/${testId}/review\n\n— Hoopline`,
+  await confirmSignerPassword(user, body.password, `review of test ${testId}`);
+  const out = await withLockedTest(testId, { forWrite: true }, async (tx) => {
+    const record = await loadLiveRecord(testId, tx);
+    const { reduction, result } = requireDoneReduction(record);
+    requireSameReduction(reduction.id, body.reductionId);
+    if (record.test.status === 'reviewed')
+      throw new AppError('already-reviewed', 'This reduction has been reviewed already.');
+    if (record.test.status !== 'reduced')
+      throw new AppError(
+        'not-reduced',
+        'The newest logs have not been reduced yet: run a reduction that covers every log, then review.',
+      );
+    if (result.verdict === 'incomplete')
+      throw new AppError(
+        'incomplete',
+        'The log has not reached test pressure and come back to zero; a partial record cannot be reviewed.',
+      );
+    if (record.openFlags.length)
+      throw new AppError('open-flags', `Disposition every flagged gauge first: ${record.openFlags.join(', ')}.`, {
+        gaugeIds: record.openFlags,
+      });
+    const statement = signedText(reviewStatement(user, record), body.statement);
+    const id = await insertSignature(tx, {
       testId,
-    );
-  return { id, reductionId: reduction.id };
+      reductionId: reduction.id,
+      kind: 'review',
+      userId: user.id,
+      statement,
+    });
+    await updateTest(tx, testId, { status: 'reviewed' });
+    await auditBy(tx, user, 'review-signed', testId, {
+      signatureId: id,
+      reductionId: reduction.id,
+      verdict: record.verdict,
+      statement,
+    });
+    await queueReleaseNotices(tx, user, record);
+    return { id, reductionId: reduction.id, statement };
+  });
+  kickOutbox();
+  return out;
 }
 
-/** QA's release: locks the test. The reviewer of this reduction cannot release it. */
-export async function releaseTest(user: RequestUser, testId: number) {
-  if (!can(user.role, 'release')) throw errors.forbidden('release');
-  const record = await loadTestRecord(testId);
-  unlocked(record);
-  const { reduction } = requireDoneReduction(record);
-  if (record.test.status !== 'reviewed')
-    throw new AppError('not-reviewed', 'Only a reviewed test can be released; the engineering review is not signed.');
-  const review = [...record.signatures].reverse().find((s) => s.kind === 'review' && s.reductionId === reduction.id);
+async function queueReleaseNotices(tx: Tx, reviewer: RequestUser, record: TestRecord) {
+  const base = getConfig().PUBLIC_BASE_URL.replace(/\/$/, '');
+  const qa = (await listUsers(tx)).filter((u) => can(u.role, 'release') && !u.disabled && u.id !== reviewer.id);
+  for (const q of qa)
+    await enqueueMailIn(tx, {
+      to: q.email,
+      subject: `Hoopline: "${record.test.name}" is reviewed and waits for release`,
+      text: `${reviewer.name} signed the engineering review of "${record.test.name}" (verdict: ${record.verdict}).\n\nRelease it here: ${base}/tests/${record.test.id}/review\n\n— Hoopline`,
+      testId: record.test.id,
+    });
+}
+
+/** The reviewer's signature on the current reduction, or 409. */
+function currentReview(r: TestRecord, reductionId: number) {
+  const review = [...r.signatures].reverse().find((s) => s.kind === 'review' && s.reductionId === reductionId);
   if (!review) throw new AppError('not-reviewed', 'The engineering review does not cover the current reduction.');
-  if (review.userId === user.id)
-    throw new AppError('own-review', 'You signed the engineering review of this test; another person must release it.');
-  const statement = `Release of reduction ${reduction.id} reviewed by ${review.name}, verdict ${record.verdict}.`;
-  const db = getDb();
-  const id = await insertSignature(db, {
-    testId,
-    reductionId: reduction.id,
-    kind: 'release',
-    userId: user.id,
-    statement,
+  return review;
+}
+
+/**
+ * QA's release: locks the test and freezes its record (plan, vessel, material, result,
+ * dispositions, signatures) with its SHA-256; reductions still queued or running for the test
+ * are cancelled. The reviewer of this reduction cannot release it.
+ */
+export async function releaseTest(user: RequestUser, testId: number, body: SignatureRequest) {
+  if (!can(user.role, 'release')) throw errors.forbidden('release');
+  await confirmSignerPassword(user, body.password, `release of test ${testId}`);
+  return withLockedTest(testId, { forWrite: true }, async (tx) => {
+    const record = await loadLiveRecord(testId, tx);
+    const { reduction } = requireDoneReduction(record);
+    requireSameReduction(reduction.id, body.reductionId);
+    if (record.test.status !== 'reviewed')
+      throw new AppError('not-reviewed', 'Only a reviewed test can be released; the engineering review is not signed.');
+    const review = currentReview(record, reduction.id);
+    if (review.userId === user.id)
+      throw new AppError(
+        'own-review',
+        'You signed the engineering review of this test; another person must release it.',
+      );
+    const statement = signedText(
+      signatureStatement({
+        kind: 'release',
+        signerName: user.name,
+        testName: record.test.name,
+        testId,
+        reductionId: reduction.id,
+        engineVersion: reduction.engineVersion,
+        verdict: record.verdict ?? 'unknown',
+        reviewerName: review.name,
+      }),
+      body.statement,
+    );
+    const id = await insertSignature(tx, {
+      testId,
+      reductionId: reduction.id,
+      kind: 'release',
+      userId: user.id,
+      statement,
+    });
+    const releasedAt = new Date();
+    const frozen = freezeRecord(await loadLiveRecord(testId, tx), releasedAt);
+    await insertReleaseSnapshot(tx, { testId, reductionId: reduction.id, body: frozen.body, sha256: frozen.sha256 });
+    const cancelled = await cancelOpenReductions(
+      tx,
+      testId,
+      'The test was released before this reduction ran; the released record keeps the reviewed reduction.',
+    );
+    await updateTest(tx, testId, { status: 'released' });
+    await auditBy(tx, user, 'test-released', testId, {
+      signatureId: id,
+      reductionId: reduction.id,
+      verdict: record.verdict,
+      statement,
+      snapshotSha256: frozen.sha256,
+      cancelledReductions: cancelled,
+    });
+    return { id, reductionId: reduction.id, statement, snapshotSha256: frozen.sha256 };
   });
-  await updateTest(db, testId, { status: 'released' });
-  await auditBy(user, 'test-released', testId, { signatureId: id, reductionId: reduction.id, verdict: record.verdict });
-  return { id, reductionId: reduction.id };
 }

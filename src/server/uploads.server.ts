@@ -1,14 +1,18 @@
 // Receives a log upload as a stream (multipart field `file`, or a raw text/csv body): checks
 // the header from the first 64 KB before anything is stored, then streams the bytes to object
 // storage while hashing, counting and keeping only the last few KB. Nothing is written to the
-// database until the object is complete, and a refused upload leaves no object behind.
+// database until the object is complete; then one transaction locks the test row, re-checks that
+// it is not released (a release may have happened while the bytes streamed) and stores the log
+// with its audit row. A refused or failed upload leaves no object behind.
 import busboy from 'busboy';
 import { createHash, randomUUID } from 'node:crypto';
 import type { ReadableStream as WebReadableStream } from 'node:stream/web';
 import { PassThrough, Readable, Transform, type TransformCallback } from 'node:stream';
 import { getDb } from '../db/client.server';
+import { isDuplicateKey } from '../db/errors';
 import { findLogBySha, insertLog } from '../db/queries/logs';
 import { updateTest } from '../db/queries/tests';
+import { canonicalJson } from '../lib/canonical-json';
 import type { LogFile, Test } from '../db/schema';
 import { inspectLogHead } from '../lib/reduction';
 import type { Plan } from '../lib/reduction/plan';
@@ -16,6 +20,7 @@ import { auditBy } from './audit.server';
 import { getConfig } from '../config.server';
 import { AppError, errors } from './errors';
 import type { RequestUser } from './http';
+import { withLockedTest } from './locks.server';
 import { deleteObject, putObjectStream } from './storage.server';
 
 const HEAD_BYTES = 64 * 1024;
@@ -219,12 +224,6 @@ export async function receiveLogUpload(
   }
 
   const sha256 = meter.hash.digest('hex');
-  const db = getDb();
-  const existing = await findLogBySha(db, test.id, sha256);
-  if (existing) {
-    await deleteObject(key).catch(() => undefined);
-    return { log: existing, created: false };
-  }
   const timeIndex = plan.columns.time ? info.columns.indexOf(plan.columns.time) : -1;
   const headLines = headText.split(/\r?\n/);
   const firstData = headLines.slice(info.headerLine).find((l) => l.trim().length > 0);
@@ -245,28 +244,46 @@ export async function receiveLogUpload(
       channels: plan.gauges.flatMap((g) => g.channels),
     },
   };
-  let id: number;
+  const checkedPlan = canonicalJson(test.plan);
+  let outcome: UploadOutcome;
   try {
-    id = await insertLog(db, {
-      testId: test.id,
-      objectKey: key,
-      filename: incoming.filename,
-      sha256,
-      sizeBytes: meter.bytes,
-      rows: Math.max(0, meter.lines - info.headerLine),
-      timeStart: timeOf(firstData, timeIndex, info.delimiter, info.decimalComma),
-      timeEnd: timeOf(tailLines.at(-1), timeIndex, info.delimiter, info.decimalComma),
-      columnMap,
-      uploadedBy: user.id,
+    outcome = await withLockedTest(test.id, { forWrite: true }, async (tx, locked) => {
+      const existing = await findLogBySha(tx, test.id, sha256);
+      if (existing) return { log: existing, created: false };
+      // the header was checked against the plan as it was when the upload began
+      if (canonicalJson(locked.plan) !== checkedPlan) throw new AppError('plan-changed');
+      const id = await insertLog(tx, {
+        testId: test.id,
+        objectKey: key,
+        filename: incoming.filename,
+        sha256,
+        sizeBytes: meter.bytes,
+        rows: Math.max(0, meter.lines - info.headerLine),
+        timeStart: timeOf(firstData, timeIndex, info.delimiter, info.decimalComma),
+        timeEnd: timeOf(tailLines.at(-1), timeIndex, info.delimiter, info.decimalComma),
+        columnMap,
+        uploadedBy: user.id,
+      });
+      await updateTest(tx, test.id, { status: 'logging' });
+      await auditBy(tx, user, 'log-uploaded', test.id, {
+        logId: id,
+        filename: incoming.filename,
+        sha256,
+        bytes: meter.bytes,
+      });
+      if (locked.status === 'reviewed')
+        await auditBy(tx, user, 'review-withdrawn', test.id, { reason: `log ${id} uploaded after the review` });
+      return { log: (await findLogBySha(tx, test.id, sha256))!, created: true };
     });
   } catch (err) {
+    // nothing was stored: the object goes too (a release won the race, or the database failed)
     await deleteObject(key).catch(() => undefined);
-    const again = await findLogBySha(db, test.id, sha256);
-    if (again) return { log: again, created: false };
+    if (isDuplicateKey(err)) {
+      const again = await findLogBySha(getDb(), test.id, sha256);
+      if (again) return { log: again, created: false };
+    }
     throw err;
   }
-  await updateTest(db, test.id, { status: test.status === 'released' ? 'released' : 'logging' });
-  await auditBy(user, 'log-uploaded', test.id, { logId: id, filename: incoming.filename, sha256, bytes: meter.bytes });
-  const log = (await findLogBySha(db, test.id, sha256))!;
-  return { log, created: true };
+  if (!outcome.created) await deleteObject(key).catch(() => undefined);
+  return outcome;
 }

@@ -169,13 +169,22 @@ describe('a hydrotest from plan to inspector link, in the browser', () => {
     await page.getByRole('button', { name: /Record disposition/ }).click();
     await page.getByText('Verdict: Conforms', { exact: false }).waitFor();
     await s.shoot('review-dispositioned');
-    page.once('dialog', (d) => void d.accept());
     await page.getByRole('button', { name: 'Sign engineering review' }).click();
+    // the statement is shown before signing, and the password is asked again
+    await page.getByText(/I, Imke Sorensen \(demo\), have reviewed reduction \d+/).waitFor();
+    await page.getByLabel('Your password').fill('not my password');
+    await page.getByRole('button', { name: 'Sign now' }).click();
+    await page.getByRole('alert').filter({ hasText: 'not your password' }).waitFor();
+    await s.shoot('review-wrong-password');
+    await page.getByLabel('Your password').fill(password());
+    await page.getByRole('button', { name: 'Sign now' }).click();
     await page
       .getByText(/Reviewed.*by/)
       .first()
       .waitFor();
     await s.shoot('review-signed');
+    // the refused attempt answered 401 on purpose; nothing else may have gone wrong
+    s.problems.splice(0, s.problems.length, ...s.problems.filter((p) => !/401/.test(p)));
     noProblems(s);
   });
 
@@ -185,8 +194,11 @@ describe('a hydrotest from plan to inspector link, in the browser', () => {
     await signIn(page, 'qa@example.com', password());
     await s.shoot('dashboard-needs-qa');
     await page.goto(`/tests/${testId}/review`);
-    page.once('dialog', (d) => void d.accept());
     await page.getByRole('button', { name: 'Release and lock' }).click();
+    await page.getByText(/I, Quentin Abara \(demo\), release reduction \d+/).waitFor();
+    await s.shoot('release-confirm');
+    await page.getByLabel('Your password').fill(password());
+    await page.getByRole('button', { name: 'Release now' }).click();
     await page.getByText(/Released.*the record is locked/).waitFor();
     await s.shoot('released');
     await page.goto(`/tests/${testId}/report`);

@@ -5,10 +5,18 @@ export const baseUrl = () => inject('baseUrl');
 
 export class Client {
   private cookies = new Map<string, string>();
-  constructor(private bearer: string | null = null) {}
+  /** `base`: the app to talk to (default: the test run's app server) */
+  constructor(
+    private bearer: string | null = null,
+    private base = '',
+  ) {}
 
-  static withToken(token: string) {
-    return new Client(token);
+  static withToken(token: string, base = '') {
+    return new Client(token, base);
+  }
+
+  private root(): string {
+    return this.base || baseUrl();
   }
 
   cookieHeader(): string {
@@ -36,8 +44,8 @@ export class Client {
       body = JSON.stringify(init.json);
     }
     const method = (init.method ?? 'GET').toUpperCase();
-    if (!['GET', 'HEAD'].includes(method) && !this.bearer && !headers.has('origin')) headers.set('origin', baseUrl());
-    const res = await fetch(baseUrl() + path, { ...init, headers, body, redirect: 'manual' });
+    if (!['GET', 'HEAD'].includes(method) && !this.bearer && !headers.has('origin')) headers.set('origin', this.root());
+    const res = await fetch(this.root() + path, { ...init, headers, body, redirect: 'manual' });
     this.keep(res);
     return res;
   }
@@ -59,7 +67,12 @@ export class Client {
   /** Sign in with the credentials provider; resolves to true when a session cookie was set. */
   async signIn(email: string, password = inject('testPassword')): Promise<boolean> {
     const csrf = await this.json<{ csrfToken: string }>('/api/auth/csrf');
-    const form = new URLSearchParams({ csrfToken: csrf.body.csrfToken, email, password, callbackUrl: baseUrl() + '/' });
+    const form = new URLSearchParams({
+      csrfToken: csrf.body.csrfToken,
+      email,
+      password,
+      callbackUrl: this.root() + '/',
+    });
     await this.fetch('/api/auth/callback/credentials', {
       method: 'POST',
       body: form,
@@ -67,10 +80,20 @@ export class Client {
     });
     return [...this.cookies.keys()].some((k) => k.includes('session-token'));
   }
+
+  /** Sign out through Auth.js, as the Sign out button does. */
+  async signOut(): Promise<void> {
+    const csrf = await this.json<{ csrfToken: string }>('/api/auth/csrf');
+    await this.fetch('/api/auth/signout', {
+      method: 'POST',
+      body: new URLSearchParams({ csrfToken: csrf.body.csrfToken, callbackUrl: this.root() + '/signin' }),
+      headers: { 'content-type': 'application/x-www-form-urlencoded' },
+    });
+  }
 }
 
-export async function signedIn(email: string): Promise<Client> {
+export async function signedIn(email: string, password?: string): Promise<Client> {
   const c = new Client();
-  if (!(await c.signIn(email))) throw new Error(`could not sign in as ${email}`);
+  if (!(await c.signIn(email, password))) throw new Error(`could not sign in as ${email}`);
   return c;
 }

@@ -19,12 +19,21 @@ interface Props {
   initial: RecordView;
   role: string;
   userEmail: string;
+  /** the signer's name, shown in the statement they sign */
+  userName?: string;
   seriesUrl: string;
   readOnly?: boolean;
 }
 
 /** The review screen: verdict, deviation overview, shell map, gauge table, one gauge in detail, rosettes, time history. */
-export default function ReviewWorkspace({ initial, role, userEmail, seriesUrl, readOnly = false }: Props) {
+export default function ReviewWorkspace({
+  initial,
+  role,
+  userEmail,
+  userName = '',
+  seriesUrl,
+  readOnly = false,
+}: Props) {
   const [record, setRecord] = useState(initial);
   const plan = record.plan;
   // a result stored by an older engine is read in the current shape
@@ -58,7 +67,15 @@ export default function ReviewWorkspace({ initial, role, userEmail, seriesUrl, r
       <VerdictBanner verdict={result.verdict} undisposedFlaggedCount={record.openFlags.length} />
       <SafetyCaution />
       <YieldCheckCard yieldCheck={result.yieldCheck} pressureUnit={result.pressureUnit} />
-      {!readOnly && <SignOffBar record={record} role={role} userEmail={userEmail} onChanged={() => void reload()} />}
+      {!readOnly && (
+        <SignOffBar
+          record={record}
+          role={role}
+          userEmail={userEmail}
+          userName={userName}
+          onChanged={() => void reload()}
+        />
+      )}
       <div className="grid gap-6 2xl:grid-cols-[minmax(0,3fr)_minmax(26rem,2fr)]">
         <div className="min-w-0 space-y-6">
           <section className="card" aria-labelledby="dev-h">

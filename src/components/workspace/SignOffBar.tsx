@@ -1,40 +1,25 @@
 import { useState } from 'react';
 import { can } from '../../lib/roles';
-import { api } from '../api';
+import { signatureStatement } from '../../lib/signing';
 import { announceTestChanged } from '../tests/TestStatusSteps';
+import SignatureForm from './SignatureForm';
 import type { RecordView } from './record-types';
 
 interface Props {
   record: RecordView;
   role: string;
   userEmail: string;
+  userName: string;
   onChanged: () => void;
 }
 
 /** Sign the engineering review (engineer) or release the record (QA), with what still blocks it. */
-export default function SignOffBar({ record, role, userEmail, onChanged }: Props) {
-  const [error, setError] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
+export default function SignOffBar({ record, role, userEmail, userName, onChanged }: Props) {
+  const [signing, setSigning] = useState<'review' | 'release' | null>(null);
   const status = record.test.status;
-  const review = [...record.signatures]
-    .reverse()
-    .find((s) => s.kind === 'review' && s.reductionId === record.reduction?.id);
+  const reductionId = record.reduction?.id;
+  const review = [...record.signatures].reverse().find((s) => s.kind === 'review' && s.reductionId === reductionId);
   const release = record.signatures.find((s) => s.kind === 'release');
-
-  async function act(path: 'review' | 'release', question: string) {
-    if (!window.confirm(question)) return;
-    setBusy(true);
-    setError(null);
-    try {
-      await api(`/api/tests/${record.test.id}/${path}`, { method: 'POST', jsonBody: {} });
-      onChanged();
-      announceTestChanged(record.test.id);
-    } catch (e) {
-      setError((e as Error).message);
-    } finally {
-      setBusy(false);
-    }
-  }
 
   const blockers: string[] = [];
   if (!record.result) blockers.push('no finished reduction yet');
@@ -42,6 +27,18 @@ export default function SignOffBar({ record, role, userEmail, onChanged }: Props
     blockers.push('the log has not reached test pressure and come back to zero');
   if (record.openFlags.length) blockers.push(`flagged gauges without disposition: ${record.openFlags.join(', ')}`);
   if (status === 'logging') blockers.push('a newer log has not been reduced');
+
+  const statement = (kind: 'review' | 'release') =>
+    signatureStatement({
+      kind,
+      signerName: userName,
+      testName: record.test.name,
+      testId: record.test.id,
+      reductionId: reductionId ?? 0,
+      engineVersion: record.reduction?.engineVersion ?? null,
+      verdict: record.result?.verdict ?? 'unknown',
+      reviewerName: review?.name,
+    });
 
   return (
     <section aria-labelledby="signoff-h" className="flex flex-wrap items-center gap-4 card">
@@ -61,43 +58,42 @@ export default function SignOffBar({ record, role, userEmail, onChanged }: Props
         ) : blockers.length ? (
           <p>Not ready for review: {blockers.join('; ')}.</p>
         ) : (
-          <p>Ready for the engineering review of reduction {record.reduction?.id}.</p>
-        )}
-        {error && (
-          <p role="alert" className="error-text">
-            {error}
-          </p>
+          <p>Ready for the engineering review of reduction {reductionId}.</p>
         )}
       </div>
-      {can(role, 'review') && status === 'reduced' && (
+      {!signing && can(role, 'review') && status === 'reduced' && (
         <button
           type="button"
           className="btn-primary"
-          disabled={busy || blockers.length > 0}
-          onClick={() =>
-            act(
-              'review',
-              `Sign the engineering review of reduction ${record.reduction?.id} as ${userEmail}? The verdict is ${record.result?.verdict}.`,
-            )
-          }
+          disabled={blockers.length > 0}
+          onClick={() => setSigning('review')}
         >
           Sign engineering review
         </button>
       )}
-      {can(role, 'release') && status === 'reviewed' && (
+      {!signing && can(role, 'release') && status === 'reviewed' && (
         <button
           type="button"
           className="btn-primary"
-          disabled={busy || review?.email === userEmail}
-          onClick={() =>
-            act(
-              'release',
-              `Release "${record.test.name}"? The record will be locked: no change can be made after this.`,
-            )
-          }
+          disabled={review?.email === userEmail}
+          onClick={() => setSigning('release')}
         >
           Release and lock
         </button>
+      )}
+      {signing && reductionId !== undefined && (
+        <SignatureForm
+          kind={signing}
+          testId={record.test.id}
+          reductionId={reductionId}
+          statement={statement(signing)}
+          onCancel={() => setSigning(null)}
+          onSigned={() => {
+            setSigning(null);
+            onChanged();
+            announceTestChanged(record.test.id);
+          }}
+        />
       )}
     </section>
   );

@@ -48,7 +48,8 @@ export interface RecordView {
   signatures: {
     kind: 'review' | 'release';
     name: string;
-    email: string;
+    /** left out of the inspector's view */
+    email?: string;
     at: string;
     reductionId: number;
     statement: string;

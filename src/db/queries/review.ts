@@ -1,10 +1,18 @@
 import { and, asc, desc, eq, isNull, lte, sql } from 'drizzle-orm';
-import type { Db } from '../client.server';
-import { dispositions, outbox, shareLinks, signatures, users, type DispositionOutcome } from '../schema';
+import type { Conn } from '../client.server';
+import {
+  dispositions,
+  outbox,
+  releaseSnapshots,
+  shareLinks,
+  signatures,
+  users,
+  type DispositionOutcome,
+} from '../schema';
 import { insertedId } from './inserted-id';
 
 export async function insertDisposition(
-  db: Db,
+  db: Conn,
   d: {
     testId: number;
     reductionId: number;
@@ -18,7 +26,7 @@ export async function insertDisposition(
 }
 
 /** Every disposition of a reduction, oldest first, with who made it (the latest per gauge counts). */
-export const listDispositions = (db: Db, reductionId: number) =>
+export const listDispositions = (db: Conn, reductionId: number) =>
   db
     .select({
       id: dispositions.id,
@@ -36,13 +44,13 @@ export const listDispositions = (db: Db, reductionId: number) =>
     .orderBy(asc(dispositions.id));
 
 export async function insertSignature(
-  db: Db,
+  db: Conn,
   s: { testId: number; reductionId: number; kind: 'review' | 'release'; userId: number; statement: string },
 ) {
   return insertedId(await db.insert(signatures).values(s).$returningId());
 }
 
-export const listSignatures = (db: Db, testId: number) =>
+export const listSignatures = (db: Conn, testId: number) =>
   db
     .select({
       id: signatures.id,
@@ -60,17 +68,17 @@ export const listSignatures = (db: Db, testId: number) =>
     .orderBy(asc(signatures.id));
 
 export async function insertShareLink(
-  db: Db,
+  db: Conn,
   l: { testId: number; tokenHash: string; email: string | null; createdBy: number; expiresAt: Date },
 ) {
   return insertedId(await db.insert(shareLinks).values(l).$returningId());
 }
 
-export const findShareLinkByHash = (db: Db, tokenHash: string) =>
+export const findShareLinkByHash = (db: Conn, tokenHash: string) =>
   db.query.shareLinks.findFirst({ where: eq(shareLinks.tokenHash, tokenHash) });
-export const findShareLink = (db: Db, id: number) => db.query.shareLinks.findFirst({ where: eq(shareLinks.id, id) });
+export const findShareLink = (db: Conn, id: number) => db.query.shareLinks.findFirst({ where: eq(shareLinks.id, id) });
 
-export const listShareLinks = (db: Db, testId: number) =>
+export const listShareLinks = (db: Conn, testId: number) =>
   db
     .select({
       id: shareLinks.id,
@@ -87,7 +95,7 @@ export const listShareLinks = (db: Db, testId: number) =>
     .where(eq(shareLinks.testId, testId))
     .orderBy(desc(shareLinks.id));
 
-export async function revokeShareLink(db: Db, id: number) {
+export async function revokeShareLink(db: Conn, id: number) {
   const [res] = await db
     .update(shareLinks)
     .set({ revokedAt: new Date() })
@@ -95,7 +103,7 @@ export async function revokeShareLink(db: Db, id: number) {
   return res.affectedRows > 0;
 }
 
-export async function touchShareLink(db: Db, id: number) {
+export async function touchShareLink(db: Conn, id: number) {
   await db
     .update(shareLinks)
     .set({ lastUsedAt: new Date(), useCount: sql`${shareLinks.useCount} + 1` })
@@ -103,7 +111,7 @@ export async function touchShareLink(db: Db, id: number) {
 }
 
 export async function enqueueMail(
-  db: Db,
+  db: Conn,
   m: { toAddress: string; subject: string; textBody: string; testId?: number | null },
 ) {
   return insertedId(
@@ -115,7 +123,7 @@ export async function enqueueMail(
 }
 
 /** Messages due for (another) attempt, oldest first. */
-export const listDueMail = (db: Db, limit = 20) =>
+export const listDueMail = (db: Conn, limit = 20) =>
   db
     .select()
     .from(outbox)
@@ -124,7 +132,7 @@ export const listDueMail = (db: Db, limit = 20) =>
     .limit(limit);
 
 /** Claim one message for sending (pending and due) by pushing its next attempt out; false if another sender has it. */
-export async function claimMail(db: Db, id: number, holdMs: number) {
+export async function claimMail(db: Conn, id: number, holdMs: number) {
   const [res] = await db
     .update(outbox)
     .set({ nextAttemptAt: new Date(Date.now() + holdMs), attempts: sql`${outbox.attempts} + 1` })
@@ -132,15 +140,26 @@ export async function claimMail(db: Db, id: number, holdMs: number) {
   return res.affectedRows > 0;
 }
 
-export async function markMailSent(db: Db, id: number) {
+export async function markMailSent(db: Conn, id: number) {
   await db.update(outbox).set({ status: 'sent', sentAt: new Date(), lastError: null }).where(eq(outbox.id, id));
 }
 
-export async function markMailRetry(db: Db, id: number, error: string, nextAttemptAt: Date, giveUp: boolean) {
+export async function markMailRetry(db: Conn, id: number, error: string, nextAttemptAt: Date, giveUp: boolean) {
   await db
     .update(outbox)
     .set({ lastError: error.slice(0, 2000), nextAttemptAt, status: giveUp ? 'failed' : 'pending' })
     .where(eq(outbox.id, id));
 }
 
-export const listOutbox = (db: Db, limit = 200) => db.select().from(outbox).orderBy(desc(outbox.id)).limit(limit);
+export const listOutbox = (db: Conn, limit = 200) => db.select().from(outbox).orderBy(desc(outbox.id)).limit(limit);
+
+/** The frozen record of a released test (written once, in the release's transaction). */
+export const findReleaseSnapshot = (db: Conn, testId: number) =>
+  db.query.releaseSnapshots.findFirst({ where: eq(releaseSnapshots.testId, testId) });
+
+export async function insertReleaseSnapshot(
+  db: Conn,
+  s: { testId: number; reductionId: number; body: unknown; sha256: string },
+) {
+  await db.insert(releaseSnapshots).values(s);
+}

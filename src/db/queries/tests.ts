@@ -1,5 +1,5 @@
 import { and, asc, count, desc, eq, inArray, type SQL } from 'drizzle-orm';
-import type { Db } from '../client.server';
+import type { Conn } from '../client.server';
 import { gauges, materials, notes, tests, users, vessels, type NewGauge, type TestStatus } from '../schema';
 import { insertedId } from './inserted-id';
 
@@ -10,7 +10,7 @@ export interface TestFilter {
   offset: number;
 }
 
-export async function listTests(db: Db, f: TestFilter) {
+export async function listTests(db: Conn, f: TestFilter) {
   const where: SQL[] = [];
   if (f.status?.length) where.push(inArray(tests.status, f.status));
   if (f.vesselId) where.push(eq(tests.vesselId, f.vesselId));
@@ -41,10 +41,19 @@ export async function listTests(db: Db, f: TestFilter) {
   return { items, total: total?.n ?? 0 };
 }
 
-export const findTest = (db: Db, id: number) => db.query.tests.findFirst({ where: eq(tests.id, id) });
+export const findTest = (db: Conn, id: number) => db.query.tests.findFirst({ where: eq(tests.id, id) });
+
+/**
+ * The test row, locked until the transaction ends (SELECT … FOR UPDATE): every change of a
+ * test's state takes this lock first and re-checks the status under it.
+ */
+export async function lockTest(tx: Conn, id: number) {
+  const [row] = await tx.select().from(tests).where(eq(tests.id, id)).for('update');
+  return row;
+}
 
 /** The test with its vessel, material and owner, for pages and exports. */
-export async function findTestWithVessel(db: Db, id: number) {
+export async function findTestWithVessel(db: Conn, id: number) {
   const [row] = await db
     .select({
       test: tests,
@@ -61,7 +70,7 @@ export async function findTestWithVessel(db: Db, id: number) {
 }
 
 export async function insertTest(
-  db: Db,
+  db: Conn,
   t: { name: string; vesselId: number; plan: unknown; ownerId: number; status?: TestStatus },
 ) {
   return insertedId(
@@ -72,34 +81,32 @@ export async function insertTest(
   );
 }
 
-export const findTestByName = (db: Db, name: string) => db.query.tests.findFirst({ where: eq(tests.name, name) });
+export const findTestByName = (db: Conn, name: string) => db.query.tests.findFirst({ where: eq(tests.name, name) });
 
-export async function updateTest(db: Db, id: number, set: Partial<typeof tests.$inferInsert>) {
+export async function updateTest(db: Conn, id: number, set: Partial<typeof tests.$inferInsert>) {
   await db
     .update(tests)
     .set({ ...set, updatedAt: new Date(), lastActivityAt: new Date() })
     .where(eq(tests.id, id));
 }
 
-/** Rewrite the test's gauge rows from its plan (the installation as planned). */
-export async function replaceGauges(db: Db, testId: number, rows: Omit<NewGauge, 'testId'>[]) {
-  await db.transaction(async (tx) => {
-    await tx.delete(gauges).where(eq(gauges.testId, testId));
-    if (rows.length) await tx.insert(gauges).values(rows.map((r) => ({ ...r, testId })));
-  });
+/** Rewrite the test's gauge rows from its plan (the installation as planned); call it inside a transaction. */
+export async function replaceGauges(db: Conn, testId: number, rows: Omit<NewGauge, 'testId'>[]) {
+  await db.delete(gauges).where(eq(gauges.testId, testId));
+  if (rows.length) await db.insert(gauges).values(rows.map((r) => ({ ...r, testId })));
 }
 
-export const listGauges = (db: Db, testId: number) =>
+export const listGauges = (db: Conn, testId: number) =>
   db.select().from(gauges).where(eq(gauges.testId, testId)).orderBy(asc(gauges.id));
 
 export async function insertNote(
-  db: Db,
+  db: Conn,
   n: { testId: number; userId: number; kind: (typeof notes.$inferInsert)['kind']; body: string },
 ) {
   return insertedId(await db.insert(notes).values(n).$returningId());
 }
 
-export const listNotes = (db: Db, testId: number) =>
+export const listNotes = (db: Conn, testId: number) =>
   db
     .select({ id: notes.id, kind: notes.kind, body: notes.body, createdAt: notes.createdAt, author: users.name })
     .from(notes)

@@ -1,9 +1,9 @@
 import { asc, count, eq } from 'drizzle-orm';
-import type { Db } from '../client.server';
+import type { Conn } from '../client.server';
 import { materials, vessels, type NewMaterial, type NewVessel } from '../schema';
 import { insertedId } from './inserted-id';
 
-export async function listMaterials(db: Db, page: { limit: number; offset: number }) {
+export async function listMaterials(db: Conn, page: { limit: number; offset: number }) {
   const [items, [total]] = await Promise.all([
     db.select().from(materials).orderBy(asc(materials.name)).limit(page.limit).offset(page.offset),
     db.select({ n: count() }).from(materials),
@@ -11,22 +11,22 @@ export async function listMaterials(db: Db, page: { limit: number; offset: numbe
   return { items, total: total?.n ?? 0 };
 }
 
-export const findMaterial = (db: Db, id: number) => db.query.materials.findFirst({ where: eq(materials.id, id) });
+export const findMaterial = (db: Conn, id: number) => db.query.materials.findFirst({ where: eq(materials.id, id) });
 
-export const findMaterialByName = (db: Db, name: string) =>
+export const findMaterialByName = (db: Conn, name: string) =>
   db.query.materials.findFirst({ where: eq(materials.name, name) });
 
-export async function insertMaterial(db: Db, m: NewMaterial) {
+export async function insertMaterial(db: Conn, m: NewMaterial) {
   return insertedId(await db.insert(materials).values(m).$returningId());
 }
 
-export async function updateMaterial(db: Db, id: number, m: Partial<NewMaterial>) {
+export async function updateMaterial(db: Conn, id: number, m: Partial<NewMaterial>) {
   await db.update(materials).set(m).where(eq(materials.id, id));
 }
 
 /** A material with the same name and values (within rounding), or undefined. */
 export async function matchMaterial(
-  db: Db,
+  db: Conn,
   m: { name: string; elasticModulusMPa: number; poissonRatio: number; yieldStrengthMPa: number },
 ) {
   const same = (a: number, b: number) => Math.abs(a - b) <= 1e-6 * Math.max(1, Math.abs(b));
@@ -39,7 +39,7 @@ export async function matchMaterial(
   );
 }
 
-export async function listVessels(db: Db, page: { limit: number; offset: number }) {
+export async function listVessels(db: Conn, page: { limit: number; offset: number }) {
   const [items, [total]] = await Promise.all([
     db
       .select({ vessel: vessels, material: materials })
@@ -53,7 +53,7 @@ export async function listVessels(db: Db, page: { limit: number; offset: number 
   return { items: items.map((r) => ({ ...r.vessel, material: r.material })), total: total?.n ?? 0 };
 }
 
-export async function findVessel(db: Db, id: number) {
+export async function findVessel(db: Conn, id: number) {
   const [row] = await db
     .select({ vessel: vessels, material: materials })
     .from(vessels)
@@ -62,13 +62,13 @@ export async function findVessel(db: Db, id: number) {
   return row ? { ...row.vessel, material: row.material } : undefined;
 }
 
-export const findVesselByTag = (db: Db, tag: string) => db.query.vessels.findFirst({ where: eq(vessels.tag, tag) });
+export const findVesselByTag = (db: Conn, tag: string) => db.query.vessels.findFirst({ where: eq(vessels.tag, tag) });
 
-export async function insertVessel(db: Db, v: NewVessel) {
+export async function insertVessel(db: Conn, v: NewVessel) {
   return insertedId(await db.insert(vessels).values(v).$returningId());
 }
 
-export async function updateVessel(db: Db, id: number, v: Partial<NewVessel>) {
+export async function updateVessel(db: Conn, id: number, v: Partial<NewVessel>) {
   await db
     .update(vessels)
     .set({ ...v, updatedAt: new Date() })
@@ -77,7 +77,7 @@ export async function updateVessel(db: Db, id: number, v: Partial<NewVessel>) {
 
 /** A vessel with the same geometry and material, or undefined (plans carry no vessel id). */
 export async function matchVessel(
-  db: Db,
+  db: Conn,
   v: {
     shape: 'cylinder' | 'sphere';
     ends: 'closed' | 'open';

@@ -1,11 +1,15 @@
-import { index, int, mysqlEnum, mysqlTable, text, varchar } from 'drizzle-orm/mysql-core';
+import { bigint, char, index, int, mysqlEnum, mysqlTable, text, uniqueIndex, varchar } from 'drizzle-orm/mysql-core';
 import { at, createdAt, id, ref, json } from './columns';
 import { tests } from './tests';
 import { users } from './users';
 import { outboxStatuses } from '../../lib/domain';
 export { outboxStatuses };
 
-/** Append-only: the code has no update or delete path for this table. */
+/**
+ * Append-only: the code has no update or delete path, and database triggers refuse both. Each
+ * row carries its place in its chain (one chain per test, chain 0 for events of no test) and
+ * SHA-256 of the previous row's hash and its own canonical content (src/db/queries/audit-chain.ts).
+ */
 export const auditEvents = mysqlTable(
   'audit_events',
   {
@@ -22,13 +26,27 @@ export const auditEvents = mysqlTable(
       .$type<Record<string, unknown>>()
       .notNull()
       .$defaultFn(() => ({})),
+    /** the test id, or 0 for events of no test */
+    chainKey: bigint('chain_key', { mode: 'number', unsigned: true }).notNull().default(0),
+    /** 1, 2, 3… within the chain; null only on rows older than the chain, until they are sealed */
+    chainSeq: int('chain_seq', { unsigned: true }),
+    prevHash: char('prev_hash', { length: 64 }),
+    hash: char('hash', { length: 64 }),
   },
   (t) => [
     index('audit_test_idx').on(t.testId, t.at),
     index('audit_at_idx').on(t.at),
     index('audit_action_idx').on(t.action),
+    uniqueIndex('audit_chain_uq').on(t.chainKey, t.chainSeq),
   ],
 );
+
+/** The newest row of each audit chain, locked while a row is appended so chains never fork. */
+export const auditChainHeads = mysqlTable('audit_chain_heads', {
+  chainKey: bigint('chain_key', { mode: 'number', unsigned: true }).primaryKey(),
+  lastSeq: int('last_seq', { unsigned: true }).notNull().default(0),
+  lastHash: char('last_hash', { length: 64 }).notNull(),
+});
 
 /** E-mail goes through this table so a mail-server outage delays a message, never loses it. */
 export const outbox = mysqlTable(

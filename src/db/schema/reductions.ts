@@ -21,6 +21,10 @@ export const reductions = mysqlTable(
     leaseUntil: at('lease_until'),
     attempts: int('attempts').notNull().default(0),
     maxAttempts: int('max_attempts').notNull().default(3),
+    /** storage or database faults so far; they back off and do not use up `attempts` */
+    transientFailures: int('transient_failures').notNull().default(0),
+    /** a job put back after a transient fault waits until then */
+    notBefore: at('not_before'),
     engineVersion: varchar('engine_version', { length: 40 }),
     /** plan snapshot and the log ids reduced */
     parameters: json('parameters').$type<{ plan: unknown; logIds: number[] }>().notNull(),

@@ -1,5 +1,5 @@
-import { index, int, mysqlEnum, mysqlTable, text, uniqueIndex, varchar } from 'drizzle-orm/mysql-core';
-import { at, createdAt, id, ref } from './columns';
+import { char, index, int, mysqlEnum, mysqlTable, text, uniqueIndex, varchar } from 'drizzle-orm/mysql-core';
+import { at, createdAt, id, json, ref } from './columns';
 import { reductions } from './reductions';
 import { tests } from './tests';
 import { users } from './users';
@@ -72,6 +72,24 @@ export const shareLinks = mysqlTable(
   (t) => [uniqueIndex('share_links_hash_uq').on(t.tokenHash), index('share_links_test_idx').on(t.testId)],
 );
 
+/**
+ * The record as released, frozen: plan, vessel, material, result, dispositions, signatures and
+ * logs, with SHA-256 of its canonical JSON. Written once in the release's transaction; triggers
+ * refuse any UPDATE or DELETE. Exports, the report page and share links read only this.
+ */
+export const releaseSnapshots = mysqlTable('release_snapshots', {
+  testId: ref('test_id')
+    .primaryKey()
+    .references(() => tests.id),
+  reductionId: ref('reduction_id')
+    .notNull()
+    .references(() => reductions.id),
+  body: json('body').$type<unknown>().notNull(),
+  sha256: char('sha256', { length: 64 }).notNull(),
+  createdAt: createdAt(),
+});
+
 export type Disposition = typeof dispositions.$inferSelect;
+export type ReleaseSnapshot = typeof releaseSnapshots.$inferSelect;
 export type Signature = typeof signatures.$inferSelect;
 export type ShareLink = typeof shareLinks.$inferSelect;

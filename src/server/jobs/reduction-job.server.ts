@@ -1,6 +1,8 @@
 // Runs one reduction job: claims it from the MariaDB queue, streams its logs from object
-// storage through the engine, reports progress while extending its lease, and stores the
-// result — or fails the job with a clear message (bad input: for good; a fault: retried).
+// storage through the engine, renews its lease on a timer and reports progress, and stores the
+// result — or fails the job with a clear message (bad input: for good; an internal fault: retried
+// up to max_attempts; storage or the database not answering: put back with back-off, without
+// using up an attempt).
 import { inArray } from 'drizzle-orm';
 import { getDb } from '../../db/client.server';
 import {
@@ -15,9 +17,11 @@ import { logFiles, type Reduction } from '../../db/schema';
 import { ENGINE_VERSION, parsePlan, reduceLog } from '../../lib/reduction';
 import { InputError, isInputError } from '../../lib/reduction/errors';
 import type { ReductionResult } from '../../lib/reduction/types';
-import { audit } from '../audit.server';
 import { getConfig } from '../../config.server';
+import { describeFault, isTransientFault } from '../faults.server';
 import { getObjectStream, putObject } from '../storage.server';
+import { backoffDelayMs, MAX_TRANSIENT_FAILURES } from './backoff.server';
+import { startLeaseTimer } from './lease.server';
 
 class LeaseLost extends Error {}
 
@@ -89,6 +93,7 @@ export async function runNextReduction(workerId: string, hooks: JobHooks = {}): 
   if (!job) return null;
   hooks.onClaimed?.(job.id);
   const actor = `worker ${workerId}`;
+  const leaseTimer = startLeaseTimer(db, job.id, workerId, lease);
   try {
     const plan = parsePlan(job.parameters.plan);
     const logs = await logsOf(job);
@@ -99,7 +104,7 @@ export async function runNextReduction(workerId: string, hooks: JobHooks = {}): 
     let beating = null as Promise<void> | null;
     let lost = false;
     const onProgress = (bytesRead: number) => {
-      if (lost) throw new LeaseLost();
+      if (lost || leaseTimer.lost()) throw new LeaseLost();
       if (Date.now() - lastBeat < 1000 || beating) return;
       lastBeat = Date.now();
       beating = heartbeatReduction(db, job.id, workerId, Math.min(0.98, bytesRead / total), lease)
@@ -117,7 +122,7 @@ export async function runNextReduction(workerId: string, hooks: JobHooks = {}): 
       { onProgress, seriesBuckets: 20_000 },
     );
     if (beating) await beating;
-    if (lost) throw new LeaseLost();
+    if (lost || leaseTimer.lost()) throw new LeaseLost();
     const seriesKey = `reductions/${job.id}/series.json`;
     await putObject(seriesKey, JSON.stringify(series));
     const stored = await completeReduction(db, {
@@ -139,6 +144,10 @@ export async function runNextReduction(workerId: string, hooks: JobHooks = {}): 
         logIds: job.parameters.logIds,
       },
     });
+    if (stored.refused === 'released') {
+      console.warn(`[${workerId}] reduction ${job.id} finished after its test was released; not stored`);
+      return job.id;
+    }
     if (!stored.stored) throw new LeaseLost();
     await hooks.onFinished?.(job, 'done', { result }).catch((e) => console.error('notice after reduction failed:', e));
   } catch (err) {
@@ -147,22 +156,37 @@ export async function runNextReduction(workerId: string, hooks: JobHooks = {}): 
       return job.id;
     }
     const isInput = isInputError(err);
+    const transient = !isInput && isTransientFault(err);
     const message = isInput
       ? (err as Error).message
-      : `Internal fault while reducing: ${(err as Error).message ?? String(err)}`;
-    if (!isInput) console.error(`[${workerId}] reduction ${job.id} failed:`, err);
-    const outcome = await failReduction(db, { id: job.id, workerId, error: message, retry: !isInput });
+      : transient
+        ? `Storage or the database did not answer while reducing (${describeFault(err)}); it is tried again later.`
+        : `Internal fault while reducing: ${(err as Error).message ?? String(err)}`;
+    if (!isInput) console.error(`[${workerId}] reduction ${job.id} failed:`, transient ? describeFault(err) : err);
+    const c = getConfig();
+    const outcome = await failReduction(db, {
+      id: job.id,
+      workerId,
+      error: message,
+      retry: !isInput,
+      transient: transient
+        ? {
+            notBefore: new Date(
+              Date.now() +
+                backoffDelayMs(job.transientFailures, c.WORKER_RETRY_BASE_MS, c.WORKER_RETRY_MAX_SECONDS * 1000),
+            ),
+            giveUp: job.transientFailures + 1 >= MAX_TRANSIENT_FAILURES,
+          }
+        : undefined,
+      auditWhenFailed: { actor, testId: job.testId, details: { reductionId: job.id, error: message } },
+    });
     if (outcome === 'failed') {
-      await audit({
-        actor,
-        action: 'reduction-failed',
-        testId: job.testId,
-        details: { reductionId: job.id, error: message },
-      });
       await hooks
         .onFinished?.(job, 'failed', { error: message })
         .catch((e) => console.error('notice after reduction failed:', e));
     }
+  } finally {
+    leaseTimer.stop();
   }
   return job.id;
 }

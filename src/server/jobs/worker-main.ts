@@ -8,8 +8,12 @@ import { getConfig } from '../../config.server';
 import { runNextReduction } from './reduction-job.server';
 import { reductionNotices } from './notices.server';
 import { deliverDueMail } from '../outbox.server';
+import { assertSafeToStart } from '../startup-checks.server';
+import { createPollPause } from './backoff.server';
 
+assertSafeToStart('worker');
 const config = getConfig();
+const pause = createPollPause({ pollMs: config.WORKER_POLL_MS, maxMs: config.WORKER_RETRY_MAX_SECONDS * 1000 });
 const workerId = process.env.WORKER_ID || `${hostname()}-${process.pid}`;
 let stopping = false;
 let current: number | null = null;
@@ -44,12 +48,14 @@ while (!stopping) {
       },
     });
     current = null;
+    pause.ok();
     if (handled !== null) {
       console.log(`[${workerId}] handled reduction ${handled}`);
       continue;
     }
   } catch (err) {
     console.error(`[${workerId}] queue error (will retry):`, err instanceof Error ? err.message : err);
+    pause.failed();
   }
-  await new Promise((r) => setTimeout(r, config.WORKER_POLL_MS));
+  await new Promise((r) => setTimeout(r, pause.next()));
 }

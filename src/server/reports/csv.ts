@@ -53,7 +53,21 @@ export function renderSummaryCsv(raw: ReportInput): string {
 }
 
 function unparse(rows: string[][]): string {
-  return Papa.unparse(rows, { newline: NEWLINE, quotes: false, header: false });
+  return Papa.unparse(
+    rows.map((r) => r.map(safeCell)),
+    { newline: NEWLINE, quotes: false, header: false },
+  );
+}
+
+/** A number as the renderers format it (`12`, `-0.35`, `1.2e-7`): left exactly as it is. */
+const NUMBER_CELL = /^-?(\d+\.?\d*|\.\d+)(e[+-]?\d+)?$/i;
+
+/**
+ * Every text cell is neutralised against spreadsheet formulas (a leading `=`, `+`, `-`, `@`, tab
+ * or CR gets a `'`), whoever typed it — gauge ids, names, file names, reasons; numbers stay numbers.
+ */
+export function safeCell(cell: string): string {
+  return NUMBER_CELL.test(cell) ? cell : neutraliseFormula(cell);
 }
 
 /** The header block as key/value pairs, keys plain ASCII with units in the name. */

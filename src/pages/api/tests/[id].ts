@@ -2,11 +2,10 @@ import { z } from 'zod';
 import { getDb } from '../../../db/client.server';
 import { listLogs } from '../../../db/queries/logs';
 import { findReduction } from '../../../db/queries/reductions';
-import { findTestWithVessel, updateTest } from '../../../db/queries/tests';
-import { auditBy } from '../../../server/audit.server';
+import { findTestWithVessel } from '../../../db/queries/tests';
 import { errors } from '../../../server/errors';
 import { endpoint, idParam, json, readJson, requirePermission } from '../../../server/http';
-import { loadTest } from '../../../server/plans.server';
+import { renameTest } from '../../../server/plans.server';
 
 /** GET /api/tests/{id} — the test's summary. */
 export const GET = endpoint(async (ctx) => {
@@ -44,8 +43,6 @@ export const PATCH = endpoint(async (ctx) => {
   const user = requirePermission(ctx, 'plan');
   const id = idParam(ctx.params.id, 'test');
   const body = await readJson(ctx.request, patchBody);
-  await loadTest(id, true);
-  await updateTest(getDb(), id, { name: body.name });
-  await auditBy(user, 'test-renamed', id, { name: body.name });
+  await renameTest(user, id, body.name);
   return json({ id, name: body.name });
 });

@@ -1,14 +1,10 @@
-import { getDb } from '../../../../db/client.server';
-import { revokeApiToken } from '../../../../db/queries/users';
-import { auditBy } from '../../../../server/audit.server';
-import { errors } from '../../../../server/errors';
-import { endpoint, idParam, json, requireUser } from '../../../../server/http';
+import { revokeToken } from '../../../../server/accounts.server';
+import { endpoint, idParam, json, requireSessionUser } from '../../../../server/http';
 
-/** DELETE /api/account/tokens/{id} — revoke one of the caller's own tokens. */
+/** DELETE /api/account/tokens/{id} — revoke one of the caller's own tokens (signed in, not with a token). */
 export const DELETE = endpoint(async (ctx) => {
-  const user = requireUser(ctx);
+  const user = requireSessionUser(ctx);
   const id = idParam(ctx.params.id, 'API token');
-  if (!(await revokeApiToken(getDb(), user.id, id))) throw errors.notFound('active API token of yours');
-  await auditBy(user, 'api-token-revoked', null, { tokenId: id });
+  await revokeToken(user, id, false);
   return json({ id, revoked: true });
 });

@@ -1,10 +1,6 @@
-import { z } from 'zod';
 import { getDb } from '../../../../db/client.server';
-import { createUser, findUserByEmail, listUsers } from '../../../../db/queries/users';
-import { roles } from '../../../../lib/roles';
-import { auditBy } from '../../../../server/audit.server';
-import { hashPassword } from '../../../../server/auth/passwords.server';
-import { AppError } from '../../../../server/errors';
+import { listUsers } from '../../../../db/queries/users';
+import { inviteBody, inviteUser } from '../../../../server/accounts.server';
 import { endpoint, json, readJson, requirePermission } from '../../../../server/http';
 
 /** GET /api/admin/users — every account (admin). */
@@ -13,26 +9,12 @@ export const GET = endpoint(async (ctx) => {
   return json({ items: await listUsers(getDb()) });
 });
 
-const createBody = z.object({
-  email: z.email().max(254),
-  name: z.string().trim().min(1).max(120),
-  role: z.enum(roles),
-  password: z.string().min(10, 'at least 10 characters').max(200),
-});
-
-/** POST /api/admin/users — create an account (admin). */
+/**
+ * POST /api/admin/users {email, name, role} — admin: a new account; the person gets an e-mail
+ * with a one-time link to choose their own password (no administrator ever knows it).
+ */
 export const POST = endpoint(async (ctx) => {
   const admin = requirePermission(ctx, 'users');
-  const body = await readJson(ctx.request, createBody);
-  const db = getDb();
-  if (await findUserByEmail(db, body.email))
-    throw new AppError('email-taken', 'An account with that e-mail exists already.');
-  const id = await createUser(db, {
-    email: body.email,
-    name: body.name,
-    role: body.role,
-    passwordHash: await hashPassword(body.password),
-  });
-  await auditBy(admin, 'user-created', null, { userId: id, email: body.email, role: body.role });
-  return json({ id }, 201);
+  const body = await readJson(ctx.request, inviteBody);
+  return json({ id: await inviteUser(admin, body), invited: true }, 201);
 });

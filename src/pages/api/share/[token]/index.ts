@@ -1,9 +1,9 @@
 import { json } from '../../../../server/http';
-import { loadTestRecord, recordView } from '../../../../server/record.server';
+import { loadTestRecord, shareRecordView } from '../../../../server/record.server';
 import { shareGet } from '../../../../server/share-endpoint';
 
-/** GET /api/share/{token} — the shared test's record, read-only. */
+/** GET /api/share/{token} — the shared test's record, read-only, without staff e-mail addresses. */
 export const { GET, ALL } = shareGet('record', async (link) => {
-  const view = recordView(await loadTestRecord(link.testId));
+  const view = shareRecordView(await loadTestRecord(link.testId));
   return json({ ...view, link: { expiresAt: link.expiresAt } });
 });

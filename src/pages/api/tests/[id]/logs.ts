@@ -14,7 +14,7 @@ export const GET = endpoint(async (ctx) => {
 
 /** POST /api/tests/{id}/logs — technician+; multipart `file` or raw text/csv. 201 new, 200 same bytes again. */
 export const POST = endpoint(async (ctx) => {
-  const user = requirePermission(ctx, 'upload');
+  const user = requirePermission(ctx, 'upload', { tokenWrite: 'upload' });
   const test = await loadTest(idParam(ctx.params.id, 'test'), true);
   const plan = validatePlan(test.plan);
   const { log, created } = await receiveLogUpload(ctx.request, test, plan, user);

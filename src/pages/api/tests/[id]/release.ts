@@ -1,8 +1,13 @@
-import { endpoint, idParam, json, requirePermission } from '../../../../server/http';
+import { endpoint, idParam, json, readJson, requireSessionUser } from '../../../../server/http';
 import { releaseTest } from '../../../../server/review.server';
+import { signatureBody } from '../../../../server/signature-body';
 
-/** POST /api/tests/{id}/release — QA releases a reviewed test; it is locked from then on. */
+/**
+ * POST /api/tests/{id}/release {reductionId, password, statement?} — QA releases a reviewed test
+ * in person (session and password, never a token); it is locked and its record frozen from then on.
+ */
 export const POST = endpoint(async (ctx) => {
-  const user = requirePermission(ctx, 'release');
-  return json(await releaseTest(user, idParam(ctx.params.id, 'test')), 201);
+  const user = requireSessionUser(ctx, 'release');
+  const body = await readJson(ctx.request, signatureBody);
+  return json(await releaseTest(user, idParam(ctx.params.id, 'test'), body), 201);
 });

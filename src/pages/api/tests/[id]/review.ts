@@ -1,8 +1,13 @@
-import { endpoint, idParam, json, requirePermission } from '../../../../server/http';
+import { endpoint, idParam, json, readJson, requireSessionUser } from '../../../../server/http';
 import { signReview } from '../../../../server/review.server';
+import { signatureBody } from '../../../../server/signature-body';
 
-/** POST /api/tests/{id}/review — the engineer signs the engineering review. */
+/**
+ * POST /api/tests/{id}/review {reductionId, password, statement?} — the engineer signs the
+ * engineering review in person: a browser session and their password; an API token never signs.
+ */
 export const POST = endpoint(async (ctx) => {
-  const user = requirePermission(ctx, 'review');
-  return json(await signReview(user, idParam(ctx.params.id, 'test')), 201);
+  const user = requireSessionUser(ctx, 'review');
+  const body = await readJson(ctx.request, signatureBody);
+  return json(await signReview(user, idParam(ctx.params.id, 'test'), body), 201);
 });
