@@ -39,6 +39,8 @@ const EXIT = { ok: 0, internal: 1, usage: 2, refused: 3 };
 
 class UsageError extends Error {}
 class RefusedError extends Error {}
+/** Ctrl-C while a request was being retried: nothing is lost, the state file has the range. */
+class PausedError extends Error {}
 
 /** Parse the command line; throws UsageError naming what is wrong. */
 export function parseOptions(argv, env = process.env) {
@@ -99,8 +101,6 @@ export function parseOptions(argv, env = process.env) {
     token,
   };
 }
-
-const sleep = (ms) => new Promise((resolve) => setTimeout(resolve, ms));
 
 /** The state kept between runs: which session, how far, and the chunk being sent (write-ahead). */
 async function loadState(path) {
@@ -164,6 +164,24 @@ export class Pusher {
     this.sent = 0;
     /** SHA-256 over every byte sent so far, kept running (a copy is digested for the state file) */
     this.prefix = createHash('sha256');
+    this.wake = () => undefined;
+  }
+
+  /** Stop after the chunk in flight (Ctrl-C): the wait between looks at the file ends at once. */
+  pause() {
+    this.stopping = true;
+    this.wake();
+  }
+
+  /** Wait `ms`, or less if paused meanwhile. */
+  nap(ms) {
+    return new Promise((resolve) => {
+      const timer = setTimeout(resolve, ms);
+      this.wake = () => {
+        clearTimeout(timer);
+        resolve();
+      };
+    });
   }
 
   /** One HTTP request with the token; resolves to {status, body} or {status: undefined} when no answer came. */
@@ -194,8 +212,8 @@ export class Pusher {
       this.log(
         `${what}: ${answer.status ? describe(answer) : `no answer (${answer.fault})`}; trying again in ${(wait / 1000).toFixed(1)} s`,
       );
-      if (this.stopping) return answer;
-      await sleep(wait);
+      if (this.stopping) throw new PausedError();
+      await this.nap(wait);
     }
   }
 
@@ -302,6 +320,16 @@ export class Pusher {
     await stat(this.o.file).catch(() => {
       throw new UsageError(`${this.o.file} does not exist (yet). Start the acquisition first, or check the path.`);
     });
+    try {
+      return await this.tail();
+    } catch (err) {
+      if (!(err instanceof PausedError)) throw err;
+      this.log(`paused while retrying; run the same command again to carry on (state in ${this.o.statePath})`);
+      return null;
+    }
+  }
+
+  async tail() {
     const state = await this.resumeOrOpen();
     if (this.o.finish) return this.finishSession(state);
     let lastGrowth = Date.now();
@@ -312,7 +340,7 @@ export class Pusher {
         this.log(`${this.o.file} has not grown for ${Math.round(this.o.idleMs / 1000)} s: finishing the session`);
         return this.finishSession(state);
       }
-      await sleep(this.o.intervalMs);
+      await this.nap(this.o.intervalMs);
     }
     this.log(
       `paused after ${state.offset} bytes; run the same command again to carry on (state in ${this.o.statePath})`,
@@ -336,7 +364,7 @@ async function main() {
   const pusher = new Pusher(options);
   const pause = () => {
     if (pusher.stopping) process.exit(EXIT.ok); // a second Ctrl-C: the state file is already safe
-    pusher.stopping = true;
+    pusher.pause();
   };
   process.on('SIGINT', pause);
   process.on('SIGTERM', pause);

@@ -162,7 +162,8 @@ function runScript(args: string[], env: Record<string, string> = { HOOPLINE_TOKE
   return { child, done };
 }
 
-describe('hoopline-push', () => {
+// child processes and a shared 2-core machine: allow more than vitest's 5 s
+describe('hoopline-push', { timeout: 30_000 }, () => {
   it('sends a growing log in chunks cut anywhere and finishes after the idle time, byte for byte', async () => {
     writeFileSync(file, '');
     const text = logLines(2000); // about 40 KB in 9 appends of about 4.5 KB
@@ -237,6 +238,28 @@ describe('hoopline-push', () => {
     expect(second.code).toBe(2);
     expect(second.err).toMatch(/is not the log this session started with/);
     expect(api.sessions[0]?.finished).toBe(false);
+  });
+
+  it('pauses at once on Ctrl-C, even between looks or while the server is down', async () => {
+    writeFileSync(file, logLines(20));
+    const idle = runScript(['--url', api.url, '--test', '7', '--file', file, '--interval', '60']);
+    while (!api.open?.chunks.length) await new Promise((r) => setTimeout(r, 10));
+    const asked = Date.now();
+    idle.child.kill('SIGINT');
+    expect((await idle.done).code).toBe(0);
+    expect(Date.now() - asked).toBeLessThan(3000); // not the 60 s interval
+
+    appendFileSync(file, logLines(5));
+    api.faults.unavailable = 1000;
+    const down = runScript(['--url', api.url, '--test', '7', '--file', file, '--interval', '0.05']);
+    while (api.faults.unavailable > 998) await new Promise((r) => setTimeout(r, 10));
+    down.child.kill('SIGINT');
+    const r = await down.done;
+    expect(r.code, r.err).toBe(0);
+    expect(r.out).toMatch(/paused while retrying/);
+    api.faults.unavailable = 0;
+    expect((await runScript(['--url', api.url, '--test', '7', '--file', file, '--finish']).done).code).toBe(0);
+    expect(api.assembled().equals(readFileSync(file))).toBe(true);
   });
 
   it('abandons the saved session on request', async () => {
