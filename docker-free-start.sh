@@ -40,8 +40,11 @@ cleanup() {
   trap - INT TERM EXIT
   echo
   echo "Stopping Hoopline…"
-  for ((i=${#pids[@]}-1; i>=0; i--)); do kill "${pids[$i]}" 2>/dev/null || true; done
-  for pid in "${pids[@]}"; do wait "$pid" 2>/dev/null || true; done
+  # app server and worker first (SIGTERM: the server finishes requests in flight and closes its
+  # pool, the worker hands its job back), then the services they were using
+  for ((i=${#pids[@]}-1; i>=1; i--)); do kill -TERM "${pids[$i]}" 2>/dev/null || true; done
+  for ((i=${#pids[@]}-1; i>=1; i--)); do wait "${pids[$i]}" 2>/dev/null || true; done
+  if [ ${#pids[@]} -gt 0 ]; then kill -TERM "${pids[0]}" 2>/dev/null || true; wait "${pids[0]}" 2>/dev/null || true; fi
   rm -f "$LOCK"
 }
 trap cleanup INT TERM EXIT
@@ -68,7 +71,7 @@ if [ "${SKIP_BUILD:-0}" != "1" ]; then
   npm run --silent build > .data/build.log 2>&1 || { tail -30 .data/build.log; echo "Build failed (full log: .data/build.log)."; exit 1; }
 fi
 
-HOST=$HOST PORT=$PORT node dist/server/entry.mjs > .data/server.log 2>&1 &
+HOST=$HOST PORT=$PORT node scripts/serve.mjs > .data/server.log 2>&1 &
 pids+=($!)
 if [ -f src/server/jobs/worker-main.ts ]; then
   node --import tsx src/server/jobs/worker-main.ts > .data/worker.log 2>&1 &

@@ -45,6 +45,12 @@ const boundaryZones = [
     message: 'The config module is the bottom of the server stack: it imports nothing of the app.',
   },
   {
+    target: './src/lifecycle.server.ts',
+    from: ['./src/server', './src/db', './src/pages', './src/components'],
+    message:
+      'The lifecycle module sits beside the config at the bottom of the server stack: it imports nothing of the app.',
+  },
+  {
     target: './src/db',
     from: ['./src/server', './src/pages', './src/components'],
     message: 'src/db sits below src/server: move what it needs (config, hashing) below it, or the caller up.',

@@ -19,7 +19,7 @@ export default defineConfig({
           name: 'integration',
           environment: 'node',
           include: ['tests/**/*.test.ts'],
-          exclude: ['tests/e2e/**', 'tests/drills/**'],
+          exclude: ['tests/e2e/**', 'tests/drills/**', 'tests/scale/**'],
           globalSetup: ['tests/global-setup.ts'],
           setupFiles: ['tests/support/setup-env.ts'],
           testTimeout: 60_000,

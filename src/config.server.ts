@@ -51,6 +51,9 @@ export const configSchema = z.object({
   MAIL_RETRY_SECONDS: z.coerce.number().min(0.1).default(30),
   WORKER_RETRY_BASE_MS: z.coerce.number().int().min(10).default(2000),
   WORKER_RETRY_MAX_SECONDS: z.coerce.number().int().min(1).default(300),
+  LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+  SERIES_CACHE_MB: z.coerce.number().min(1).default(256),
+  SHUTDOWN_GRACE_SECONDS: z.coerce.number().min(0).default(25),
 });
 
 export type Config = z.infer<typeof configSchema>;

@@ -1,19 +1,24 @@
-// Every request passes here: security headers and the body limit (src/server/security.server.ts),
+// Every request passes here: the request id, log line, metrics and compression
+// (src/server/observability/), security headers and the body limit (src/server/security.server.ts),
 // origin check for cookie-authenticated writes, who the caller is, and turning away anonymous
 // callers (pages redirect to /signin, the API answers 401 JSON). Each endpoint still checks the
-// role itself (src/server/http.ts requirePermission).
+// permission itself (src/server/http.ts requirePermission).
 import type { APIContext, MiddlewareNext } from 'astro';
-import { defineMiddleware } from 'astro:middleware';
+import { defineMiddleware, sequence } from 'astro:middleware';
 import { AppError, errors } from './server/errors';
 import { errorResponse } from './server/http';
 import { resolveRequestUser } from './server/auth/request-user.server';
 import { getConfig } from './config.server';
 import { guardRequest } from './server/security.server';
+import { logger } from './server/observability/logger.server';
+import { observeRequest } from './server/observability/observe.server';
 
 const PUBLIC_PREFIXES = [
   '/signin',
   '/api/auth/',
   '/api/health',
+  '/api/ready',
+  '/api/metrics',
   '/share/',
   '/api/share/',
   '/_astro/',
@@ -26,7 +31,7 @@ const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
 
 const isPublic = (path: string) => PUBLIC_PREFIXES.some((p) => path === p.replace(/\/$/, '') || path.startsWith(p));
 
-export const onRequest = defineMiddleware((ctx, next) => guardRequest(ctx, () => resolveCaller(ctx, next)));
+const guard = defineMiddleware((ctx, next) => guardRequest(ctx, () => resolveCaller(ctx, next)));
 
 async function resolveCaller(ctx: APIContext, next: MiddlewareNext) {
   const { request, url } = ctx;
@@ -57,10 +62,13 @@ async function resolveCaller(ctx: APIContext, next: MiddlewareNext) {
     ctx.locals.user = await resolveRequestUser(request, { allowToken: isApi });
   } catch (err) {
     if (err instanceof AppError) return errorResponse(err);
-    console.error('resolving the caller failed:', err);
+    logger().error({ err }, 'resolving the caller failed');
     if (isApi) return errorResponse(errors.unavailable('The database is not answering; try again shortly.'));
     if (!isPublic(path))
-      return new Response('Hoopline cannot reach its database right now. Try again shortly.', { status: 503 });
+      return new Response(
+        `Hoopline cannot reach its database right now. Try again shortly. (Reference: ${ctx.locals.requestId})`,
+        { status: 503 },
+      );
     return next();
   }
 
@@ -71,3 +79,6 @@ async function resolveCaller(ctx: APIContext, next: MiddlewareNext) {
   }
   return next();
 }
+
+// request id, log line, metrics and compression around everything else
+export const onRequest = sequence(observeRequest, guard);

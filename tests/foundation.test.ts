@@ -182,7 +182,7 @@ describe('local services', () => {
     expect(found.text).toContain('Hello from the tests.');
   });
 
-  it('health answers 200 when all is up and 503 when the database is stopped', async () => {
+  it('health answers 200 when all is up and 503 when the database is stopped; readiness also wants migrations', async () => {
     const healthy = await new Client().json('/api/health');
     expect(healthy.status).toBe(200);
     expect(healthy.body).toEqual({ ok: true, db: true, storage: true });
@@ -197,17 +197,32 @@ describe('local services', () => {
     });
     const port = await freePort();
     const env = { ...inject('env'), DATABASE_URL: db.url, HOST: '127.0.0.1', PORT: String(port) };
-    const server = spawn(process.execPath, ['dist/server/entry.mjs'], {
+    const server = spawn(process.execPath, ['scripts/serve.mjs'], {
       env: { ...process.env, ...env },
       stdio: 'ignore',
     });
     try {
       await waitForHttp(`http://127.0.0.1:${port}/api/health`, 20_000);
       expect((await fetch(`http://127.0.0.1:${port}/api/health`)).status).toBe(200);
+      // alive, but not ready: this database has none of the migrations
+      const unmigrated = await fetch(`http://127.0.0.1:${port}/api/ready`);
+      expect(unmigrated.status).toBe(503);
+      expect(await unmigrated.json()).toMatchObject({ ready: false, db: true, storage: true, migrations: 'pending' });
       await stopMariaDB({ dataDir });
       const down = await fetch(`http://127.0.0.1:${port}/api/health`);
       expect(down.status).toBe(503);
       expect(await down.json()).toEqual({ ok: false, db: false, storage: true });
+      expect(await (await fetch(`http://127.0.0.1:${port}/api/ready`)).json()).toMatchObject({
+        ready: false,
+        db: false,
+      });
+      // a page says so in words, with the request id a user can quote
+      const cookie = (await signedIn('engineer@example.com')).cookieHeader(); // same AUTH_SECRET
+      const page = await fetch(`http://127.0.0.1:${port}/`, { headers: { cookie } });
+      expect(page.status).toBe(503);
+      const id = page.headers.get('x-request-id');
+      expect(id).toMatch(/^[\w-]{8,}$/);
+      expect(await page.text()).toContain(`Reference: ${id}`);
     } finally {
       server.kill('SIGTERM');
       await stopMariaDB({ dataDir });

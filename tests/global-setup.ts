@@ -4,24 +4,15 @@
 import type { TestProject } from 'vitest/node';
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
-import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { startMariaDB, stopMariaDB } from '../fake-services/mariadb.mjs';
 import { startS3 } from '../fake-services/s3.mjs';
 import { startSmtp } from '../fake-services/smtp.mjs';
+import { freePort } from '../fake-services/ports.mjs';
 import { serverEnv, TEST_PASSWORD, testCredentials, waitForHttp } from './support/processes';
 
-export async function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const srv = createServer();
-    srv.once('error', reject);
-    srv.listen(0, '127.0.0.1', () => {
-      const { port } = srv.address() as { port: number };
-      srv.close(() => resolve(port));
-    });
-  });
-}
+export { freePort };
 
 declare module 'vitest' {
   export interface ProvidedContext {
@@ -71,7 +62,7 @@ export default async function setup(project: TestProject) {
     });
     if (r.status !== 0) throw new Error(`astro build failed:\n${(r.stdout + r.stderr).slice(-3000)}`);
   }
-  const server: ChildProcess = spawn(process.execPath, ['dist/server/entry.mjs'], {
+  const server: ChildProcess = spawn(process.execPath, ['scripts/serve.mjs'], {
     env: { ...process.env, ...env, HOST: '127.0.0.1', PORT: String(appPort) },
     stdio: ['ignore', 'inherit', 'inherit'],
   });

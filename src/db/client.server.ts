@@ -9,6 +9,7 @@ import {
 import mysql from 'mysql2/promise';
 import { getConfig } from '../config.server';
 import { isDeadlock } from './errors';
+import { onShutdown } from '../lifecycle.server';
 import * as schema from './schema';
 
 export type Db = MySql2Database<typeof schema>;
@@ -37,6 +38,7 @@ function open(): { pool: mysql.Pool; db: Db } {
   if (!handle) {
     const pool = createPool(getConfig().DATABASE_URL);
     handle = { pool, db: drizzle(pool, { schema, mode: 'default' }) };
+    onShutdown('database pool', closeDb);
   }
   return handle;
 }

@@ -3,6 +3,8 @@ import type { ReportInput } from './reports/report-input';
 import { renderSummaryCsv } from './reports/csv';
 import { renderReportPdf } from './reports/pdf';
 import { AppError } from './errors';
+import { cachedReportPdf } from './report-cache.server';
+import { recordVersion } from './reports/record-version';
 import type { TestRecord } from './record.server';
 
 /**
@@ -77,13 +79,26 @@ export function csvResponse(r: TestRecord, forInspector = false): Response {
   });
 }
 
-export async function pdfResponse(r: TestRecord, forInspector = false): Promise<Response> {
-  const pdf = await renderReportPdf(buildReportInput(r, new Date(), forInspector));
+/**
+ * The PDF, rendered once per record version (report-cache.server.ts); 304 when the reader has it.
+ * Through a share link (`forInspector`) the input leaves out e-mail addresses, so its version differs.
+ */
+export async function pdfResponse(r: TestRecord, request?: Request, forInspector = false): Promise<Response> {
+  const input = buildReportInput(r, new Date(), forInspector);
+  const version = recordVersion(input);
+  const headers = {
+    etag: `"report-${version}"`,
+    'x-record-version': version,
+    'cache-control': 'private, no-cache',
+  };
+  if (request?.headers.get('if-none-match')?.includes(headers.etag))
+    return new Response(null, { status: 304, headers });
+  const pdf = await cachedReportPdf(r.test.id, version, () => renderReportPdf(input));
   return new Response(new Uint8Array(pdf), {
     headers: {
+      ...headers,
       'content-type': 'application/pdf',
       'content-disposition': `inline; filename="${fileStem(r)}.pdf"`,
-      'cache-control': 'no-store',
     },
   });
 }

@@ -5,6 +5,8 @@ import { z } from 'zod';
 import { can, type Permission, type Role } from '../lib/roles';
 import { AppError, errors, toAppError } from './errors';
 import { describeFault, faultToAppError } from './faults.server';
+import { logger } from './observability/logger.server';
+import { currentRequestId } from './observability/request-context.server';
 
 /** What an API token may do: `read` every GET; `upload` logs, live sessions and reductions. */
 export const tokenScopes = ['read', 'upload'] as const;
@@ -30,10 +32,12 @@ export function json(data: unknown, status = 200, headers: Record<string, string
   });
 }
 
+/** The error shape of DESIGN 5, with the request id a user can quote. */
 export function errorResponse(err: AppError): Response {
   const retry = (err.details as { retryAfterSeconds?: number } | undefined)?.retryAfterSeconds;
+  const requestId = currentRequestId();
   return json(
-    { error: { code: err.code, message: err.message, details: err.details ?? null } },
+    { error: { code: err.code, message: err.message, details: err.details ?? null, requestId } },
     err.status,
     retry ? { 'retry-after': String(retry) } : {},
   );
@@ -154,12 +158,13 @@ export function endpoint(handler: Handler): Handler {
       const mapped = mapError(err);
       if (mapped) {
         if (mapped.status === 503)
-          console.error(
-            `[${new Date().toISOString()}] ${ctx.request.method} ${ctx.url.pathname}: ${describeFault(err)}`,
+          logger().warn(
+            { reqId: currentRequestId(), route: ctx.routePattern, fault: describeFault(err) },
+            'a service did not answer',
           );
         return errorResponse(mapped);
       }
-      console.error(`[${new Date().toISOString()}] ${ctx.request.method} ${ctx.url.pathname} failed:`, err);
+      logger().error({ reqId: currentRequestId(), route: ctx.routePattern, err }, 'unexpected error in an endpoint');
       return errorResponse(new AppError('internal'));
     }
   };

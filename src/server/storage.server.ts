@@ -79,3 +79,15 @@ export async function storageAnswers(timeoutMs = 2000): Promise<boolean> {
     return false;
   }
 }
+
+/** The object's bytes, or null when there is no such object. */
+export async function getObjectBytesIfExists(key: string): Promise<Uint8Array | null> {
+  try {
+    const res = await getS3().send(new GetObjectCommand({ Bucket: bucket(), Key: key }));
+    return await res.Body!.transformToByteArray();
+  } catch (err) {
+    const e = err as { name?: string; $metadata?: { httpStatusCode?: number } };
+    if (e.name === 'NoSuchKey' || e.$metadata?.httpStatusCode === 404) return null;
+    throw err;
+  }
+}

@@ -18,6 +18,7 @@ import { inspectLogHead } from '../lib/reduction';
 import type { Plan } from '../lib/reduction/plan';
 import { auditBy } from './audit.server';
 import { getConfig } from '../config.server';
+import { logger } from './observability/logger.server';
 import { AppError, errors } from './errors';
 import type { RequestUser } from './http';
 import { withLockedTest } from './locks.server';
@@ -112,7 +113,7 @@ class LogMeter extends Transform {
   bytes = 0;
   lines = 0;
   private lineHasContent = false;
-  tail = Buffer.alloc(0);
+  tail: Buffer = Buffer.alloc(0);
   constructor(private readonly limit: number) {
     super();
   }
@@ -123,14 +124,24 @@ class LogMeter extends Transform {
       return;
     }
     this.hash.update(chunk);
-    for (let i = 0; i < chunk.length; i++) {
-      const b = chunk[i]!;
-      if (b === 10) {
-        if (this.lineHasContent) this.lines++;
-        this.lineHasContent = false;
-      } else if (b !== 13 && b !== 32 && b !== 9) this.lineHasContent = true;
+    // find each newline natively; look at a line's bytes only until one is not blank
+    let start = 0;
+    for (;;) {
+      const nl = chunk.indexOf(10, start);
+      const end = nl < 0 ? chunk.length : nl;
+      for (let i = start; !this.lineHasContent && i < end; i++) {
+        const b = chunk[i]!;
+        if (b !== 13 && b !== 32 && b !== 9) this.lineHasContent = true;
+      }
+      if (nl < 0) break;
+      if (this.lineHasContent) this.lines++;
+      this.lineHasContent = false;
+      start = nl + 1;
     }
-    this.tail = Buffer.concat([this.tail, chunk]).subarray(-TAIL_BYTES);
+    this.tail =
+      chunk.length >= TAIL_BYTES
+        ? chunk.subarray(chunk.length - TAIL_BYTES)
+        : Buffer.concat([this.tail, chunk]).subarray(-TAIL_BYTES);
     done(null, chunk);
   }
   override _flush(done: TransformCallback) {
@@ -219,7 +230,7 @@ export async function receiveLogUpload(
     await deleteObject(key).catch(() => undefined);
     if (err instanceof AppError) throw err;
     if (meter.bytes > limit) throw errors.tooLarge(limit);
-    console.error('log upload to object storage failed:', err);
+    logger().error({ err }, 'log upload to object storage failed');
     throw errors.unavailable('Object storage did not take the file; nothing was stored. Try again shortly.');
   }
 

@@ -45,6 +45,7 @@ export function serverEnv(o: {
     WORKER_POLL_MS: '100',
     MAIL_RETRY_SECONDS: '0.5',
     ASTRO_TELEMETRY_DISABLED: '1',
+    LOG_LEVEL: 'warn',
     AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: 'true',
   };
 }

@@ -1,6 +1,6 @@
 import 'uplot/dist/uPlot.min.css';
 import { useCallback, useEffect, useId, useMemo, useRef, useState } from 'react';
-import type { Series } from '../../lib/reduction/types';
+import { decodeSeries, type DecodedSeries, type EncodedSeries } from '../../lib/series-encoding';
 import { formatFixed, type PressureUnit } from '../../lib/ui-format';
 import { api } from '../api';
 import { LegendSwatch } from './ChartLegend';
@@ -17,19 +17,27 @@ interface Props {
   pressureUnit: PressureUnit;
   /** channels shown at first; the first three by default */
   initialChannels?: string[];
+  /** the reduction whose series this is (lets the browser keep the answers) */
+  reductionId?: number | null;
 }
 
 type Window = [number, number];
 const heightFor = (w: number) => Math.round(Math.min(420, Math.max(260, w * 0.42)));
 
 /** Pressure and chosen strain channels over time; drag to zoom, which fetches finer buckets. */
-export default function TimeHistoryPlot({ seriesUrl, channels, pressureUnit, initialChannels }: Props) {
+export default function TimeHistoryPlot({
+  seriesUrl,
+  channels,
+  pressureUnit,
+  initialChannels,
+  reductionId = null,
+}: Props) {
   const chartEl = useRef<HTMLDivElement>(null);
   const groupId = useId();
   const [chosen, setChosen] = useState<string[]>(initialChannels ?? channels.slice(0, 3));
   const [view, setView] = useState<Window | null>(null);
   const [full, setFull] = useState<Window | null>(null);
-  const [series, setSeries] = useState<Series | null>(null);
+  const [series, setSeries] = useState<DecodedSeries | null>(null);
   const [loading, setLoading] = useState(true);
   const [error, setError] = useState<string | null>(null);
   const [attempt, setAttempt] = useState(0);
@@ -38,8 +46,10 @@ export default function TimeHistoryPlot({ seriesUrl, channels, pressureUnit, ini
     const ctrl = new AbortController();
     setLoading(true);
     setError(null);
-    api<Series>(buildSeriesUrl(seriesUrl, view ? { from: view[0], to: view[1] } : null), { signal: ctrl.signal })
-      .then((s) => {
+    const range = view ? { from: view[0], to: view[1] } : null;
+    api<EncodedSeries>(buildSeriesUrl(seriesUrl, range, undefined, reductionId), { signal: ctrl.signal })
+      .then((answer) => {
+        const s = decodeSeries(answer);
         setSeries(s);
         if (!view && s.t.length > 1) setFull([s.t[0]!, s.t[s.t.length - 1]!]);
       })
@@ -50,7 +60,7 @@ export default function TimeHistoryPlot({ seriesUrl, channels, pressureUnit, ini
         if (!ctrl.signal.aborted) setLoading(false);
       });
     return () => ctrl.abort();
-  }, [seriesUrl, view, attempt]);
+  }, [seriesUrl, view, attempt, reductionId]);
 
   const onSelectWindow = useCallback((t0: number, t1: number) => {
     if (t1 > t0) setView([t0, t1]);

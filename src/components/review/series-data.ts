@@ -1,15 +1,20 @@
-// The decimated time history (GET …/series) turned into uPlot arrays: each channel as a max and
-// a min series with a band between them, so a spike inside a bucket still shows.
+// The decimated time history (GET …/series, compact columns decoded by src/lib/series-encoding)
+// turned into uPlot arrays: each channel as a max and a min series with a band between them, so
+// a spike inside a bucket still shows.
 import type uPlot from 'uplot';
-import type { Series } from '../../lib/reduction/types';
+import type { DecodedSeries } from '../../lib/series-encoding';
 
 export const SERIES_POINTS = 1500;
 
-/** `${seriesUrl}?points=1500`, or with `from` and `to` (seconds) for a zoomed window. */
+/**
+ * `${seriesUrl}?points=1500`, with `from` and `to` (seconds) for a zoomed window, and with
+ * `reduction` naming the reduction shown (its series never changes, so the browser keeps it).
+ */
 export function buildSeriesUrl(
   seriesUrl: string,
   range: { from: number; to: number } | null,
   points = SERIES_POINTS,
+  reductionId: number | null = null,
 ): string {
   const params = new URLSearchParams();
   if (range) {
@@ -17,6 +22,7 @@ export function buildSeriesUrl(
     params.set('to', String(roundTime(range.to)));
   }
   params.set('points', String(points));
+  if (reductionId !== null) params.set('reduction', String(reductionId));
   return `${seriesUrl}${seriesUrl.includes('?') ? '&' : '?'}${params.toString()}`;
 }
 
@@ -33,11 +39,11 @@ export interface PlotSeriesSpec {
 
 /** Arrays in uPlot's order: t, then pressure max/min (if present), then each chosen channel max/min. */
 export function buildTimeHistoryData(
-  series: Series,
+  series: Pick<DecodedSeries, 't' | 'min' | 'max'>,
   chosen: readonly string[],
 ): { data: uPlot.AlignedData; specs: PlotSeriesSpec[] } {
   const specs: PlotSeriesSpec[] = [];
-  const arrays: number[][] = [series.t];
+  const arrays: (number | null)[][] = [series.t];
   const add = (channel: string, scale: 'p' | 'y') => {
     const max = series.max[channel];
     const min = series.min[channel];

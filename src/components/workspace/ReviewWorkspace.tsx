@@ -170,6 +170,7 @@ export default function ReviewWorkspace({
         </h2>
         <TimeHistoryPlot
           seriesUrl={seriesUrl}
+          reductionId={record.reduction?.status === 'done' ? record.reduction.id : null}
           channels={plan.gauges.flatMap((g) => g.channels)}
           pressureUnit={result.pressureUnit}
         />

@@ -5,5 +5,5 @@ import { loadTestRecord } from '../../../../server/record.server';
 /** GET /api/tests/{id}/export.pdf — the report (DRAFT on every page until released). */
 export const GET = endpoint(async (ctx) => {
   requirePermission(ctx, 'read');
-  return pdfResponse(await loadTestRecord(idParam(ctx.params.id, 'test')));
+  return pdfResponse(await loadTestRecord(idParam(ctx.params.id, 'test')), ctx.request);
 });

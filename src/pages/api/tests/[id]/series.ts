@@ -1,9 +1,8 @@
-import { endpoint, idParam, json, requirePermission } from '../../../../server/http';
-import { seriesKeyOf } from '../../../../server/record.server';
-import { readSeries } from '../../../../server/series.server';
+import { endpoint, idParam, requirePermission } from '../../../../server/http';
+import { seriesResponse } from '../../../../server/series.server';
 
-/** GET /api/tests/{id}/series?from&to&points — pressure and every channel, min/max per bucket. */
+/** GET /api/tests/{id}/series?from&to&points&channels&reduction — min/max per bucket, compact columns. */
 export const GET = endpoint(async (ctx) => {
   requirePermission(ctx, 'read');
-  return json(await readSeries(await seriesKeyOf(idParam(ctx.params.id, 'test')), ctx.url));
+  return seriesResponse(ctx.request, ctx.url, idParam(ctx.params.id, 'test'));
 });
