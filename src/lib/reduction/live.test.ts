@@ -329,7 +329,7 @@ describe('a healthy vessel never raises a warning', () => {
           seed: o.seed,
           strainNoise: o.strainNoise,
           pressureNoise: o.pressureNoise,
-          levels: o.levels,
+          levels: [...o.levels],
           holdSeconds: o.holdSeconds,
           rampSeconds: 15,
           gauges: { H1: { offset: o.offset }, R2: { offset: -o.offset } },
