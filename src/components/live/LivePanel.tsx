@@ -45,7 +45,13 @@ export default function LivePanel({
         } catch {
           return;
         }
-        setState((s) => applyLiveEvent(s, type, data));
+        // an event id is `{session}.{ordinal}`: a new session starts the panel afresh
+        const session = e.lastEventId.split('.')[0] ?? '';
+        setState((s) => {
+          const fresh = session !== '' && s.session !== '' && session !== s.session;
+          const from = fresh ? applyLiveEvent(s, 'session', {}) : s;
+          return { ...applyLiveEvent(from, type, data), session: session || from.session };
+        });
       };
       source.addEventListener(type, h);
       return [type, h] as const;
@@ -74,11 +80,13 @@ export default function LivePanel({
             className={`rounded-full px-2.5 py-0.5 text-sm font-semibold ${
               finished ? 'bg-ink-100 text-ink-900' : 'bg-brass-100 text-ink-950'
             }`}
-            data-live-state={finished ? 'finished' : 'live'}
+            data-live-state={finished ? 'finished' : state.abandoned ? 'abandoned' : 'live'}
           >
             {finished
               ? 'Finished: the log is stored and the full reduction is queued'
-              : 'Live, not yet reduced: figures are provisional'}
+              : state.abandoned
+                ? 'Abandoned: nothing of this session was stored as a log'
+                : 'Live, not yet reduced: figures are provisional'}
           </span>
         )}
         <span className="ml-auto text-sm text-ink-700" aria-live="polite">
@@ -114,7 +122,7 @@ export default function LivePanel({
           <div>
             <dt className="text-ink-700">Hold in progress</dt>
             <dd className="text-lg font-semibold">
-              {finished ? '—' : `Hold ${state.holds.length + 1}`}
+              {finished || state.abandoned ? '—' : `Hold ${state.holds.length + 1}`}
               <span className="ml-1 text-sm font-normal text-ink-700">
                 of test pressure {formatPressure(testPressure, pressureUnit)}
               </span>

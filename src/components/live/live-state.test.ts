@@ -51,4 +51,10 @@ describe('the live panel state', () => {
     expect(next.warnings).toEqual([]);
     expect(next.finishedReductionId).toBeNull();
   });
+
+  it('marks a session the server says was abandoned', () => {
+    const s = feed([...events, ['status', { rows: 900, pressure: null, verdict: null, session: 'abandoned' }]]);
+    expect(s.abandoned).toBe(true);
+    expect(s.rows).toBe(900);
+  });
 });

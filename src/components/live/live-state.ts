@@ -30,6 +30,8 @@ export interface LiveState {
   /** the session finished: its log is stored and this reduction was queued */
   finishedReductionId: number | null;
   abandoned: boolean;
+  /** the session the events so far belong to (the first part of an event id), '' before any */
+  session: string;
 }
 
 export const INITIAL_LIVE_STATE: LiveState = {
@@ -42,6 +44,7 @@ export const INITIAL_LIVE_STATE: LiveState = {
   warnings: [],
   finishedReductionId: null,
   abandoned: false,
+  session: '',
 };
 
 export type LiveEventType = 'hold' | 'warning' | 'status' | 'finished' | 'abandoned' | 'session';
@@ -53,7 +56,7 @@ export function applyLiveEvent(state: LiveState, type: string, data: unknown): L
   switch (type) {
     case 'session':
       // a new session starts: what an earlier (abandoned or finished) one showed is history
-      return { ...INITIAL_LIVE_STATE, connected: state.connected, active: true };
+      return { ...INITIAL_LIVE_STATE, connected: state.connected, session: state.session, active: true };
     case 'hold': {
       if (typeof d.index !== 'number' || typeof d.pressure !== 'number' || !Array.isArray(d.gauges)) return state;
       const hold = data as LiveHold;
@@ -69,6 +72,8 @@ export function applyLiveEvent(state: LiveState, type: string, data: unknown): L
       return { ...state, active: true, warnings: [...state.warnings, w] };
     }
     case 'status':
+      // the server marks an abandoned session with a last status event
+      if (d.session === 'abandoned') return { ...state, abandoned: true };
       return {
         ...state,
         active: true,
