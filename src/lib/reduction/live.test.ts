@@ -90,7 +90,7 @@ function referenceLog(): string {
   });
 }
 
-const logs: { name: string; plan: Plan; text: string; warnings: string[] }[] = [
+const logs: { name: string; plan: Plan; text: string; warnings: string[]; holds?: false }[] = [
   {
     name: 'healthy, CRLF, BOM, a preamble with multi-byte characters',
     plan: demoPlan(),
@@ -129,6 +129,13 @@ const logs: { name: string; plan: Plan; text: string; warnings: string[] }[] = [
     text: syntheticLog(demoPlan(), { ...small, seed: 9, stopAfterSeconds: 170 }),
     warnings: [],
   },
+  {
+    name: 'a steady ramp without holds: no hold events, the batch fallback result',
+    plan: demoPlan(),
+    text: syntheticLog(demoPlan(), { profile: 'ramp', rampSeconds: 120, rateHz: 4, seed: 10 }),
+    warnings: [],
+    holds: false,
+  },
 ];
 
 describe('the same bytes cut anywhere: the same events, and the batch result bit for bit', () => {
@@ -139,7 +146,7 @@ describe('the same bytes cut anywhere: the same events, and the batch result bit
       const once = feed(log.plan, bytes, []);
       expect(once.result).toStrictEqual(whole.result);
       expect(once.series).toStrictEqual(whole.series);
-      expect(once.events.some((e) => e.type === 'hold')).toBe(true);
+      expect(once.events.some((e) => e.type === 'hold')).toBe(log.holds !== false);
       expect(warningsOf(once.events).map((w) => `${w.gaugeId} ${w.code}`)).toEqual(log.warnings);
       const tricky = trickyCuts(bytes);
       expect(tricky.length).toBeGreaterThan(0);

@@ -388,7 +388,7 @@ export class LiveReducer {
     if (projected < limit) return;
     raise(
       'near-yield',
-      `${this.name(s)} reads ${fmt(Math.abs(ratio))} × its prediction after the ${ordinal(loadingHolds)} loading hold: at the test pressure of ${fmt(this.plan.testPressure, 4)} ${this.pUnit} that puts the largest stress in the wall at about ${fmt(projected * 100)} % of yield (limit ${fmt(limit * 100)} %); hold the pressure where it is, keep everyone clear, and have the responsible engineer check the wall thickness and material before going on.`,
+      `${this.name(s)} reads ${fmt(Math.abs(ratio))} × its prediction after the ${ordinal(loadingHolds)} loading hold: at the test pressure of ${fmt(this.plan.testPressure, 4)} ${this.pUnit} that puts the largest stress in the wall at about ${fmt(projected * 100)} % of yield (limit ${fmt(limit * 100)} %); hold the pressure where it is, keep everyone clear, and have the responsible engineer check the wall thickness, the material and the test pressure against the governing code before going on.`,
     );
   }
 
