@@ -199,6 +199,21 @@ describe('the same bytes cut anywhere: the same events, and the batch result bit
     expect(h1(5)).not.toBeNull();
   });
 
+  it('a replay of the same chunks repeats every event, status events included', () => {
+    const { plan, text } = logs[1]!;
+    const bytes = enc.encode(text);
+    const replay = () => {
+      const live = new LiveReducer(plan);
+      const out: LiveEvent[] = [];
+      for (let i = 0; i < bytes.length; i += 3001) out.push(...live.push(bytes.subarray(i, i + 3001)));
+      out.push(...live.finish().caused);
+      return out;
+    };
+    const first = replay();
+    expect(first.filter((e) => e.type === 'status').length).toBeGreaterThan(10);
+    expect(replay()).toStrictEqual(first);
+  });
+
   it('text chunks give the events of byte chunks', () => {
     const { plan, text } = logs[1]!;
     const live = new LiveReducer(plan);

@@ -85,8 +85,8 @@ interface GridState {
  * split by a short excursion, gives no second event), each followed by the warnings it raised;
  * `status` at most once per push, last. The hold and warning events are a pure function of the
  * bytes: the same bytes cut anywhere give the same list in the same order. Status events depend
- * on where the chunks end (rows so far), so they are not part of that list: number only hold and
- * warning events.
+ * on where the chunks end (rows so far): a replay repeats them only when it feeds the chunks as
+ * they arrived, so numbering hold and warning events alone is safe under any re-chunking.
  *
  * `provisionalRatio` is the measured/predicted slope of the least-squares line through the current
  * cycle's starting zero hold (when it has one) and its loading holds so far, zeroed on that zero
