@@ -9,7 +9,12 @@ import { describe, expect, it } from 'vitest';
 import { findRoute, routes, type Method } from './description';
 import { buildDocsView } from './docs-view';
 import { buildOpenApi, type JsonSchema } from './openapi';
+import type { z } from 'zod';
 import * as schemas from './schemas';
+
+type SchemaName = {
+  [K in keyof typeof schemas]: (typeof schemas)[K] extends z.ZodType ? K : never;
+}[keyof typeof schemas];
 
 /**
  * Described routes whose endpoint files are being built elsewhere (live test mode, DESIGN 8).
@@ -166,6 +171,48 @@ describe('the registry and the route files', () => {
   });
 });
 
+describe('query strings: the parser and the published schema are one object', () => {
+  // where each query schema is parsed (an endpoint, or the server helper it calls)
+  const parsedIn: [route: string, schema: SchemaName, file: string][] = [
+    ['GET /api/tests', 'testListQuery', 'src/pages/api/tests/index.ts'],
+    ['GET /api/tests/{id}/series', 'seriesQuery', 'src/server/series.server.ts'],
+    ['GET /api/share/{token}/series', 'seriesQuery', 'src/server/series.server.ts'],
+    ['GET /api/vessels', 'pageQuery', 'src/server/pagination.ts'],
+    ['GET /api/materials', 'pageQuery', 'src/server/pagination.ts'],
+    ['GET /api/tests/{id}/audit', 'pageQuery', 'src/server/pagination.ts'],
+  ];
+
+  it.each(parsedIn)('%s publishes %s, which %s parses with', (key, schema, file) => {
+    const [method, p] = key.split(' ') as [Method, string];
+    expect(findRoute(method, p)?.query).toBe(schemas[schema]);
+    expect(readFileSync(file, 'utf8')).toMatch(new RegExp(`\\b${schema}\\.safeParse\\(`));
+  });
+
+  it('covers every route that publishes a query', () => {
+    const described = routes.filter((r) => r.query).map((r) => `${r.method} ${r.path}`);
+    expect(described.sort()).toEqual(parsedIn.map(([k]) => k).sort());
+  });
+
+  it('refuses in both places a status that is not one', () => {
+    const doc = buildOpenApi() as { paths: Record<string, Record<string, { parameters: { name: string }[] }>> };
+    expect(doc.paths['/api/tests']!.get!.parameters.map((x) => x.name)).toEqual([
+      'limit',
+      'offset',
+      'status',
+      'vesselId',
+    ]);
+    expect(schemas.testListQuery.safeParse({ status: 'logging,reduced' }).success).toBe(true);
+    expect(schemas.testListQuery.safeParse({ status: 'logging,nope' }).success).toBe(false);
+    expect(schemas.seriesQuery.safeParse({ points: '5' }).success).toBe(false);
+    const ajv = new Ajv2020({ strict: false });
+    const points = (
+      doc.paths['/api/tests/{id}/series']!.get!.parameters as unknown as { name: string; schema: JsonSchema }[]
+    ).find((x) => x.name === 'points')!;
+    expect(ajv.validate(points.schema, 5)).toBe(false);
+    expect(ajv.validate(points.schema, 500)).toBe(true);
+  });
+});
+
 describe('a body the endpoint refuses is refused by the published schema too', () => {
   const doc = buildOpenApi() as {
     paths: Record<string, Record<string, { requestBody: { content: Record<string, { schema: JsonSchema }> } }>>;
@@ -174,7 +221,7 @@ describe('a body the endpoint refuses is refused by the published schema too', (
   const published = (p: string, m: string) =>
     ajv.compile(doc.paths[p]![m]!.requestBody.content['application/json']!.schema);
 
-  const cases: [path: string, method: string, schema: keyof typeof schemas, body: unknown, valid: boolean][] = [
+  const cases: [path: string, method: string, schema: SchemaName, body: unknown, valid: boolean][] = [
     [
       '/api/tests/{id}/dispositions',
       'post',

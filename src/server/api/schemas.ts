@@ -25,17 +25,13 @@ export const pageQuery = z.object({
   offset: z.coerce.number().int().min(0).default(0).describe('How many items to skip.'),
 });
 
-/** The filter of GET /api/tests, after the comma list of `status` has been split. */
-export const testFilter = z.object({
-  status: z.array(z.enum(testStatuses)).optional(),
-  vesselId: z.coerce.number().int().positive().optional(),
-});
-
-/** GET /api/tests as it appears in the URL (`status` is a comma-separated list). */
+/** GET /api/tests: `status` is a comma-separated list in the URL, split before its values are checked. */
 export const testListQuery = pageQuery.extend({
   status: z
     .string()
     .optional()
+    .transform((v) => (v === undefined ? undefined : v.split(',').filter(Boolean)))
+    .pipe(z.array(z.enum(testStatuses)).optional())
     .describe(`Comma-separated statuses to keep: ${testStatuses.join(', ')}.`),
   vesselId: z.coerce.number().int().positive().optional().describe('Only the tests of this vessel.'),
 });

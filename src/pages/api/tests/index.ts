@@ -1,21 +1,17 @@
 import { getDb } from '../../../db/client.server';
 import { listTests } from '../../../db/queries/tests';
-import { testCreateBody, testFilter } from '../../../server/api/schemas';
+import { testCreateBody, testListQuery } from '../../../server/api/schemas';
 import { endpoint, json, readJson, requirePermission, zodToAppError } from '../../../server/http';
-import { readPage } from '../../../server/pagination';
 import { createTestFromPlan } from '../../../server/plans.server';
 
 /** GET /api/tests?status=logging,reduced&vesselId=&limit=&offset= — every role. */
 export const GET = endpoint(async (ctx) => {
   requirePermission(ctx, 'read');
-  const s = ctx.url.searchParams;
-  const f = testFilter.safeParse({
-    status: s.get('status')?.split(',').filter(Boolean),
-    vesselId: s.get('vesselId') ?? undefined,
-  });
-  if (!f.success) throw zodToAppError(f.error);
-  const page = readPage(ctx.url);
-  return json({ ...(await listTests(getDb(), { ...f.data, ...page })), ...page });
+  const q = testListQuery.safeParse(Object.fromEntries(ctx.url.searchParams));
+  if (!q.success) throw zodToAppError(q.error);
+  const { status, vesselId, limit, offset } = q.data;
+  const page = { limit, offset };
+  return json({ ...(await listTests(getDb(), { status, vesselId, ...page })), ...page });
 });
 
 /** POST /api/tests {name, plan} — engineer; the plan's vessel and material are created or matched. */
