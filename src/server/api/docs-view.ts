@@ -52,6 +52,8 @@ function typeOf(s: JsonSchema): string {
   return 'any';
 }
 
+const count = (n: unknown, word: string) => `${String(n)} ${word}${n === 1 ? '' : 's'}`;
+
 function notesOf(s: JsonSchema): string {
   const n: string[] = [];
   if (typeof s.description === 'string') n.push(s.description);
@@ -59,9 +61,9 @@ function notesOf(s: JsonSchema): string {
   if (s.exclusiveMinimum !== undefined) n.push(`> ${String(s.exclusiveMinimum)}`);
   if (s.maximum !== undefined && s.maximum !== Number.MAX_SAFE_INTEGER) n.push(`≤ ${String(s.maximum)}`);
   if (s.exclusiveMaximum !== undefined) n.push(`< ${String(s.exclusiveMaximum)}`);
-  if (s.minLength !== undefined) n.push(`at least ${String(s.minLength)} characters`);
-  if (s.maxLength !== undefined) n.push(`at most ${String(s.maxLength)} characters`);
-  if (s.minItems !== undefined) n.push(`at least ${String(s.minItems)} items`);
+  if (s.minLength !== undefined) n.push(`at least ${count(s.minLength, 'character')}`);
+  if (s.maxLength !== undefined) n.push(`at most ${count(s.maxLength, 'character')}`);
+  if (s.minItems !== undefined) n.push(`at least ${count(s.minItems, 'item')}`);
   if (s.default !== undefined) n.push(`default ${JSON.stringify(s.default)}`);
   return n.join('; ');
 }
