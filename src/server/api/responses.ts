@@ -141,10 +141,56 @@ export const dispositions = z.object({
 
 export const record = z
   .looseObject({
-    test: testRow,
-    result: z.looseObject({ verdict: z.enum(verdicts) }).nullable(),
-    signatures: z.array(z.looseObject({ kind: z.enum(['review', 'release']), name: z.string(), at: timestamp })),
-    logs: z.array(logRow),
+    test: z.object({
+      id,
+      name: z.string(),
+      status: z.enum(testStatuses),
+      verdict: z.enum(verdicts).nullable(),
+      flaggedCount: z.number().int().nullable(),
+      createdAt: timestamp,
+      lastActivityAt: timestamp.nullable(),
+    }),
+    vessel: z.looseObject({ id, tag: z.string() }).nullable(),
+    material: z.looseObject({ id, name: z.string() }).nullable(),
+    plan: z.unknown().describe('The plan (DESIGN 4.1).'),
+    reduction: z
+      .object({
+        id,
+        status: z.enum(jobStatuses),
+        progress: z.number(),
+        engineVersion: z.string().nullable(),
+        finishedAt: timestamp.nullable(),
+        error: z.string().nullable(),
+      })
+      .nullable(),
+    result: z
+      .looseObject({ verdict: z.enum(verdicts).nullable(), gauges: z.array(z.looseObject({ id: z.string() })) })
+      .nullable()
+      .describe('The result (DESIGN 4.2) with the latest dispositions applied.'),
+    dispositions: z.unknown(),
+    signatures: z.array(
+      z.object({
+        kind: z.enum(['review', 'release']),
+        name: z.string(),
+        email: z.string().nullable().describe('Empty for an inspector’s link.'),
+        at: timestamp,
+        reductionId: id,
+        statement: z.string(),
+      }),
+    ),
+    logs: z.array(
+      z.object({
+        id,
+        filename: z.string().nullable(),
+        sha256: z.string(),
+        sizeBytes: z.number().int(),
+        rows: z.number().int(),
+        timeStart: z.number().nullable(),
+        timeEnd: z.number().nullable(),
+        createdAt: timestamp,
+      }),
+    ),
+    openFlags: z.unknown(),
   })
   .describe('The whole record of a test: plan, current result with dispositions applied, signatures, logs.');
 
