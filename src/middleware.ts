@@ -19,6 +19,8 @@ const PUBLIC_PREFIXES = [
   '/api/health',
   '/api/ready',
   '/api/metrics',
+  '/api/docs',
+  '/api/openapi.json',
   '/share/',
   '/api/share/',
   '/_astro/',

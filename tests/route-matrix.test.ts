@@ -106,6 +106,9 @@ const MATRIX: [method: string, route: string, body: unknown, ...cells: Cell[]][]
   ['GET', '/api/share/:share/export.pdf', undefined, ok, ok, ok, ok, ok, ok, ok, ok, ok, ok],
   ['DELETE', '/api/share/:share/export.pdf', undefined, 405, 405, 405, 405, 405, 405, 405, 405, 405, 405],
   ['GET', '/api/share/:share/series', undefined, ok, ok, ok, ok, ok, ok, ok, ok, ok, ok],
+  // the API description — anyone (a share-link token sent as a Bearer token is not a credential)
+  ['GET', '/api/openapi.json', undefined, ok, ok, ok, ok, ok, ok, ok, ok, ok, 401],
+  ['GET', '/api/docs', undefined, ok, ok, ok, ok, ok, ok, ok, ok, ok, 401],
 ];
 
 const clients = {} as Record<Who, Client>;

@@ -2,7 +2,7 @@
 // password through a one-time e-mailed link, so no administrator ever knows it), password resets
 // by e-mail link, disabling and re-enabling (which ends every session), roles, and API tokens
 // with scopes and an expiry. Every change commits with its audit row.
-import { z } from 'zod';
+import { type z } from 'zod';
 import { getDb, inTransaction } from '../db/client.server';
 import {
   createUser,
@@ -22,25 +22,20 @@ import {
   setUserRole,
 } from '../db/queries/users';
 import type { Conn } from '../db/client.server';
-import { roles, type Role } from '../lib/roles';
+import type { Role } from '../lib/roles';
 import { getConfig } from '../config.server';
 import { audit, auditBy } from './audit.server';
 import { hashPassword, NO_PASSWORD } from './auth/passwords.server';
 import { assertAcceptablePassword } from './auth/password-policy.server';
 import { API_TOKEN_PREFIX, hashToken, newToken } from './auth/tokens.server';
 import { AppError, errors } from './errors';
-import { tokenScopes, type RequestUser } from './http';
+import type { RequestUser } from './http';
+import type { inviteBody, tokenBody } from './api/schemas';
 import { enqueueMailIn, kickOutbox } from './outbox.server';
 
 const INVITE_DAYS = 7;
 const RESET_MINUTES = 60;
 const base = () => getConfig().PUBLIC_BASE_URL.replace(/\/$/, '');
-
-export const inviteBody = z.object({
-  email: z.email('must be an e-mail address').max(254),
-  name: z.string().trim().min(1, 'is required').max(120),
-  role: z.enum(roles),
-});
 
 /** A one-time link for `purpose`, its hash stored and the e-mail queued in the same transaction. */
 async function sendAccountLink(
@@ -172,10 +167,6 @@ export async function setPasswordWithLink(token: string, password: string): Prom
   });
 }
 
-export const userPatchBody = z
-  .object({ role: z.enum(roles).optional(), disabled: z.boolean().optional() })
-  .refine((b) => b.role !== undefined || b.disabled !== undefined, { message: 'give `role` or `disabled`' });
-
 /** PATCH /api/admin/users/{id}: change a role, or disable / re-enable (ending every session). */
 export async function updateUserByAdmin(
   admin: RequestUser,
@@ -210,16 +201,6 @@ export async function updateUserByAdmin(
     return { id, role: patch.role ?? target.role, disabled: patch.disabled ?? target.disabled };
   });
 }
-
-export const tokenBody = z.object({
-  name: z.string().trim().min(1, 'give the token a name, e.g. the DAQ PC it lives on').max(120),
-  scopes: z
-    .array(z.enum(tokenScopes))
-    .min(1, 'choose at least one scope: read, upload')
-    .default(['read', 'upload'])
-    .transform((s) => [...new Set(s)].sort()),
-  expiresInDays: z.number().int().min(1, 'at least 1 day').max(365, 'at most 365 days').default(90),
-});
 
 /** POST /api/account/tokens: a personal token, shown in this answer only. */
 export async function createApiToken(user: RequestUser, body: z.infer<typeof tokenBody>) {

@@ -1,5 +1,5 @@
 // Vessels and materials as the API shows and edits them (stored in SI).
-import { z } from 'zod';
+import { type z } from 'zod';
 import { getDb, inTransaction } from '../db/client.server';
 import {
   findMaterial,
@@ -13,44 +13,7 @@ import {
 import { auditBy } from './audit.server';
 import { AppError, errors } from './errors';
 import type { RequestUser } from './http';
-
-export const materialBody = z.object({
-  name: z.string().trim().min(1).max(160),
-  elasticModulusMPa: z.number().gt(500, 'is in MPa: 200 GPa is 200000'),
-  poissonRatio: z.number().gte(0).lte(0.5),
-  yieldStrengthMPa: z.number().gt(0),
-});
-
-const feature = z.object({
-  id: z.string().max(60).optional(),
-  name: z.string().max(120).optional(),
-  kind: z.enum(['head', 'nozzle', 'support', 'thickness-change']),
-  axialPosition: z.number(),
-  clockDeg: z.number().min(0).max(360).optional(),
-  size: z.number().min(0).optional(),
-});
-
-export const vesselBody = z
-  .object({
-    tag: z.string().trim().min(1).max(60),
-    name: z.string().trim().min(1).max(160),
-    shape: z.enum(['cylinder', 'sphere']),
-    ends: z.enum(['closed', 'open']).default('closed'),
-    insideDiameterMm: z.number().gt(0),
-    wallThicknessMm: z.number().gt(0),
-    lengthMm: z.number().gt(0).nullable().optional(),
-    features: z.array(feature).default([]),
-    materialId: z.number().int().positive().nullable().optional(),
-    units: z.enum(['SI', 'US']).default('SI'),
-  })
-  .refine((v) => v.shape === 'sphere' || (v.lengthMm ?? null) !== null, {
-    path: ['lengthMm'],
-    message: 'is required for a cylinder',
-  })
-  .refine((v) => v.wallThicknessMm < v.insideDiameterMm / 2, {
-    path: ['wallThicknessMm'],
-    message: 'must be less than the inside radius',
-  });
+import { vesselBody, type materialBody } from './api/schemas';
 
 export function createMaterial(user: RequestUser, body: z.infer<typeof materialBody>) {
   return inTransaction(async (tx) => {

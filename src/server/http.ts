@@ -8,9 +8,9 @@ import { describeFault, faultToAppError } from './faults.server';
 import { logger } from './observability/logger.server';
 import { currentRequestId } from './observability/request-context.server';
 
-/** What an API token may do: `read` every GET; `upload` logs, live sessions and reductions. */
-export const tokenScopes = ['read', 'upload'] as const;
-export type TokenScope = (typeof tokenScopes)[number];
+import type { TokenScope } from './api/schemas';
+
+export { tokenScopes, type TokenScope } from './api/schemas';
 
 export interface RequestUser {
   id: number;

@@ -6,7 +6,6 @@
 // answer's ETag names the reduction and the window, and a browser that has it gets 304.
 import { createHash } from 'node:crypto';
 import { LRUCache } from 'lru-cache';
-import { z } from 'zod';
 import { getConfig } from '../config.server';
 import { getDb } from '../db/client.server';
 import { findSeriesSource } from '../db/queries/series';
@@ -15,6 +14,7 @@ import type { Series } from '../lib/reduction/types';
 import { encodeSeries, SERIES_FORMAT, seriesResolutions } from '../lib/series-encoding';
 import { chooseCoding, compressBytes } from './compression.server';
 import { errors } from './errors';
+import { seriesQuery } from './api/schemas';
 import { zodToAppError } from './http';
 import { logger } from './observability/logger.server';
 import { getObjectText } from './storage.server';
@@ -90,19 +90,6 @@ async function buildAnswer(stored: LRUCache<number, StoredSeries, string>, job: 
   return { identity, br, gzip };
 }
 
-const querySchema = z
-  .object({
-    from: z.coerce.number().optional(),
-    to: z.coerce.number().optional(),
-    points: z.coerce.number().int().min(10).max(5000).default(1000),
-    channels: z.string().max(4000).optional(),
-    reduction: z.coerce.number().int().positive().optional(),
-  })
-  .refine((q) => q.from === undefined || q.to === undefined || q.to > q.from, {
-    path: ['to'],
-    message: 'must be greater than from',
-  });
-
 interface Window {
   from?: number;
   to?: number;
@@ -111,7 +98,7 @@ interface Window {
 }
 
 function parseQuery(url: URL): { window: Window; reductionId: number | null } {
-  const q = querySchema.safeParse(Object.fromEntries(url.searchParams));
+  const q = seriesQuery.safeParse(Object.fromEntries(url.searchParams));
   if (!q.success) throw zodToAppError(q.error);
   const channels = q.data.channels ? [...new Set(q.data.channels.split(',').filter(Boolean))].sort() : null;
   return {

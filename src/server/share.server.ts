@@ -1,7 +1,7 @@
 // Inspector share links: 256 random bits in the URL, only the hash stored (and the e-mail that
 // carries it is encrypted in the outbox); default 14 days, at most 90; revocable; every use is
 // counted and audited in the same transaction.
-import { z } from 'zod';
+import { type z } from 'zod';
 import { getDb, inTransaction } from '../db/client.server';
 import {
   findShareLink,
@@ -18,11 +18,7 @@ import { AppError, errors } from './errors';
 import type { RequestUser } from './http';
 import { enqueueMailIn, kickOutbox } from './outbox.server';
 import { loadTest } from './plans.server';
-
-export const shareLinkBody = z.object({
-  email: z.email('must be an e-mail address').max(254).optional(),
-  expiresInDays: z.number().int().min(1, 'at least 1 day').max(90, 'at most 90 days').default(14),
-});
+import type { shareLinkBody } from './api/schemas';
 
 export async function createShareLink(user: RequestUser, testId: number, body: z.infer<typeof shareLinkBody>) {
   const test = await loadTest(testId);

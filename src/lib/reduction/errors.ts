@@ -20,18 +20,20 @@ export interface InputErrorDetails {
 }
 
 /** Permanent codes; the message says what happened and what to do. */
-export type InputErrorCode =
-  | 'invalid-plan'
-  | 'not-delimited-text'
-  | 'pressure-column-not-found'
-  | 'missing-column'
-  | 'duplicate-column'
-  | 'unknown-pressure-unit'
-  | 'implausible-pressure'
-  | 'empty-column'
-  | 'no-data'
-  | 'too-few-levels'
-  | 'invalid-series-request';
+export const inputErrorCodes = [
+  'invalid-plan',
+  'not-delimited-text',
+  'pressure-column-not-found',
+  'missing-column',
+  'duplicate-column',
+  'unknown-pressure-unit',
+  'implausible-pressure',
+  'empty-column',
+  'no-data',
+  'too-few-levels',
+  'invalid-series-request',
+] as const;
+export type InputErrorCode = (typeof inputErrorCodes)[number];
 
 export class InputError extends Error {
   readonly code: InputErrorCode;

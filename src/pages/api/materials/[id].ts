@@ -1,6 +1,7 @@
 import { getDb } from '../../../db/client.server';
 import { findMaterial } from '../../../db/queries/vessels';
-import { editMaterial, materialBody } from '../../../server/catalog.server';
+import { materialPatchBody } from '../../../server/api/schemas';
+import { editMaterial } from '../../../server/catalog.server';
 import { errors } from '../../../server/errors';
 import { endpoint, idParam, json, readJson, requirePermission } from '../../../server/http';
 
@@ -14,7 +15,7 @@ export const GET = endpoint(async (ctx) => {
 export const PATCH = endpoint(async (ctx) => {
   const user = requirePermission(ctx, 'plan');
   const id = idParam(ctx.params.id, 'material');
-  const patch = await readJson(ctx.request, materialBody.partial());
+  const patch = await readJson(ctx.request, materialPatchBody);
   await editMaterial(user, id, patch);
   return json(await findMaterial(getDb(), id));
 });

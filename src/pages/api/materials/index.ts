@@ -1,6 +1,7 @@
 import { getDb } from '../../../db/client.server';
 import { listMaterials } from '../../../db/queries/vessels';
-import { createMaterial, materialBody } from '../../../server/catalog.server';
+import { materialBody } from '../../../server/api/schemas';
+import { createMaterial } from '../../../server/catalog.server';
 import { endpoint, json, readJson, requirePermission } from '../../../server/http';
 import { readPage } from '../../../server/pagination';
 

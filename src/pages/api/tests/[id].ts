@@ -1,8 +1,8 @@
-import { z } from 'zod';
 import { getDb } from '../../../db/client.server';
 import { listLogs } from '../../../db/queries/logs';
 import { findReduction } from '../../../db/queries/reductions';
 import { findTestWithVessel } from '../../../db/queries/tests';
+import { testPatchBody } from '../../../server/api/schemas';
 import { errors } from '../../../server/errors';
 import { endpoint, idParam, json, readJson, requirePermission } from '../../../server/http';
 import { renameTest } from '../../../server/plans.server';
@@ -36,13 +36,11 @@ export const GET = endpoint(async (ctx) => {
   });
 });
 
-const patchBody = z.object({ name: z.string().trim().min(1).max(200) });
-
 /** PATCH /api/tests/{id} {name} — engineer; 409 once released. */
 export const PATCH = endpoint(async (ctx) => {
   const user = requirePermission(ctx, 'plan');
   const id = idParam(ctx.params.id, 'test');
-  const body = await readJson(ctx.request, patchBody);
+  const body = await readJson(ctx.request, testPatchBody);
   await renameTest(user, id, body.name);
   return json({ id, name: body.name });
 });

@@ -1,7 +1,7 @@
-import { z } from 'zod';
 import { getDb } from '../../../db/client.server';
 import { findVessel } from '../../../db/queries/vessels';
 import { editVessel } from '../../../server/catalog.server';
+import { vesselPatchBody } from '../../../server/api/schemas';
 import { errors } from '../../../server/errors';
 import { endpoint, idParam, json, readJson, requirePermission } from '../../../server/http';
 
@@ -16,7 +16,7 @@ export const GET = endpoint(async (ctx) => {
 export const PATCH = endpoint(async (ctx) => {
   const user = requirePermission(ctx, 'plan');
   const id = idParam(ctx.params.id, 'vessel');
-  const patch = await readJson(ctx.request, z.record(z.string(), z.unknown()));
+  const patch = await readJson(ctx.request, vesselPatchBody);
   await editVessel(user, id, patch);
   return json(await findVessel(getDb(), id));
 });

@@ -1,6 +1,7 @@
 import { getDb } from '../../../db/client.server';
 import { listVessels } from '../../../db/queries/vessels';
-import { createVessel, vesselBody } from '../../../server/catalog.server';
+import { vesselBody } from '../../../server/api/schemas';
+import { createVessel } from '../../../server/catalog.server';
 import { endpoint, json, readJson, requirePermission } from '../../../server/http';
 import { readPage } from '../../../server/pagination';
 

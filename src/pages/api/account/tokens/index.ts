@@ -1,6 +1,7 @@
 import { getDb } from '../../../../db/client.server';
 import { listApiTokens } from '../../../../db/queries/users';
-import { createApiToken, tokenBody } from '../../../../server/accounts.server';
+import { createApiToken } from '../../../../server/accounts.server';
+import { tokenBody } from '../../../../server/api/schemas';
 import { endpoint, json, readJson, requireSessionUser, requireUser } from '../../../../server/http';
 
 /** GET /api/account/tokens — the caller's own API tokens (never the tokens themselves). */

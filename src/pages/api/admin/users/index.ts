@@ -1,6 +1,7 @@
 import { getDb } from '../../../../db/client.server';
 import { listUsers } from '../../../../db/queries/users';
-import { inviteBody, inviteUser } from '../../../../server/accounts.server';
+import { inviteUser } from '../../../../server/accounts.server';
+import { inviteBody } from '../../../../server/api/schemas';
 import { endpoint, json, readJson, requirePermission } from '../../../../server/http';
 
 /** GET /api/admin/users — every account (admin). */

@@ -1,5 +1,4 @@
-import { z } from 'zod';
-import { dispositionOutcomes } from '../../../../lib/domain';
+import { dispositionBody } from '../../../../server/api/schemas';
 import { endpoint, idParam, json, readJson, requirePermission } from '../../../../server/http';
 import { loadTestRecord, recordView } from '../../../../server/record.server';
 import { dispositionGauge } from '../../../../server/review.server';
@@ -11,15 +10,9 @@ export const GET = endpoint(async (ctx) => {
   return json({ latest: recordView(r).dispositions, history: r.dispositionHistory });
 });
 
-const body = z.object({
-  gaugeId: z.string().trim().min(1).max(64),
-  outcome: z.enum(dispositionOutcomes),
-  reason: z.string().trim().min(3, 'is required: say why (at least a few words)').max(4000),
-});
-
 /** POST /api/tests/{id}/dispositions {gaugeId, outcome, reason} — engineer. */
 export const POST = endpoint(async (ctx) => {
   const user = requirePermission(ctx, 'disposition');
-  const d = await readJson(ctx.request, body);
+  const d = await readJson(ctx.request, dispositionBody);
   return json(await dispositionGauge(user, idParam(ctx.params.id, 'test'), d), 201);
 });

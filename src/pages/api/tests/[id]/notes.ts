@@ -1,7 +1,6 @@
-import { z } from 'zod';
 import { getDb } from '../../../../db/client.server';
 import { listNotes } from '../../../../db/queries/tests';
-import { noteKinds } from '../../../../lib/domain';
+import { noteBody } from '../../../../server/api/schemas';
 import { endpoint, idParam, json, readJson, requirePermission } from '../../../../server/http';
 import { loadTest } from '../../../../server/plans.server';
 import { addTestNote } from '../../../../server/reductions.server';
@@ -11,11 +10,6 @@ export const GET = endpoint(async (ctx) => {
   const id = idParam(ctx.params.id, 'test');
   await loadTest(id);
   return json({ items: await listNotes(getDb(), id) });
-});
-
-const noteBody = z.object({
-  kind: z.enum(noteKinds).default('general'),
-  body: z.string().trim().min(1, 'write what happened').max(4000),
 });
 
 /** POST /api/tests/{id}/notes — technician+: pressure held, leak seen, gauge re-zeroed… */

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import { planBody } from '../../../../server/api/schemas';
 import { endpoint, idParam, json, readJson, requirePermission } from '../../../../server/http';
 import { loadTest, replacePlan } from '../../../../server/plans.server';
 
@@ -13,7 +13,7 @@ export const GET = endpoint(async (ctx) => {
 export const PUT = endpoint(async (ctx) => {
   const user = requirePermission(ctx, 'plan');
   const id = idParam(ctx.params.id, 'test');
-  const plan = await readJson(ctx.request, z.unknown());
+  const plan = await readJson(ctx.request, planBody);
   await replacePlan(user, id, plan);
   return json({ id, saved: true });
 });

@@ -1,6 +1,6 @@
 import { endpoint, idParam, json, readJson, requireSessionUser } from '../../../../server/http';
 import { releaseTest } from '../../../../server/review.server';
-import { signatureBody } from '../../../../server/signature-body';
+import { signatureBody } from '../../../../server/api/schemas';
 
 /**
  * POST /api/tests/{id}/release {reductionId, password, statement?} — QA releases a reviewed test

@@ -1,6 +1,6 @@
 import { endpoint, idParam, json, readJson, requireSessionUser } from '../../../../server/http';
 import { signReview } from '../../../../server/review.server';
-import { signatureBody } from '../../../../server/signature-body';
+import { signatureBody } from '../../../../server/api/schemas';
 
 /**
  * POST /api/tests/{id}/review {reductionId, password, statement?} — the engineer signs the

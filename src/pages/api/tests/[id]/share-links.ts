@@ -2,7 +2,8 @@ import { getDb } from '../../../../db/client.server';
 import { listShareLinks } from '../../../../db/queries/review';
 import { endpoint, idParam, json, readJson, requirePermission } from '../../../../server/http';
 import { loadTest } from '../../../../server/plans.server';
-import { createShareLink, shareLinkBody } from '../../../../server/share.server';
+import { shareLinkBody } from '../../../../server/api/schemas';
+import { createShareLink } from '../../../../server/share.server';
 
 /** GET /api/tests/{id}/share-links — qa. */
 export const GET = endpoint(async (ctx) => {

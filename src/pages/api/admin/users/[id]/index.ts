@@ -1,5 +1,6 @@
 import { endpoint, idParam, json, readJson, requirePermission } from '../../../../../server/http';
-import { updateUserByAdmin, userPatchBody } from '../../../../../server/accounts.server';
+import { updateUserByAdmin } from '../../../../../server/accounts.server';
+import { userPatchBody } from '../../../../../server/api/schemas';
 
 /**
  * PATCH /api/admin/users/{id} {role?, disabled?} — admin. Disabling ends every session and token
