@@ -41,6 +41,9 @@ const ok = 'ok' as const;
 //                                                  anon  tech  eng   qa    admin tkRd  tkUp  tkEng tkQa  share
 const MATRIX: [method: string, route: string, body: unknown, ...cells: Cell[]][] = [
   ['GET', '/api/health', undefined, ok, ok, ok, ok, ok, ok, ok, ok, ok, 401],
+  ['GET', '/api/ready', undefined, ok, ok, ok, ok, ok, ok, ok, ok, ok, 401],
+  // metrics: an admin's token, or any loopback caller (these requests all come from loopback)
+  ['GET', '/api/metrics', undefined, ok, ok, ok, ok, ok, ok, ok, ok, ok, 401],
   // vessels, materials, tests, plans — read: all; write: engineer (admin may do all but sign)
   ['GET', '/api/vessels', undefined, 401, ok, ok, ok, ok, ok, 403, ok, ok, 401],
   ['POST', '/api/vessels', {}, 401, 403, ok, 403, ok, 403, 403, 403, 403, 401],
