@@ -21,6 +21,15 @@ export { decimateSeries, SeriesBuilder } from './series';
 export { inspectLogHead } from './inspect';
 export type { LogHeadInfo } from './inspect';
 export { reduceLog, Reducer } from './reduce';
+export { LiveReducer } from './live';
+export type {
+  LiveEvent,
+  LiveHoldEvent,
+  LiveWarningEvent,
+  LiveStatusEvent,
+  LiveWarningCode,
+  LiveSnapshot,
+} from './live';
 export type { ReduceOptions } from './reduce';
 export type { ChunkSource } from './reader';
 export { parseNumberText, parseIsoMillis, splitUnit } from './text';
