@@ -13,6 +13,7 @@ import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { Client, signedIn } from './support/http';
 import { startAppServer, startWorker, stopProcess, waitForHttp } from './support/processes';
 import { smallLog, smallPlan, uploadLog, waitForReduction } from './support/reduced-test';
+import { readMails, waitForMail } from './support/mail';
 import { SseReader } from './support/sse';
 import { freePort } from '../fake-services/ports.mjs';
 
@@ -309,6 +310,33 @@ describe('events', () => {
     await polyfill.until((r) => r.events.length >= 1);
     await polyfill.close();
     expect(polyfill.events).toEqual(all.slice(-1));
+  });
+
+  it('e-mails each warning once per gauge and code to the engineer of the test, with the caution', async () => {
+    const name = 'live warning mail';
+    const testId = await newTest(name);
+    const sessionId = await openSession(technician, testId);
+    await sendAll(technician, testId, sessionId, cut(LOG, 1200));
+    await finish(technician, testId, sessionId);
+    const all = await sessionEvents(engineer, testId, sessionId);
+    // H2 reads 15 % low (smallLog): its trend leaves the ±10 % band from the second loading hold
+    const warnings = all.filter((e) => e.event === 'warning').map((e) => JSON.parse(e.data));
+    const h2 = warnings.filter((w) => w.gaugeId === 'H2' && w.code === 'trend-outside-band');
+    expect(h2.length).toBeGreaterThanOrEqual(1);
+    const mail = await waitForMail(
+      inject('mailDir'),
+      (m) => m.subject.includes(name) && m.subject.includes('H2') && m.subject.includes('trend-outside-band'),
+    );
+    expect(mail.to).toContain('engineer@example.com');
+    expect(mail.text).toContain(`/tests/${testId}/logs`);
+    expect(mail.text).toMatch(/test director decides whether to hold or depressurise/);
+    expect(mail.text).toMatch(/MPa/);
+    await new Promise((r) => setTimeout(r, 1500)); // let any second message arrive, were there one
+    const mails = (await readMails(inject('mailDir'))).filter((m) => m.subject.includes(name));
+    const kinds = mails.map((m) => m.subject.replace(/^.*gauge /, ''));
+    expect(new Set(kinds).size).toBe(kinds.length); // never twice for one gauge and code
+    const distinct = new Set(warnings.map((w) => `${w.gaugeId} (${w.code})`));
+    expect(kinds.sort()).toEqual([...distinct].sort());
   });
 
   it('serves the share link, and 410 once it is revoked', async () => {

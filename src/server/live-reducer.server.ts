@@ -1,10 +1,10 @@
 // The server's one view of the engine's live reducer (DESIGN 8): bytes in, events out. Events are
 // a pure function of the bytes, so any app server that replays the same chunks derives the same
 // events in the same order; the live service numbers them and stores them once.
-import { LogReader } from '../lib/reduction';
+import { LiveReducer, type LiveEvent } from '../lib/reduction/live';
 import type { Plan } from '../lib/reduction/plan';
 
-export type LiveEventType = 'hold' | 'warning' | 'status';
+export type LiveEventType = LiveEvent['type'];
 
 export interface LiveEngineEvent {
   type: LiveEventType;
@@ -14,44 +14,39 @@ export interface LiveEngineEvent {
 export interface LiveEngine {
   /** The next bytes of the log (a chunk may end mid-line); the events they complete. */
   push(chunk: Uint8Array): LiveEngineEvent[];
-  /** The end of the log: events its last line completes. */
+  /** The end of the log: the events its end completes (those `push` did not report already). */
   finish(): LiveEngineEvent[];
   /** Data rows read so far. */
   readonly rows: number;
 }
 
-/**
- * Stand-in until the engine's LiveReducer is merged: the engine's own reader, reporting rows and
- * the newest pressure after every chunk as a `status` event (no holds or warnings yet).
- */
-class ReaderStatusEngine implements LiveEngine {
-  private readonly reader: LogReader;
-  private count = 0;
-  private pressure: number | null = null;
+const plain = (e: LiveEvent): LiveEngineEvent => ({ type: e.type, data: { ...e.data } });
+
+class EngineLive implements LiveEngine {
+  private readonly reducer: LiveReducer;
+  private reported = 0;
 
   constructor(plan: Plan) {
-    this.reader = new LogReader(plan, (_t, p) => {
-      this.count++;
-      this.pressure = p;
-    });
-    this.reader.beginSegment();
+    // the live view needs no time history: keep the reducer's series small
+    this.reducer = new LiveReducer(plan, { seriesBuckets: 16 });
   }
 
   get rows(): number {
-    return this.count;
+    return this.reducer.snapshot().rows;
   }
 
   push(chunk: Uint8Array): LiveEngineEvent[] {
-    this.reader.push(chunk);
-    return [{ type: 'status', data: { rows: this.count, pressure: this.pressure, verdict: 'incomplete' } }];
+    const events = this.reducer.push(chunk).map(plain);
+    this.reported += events.length;
+    return events;
   }
 
   finish(): LiveEngineEvent[] {
-    this.reader.endSegment();
-    return [{ type: 'status', data: { rows: this.count, pressure: this.pressure, verdict: 'incomplete' } }];
+    // finish() answers every event of the session; the ones past those pushed are new
+    return this.reducer.finish().events.slice(this.reported).map(plain);
   }
 }
 
 export function createLiveEngine(plan: Plan): LiveEngine {
-  return new ReaderStatusEngine(plan);
+  return new EngineLive(plan);
 }
