@@ -50,7 +50,7 @@ async function openSession(c: Client, testId: number): Promise<number> {
 const putChunk = (c: Client, testId: number, sessionId: number, n: number, body: Buffer | string) =>
   c.json(`/api/tests/${testId}/live/${sessionId}/chunks/${n}`, {
     method: 'PUT',
-    body,
+    body: typeof body === 'string' ? body : new Uint8Array(body),
     headers: { 'content-type': 'text/csv' },
   });
 
@@ -277,7 +277,14 @@ describe('events', () => {
       const sessionId = await openSession(technician, testId);
       const stream = await events(watcher, testId);
       const chunks = cut(LOG, 2500);
-      await sendAll(technician, testId, sessionId, chunks);
+      // a client retrying through the balancer: the same chunk to both servers at once is stored once
+      const onOther = await signedIn('technician@example.com', undefined, other.url);
+      const race = await Promise.all([
+        putChunk(technician, testId, sessionId, 1, chunks[0]!),
+        putChunk(onOther, testId, sessionId, 1, chunks[0]!),
+      ]);
+      expect(race.map((r) => r.status).sort()).toEqual([200, 201]);
+      await sendAll(technician, testId, sessionId, chunks, 2);
       const done = await finish(technician, testId, sessionId);
       await stream.until((r) => r.events.some((e) => e.event === 'finished'));
       await stream.close();
@@ -285,6 +292,33 @@ describe('events', () => {
       expect(ids).toEqual(stream.events.map((_, i) => `${sessionId}.${i + 1}`)); // every ordinal once, in order
       expect(stream.events.some((e) => e.event === 'status')).toBe(true);
       expect(JSON.parse(stream.events.at(-1)!.data)).toMatchObject({ reductionId: done.body.reductionId });
+    } finally {
+      await other.stop();
+    }
+  });
+
+  it('lets one of two servers win a race for a chunk number with other bytes', async () => {
+    const testId = await newTest('live chunk race');
+    const other = await startAppServer(inject('env'));
+    try {
+      const onOther = await signedIn('technician@example.com', undefined, other.url);
+      const sessionId = await openSession(technician, testId);
+      const mine = LOG.slice(0, 3000);
+      const theirs = LOG.slice(0, 3000).replace(/\n0\.500,/, '\n0.501,');
+      expect(theirs).not.toBe(mine);
+      const race = await Promise.all([
+        putChunk(technician, testId, sessionId, 1, mine),
+        putChunk(onOther, testId, sessionId, 1, theirs),
+      ]);
+      expect(race.map((r) => r.status).sort()).toEqual([201, 409]);
+      const loser = race.find((r) => r.status === 409)!;
+      expect(loser.body.error).toMatchObject({ code: 'chunk-conflict', details: { expected: 2 } });
+      // whichever won, both servers now agree on chunk 1 and go on from chunk 2
+      const winner = race[0].status === 201 ? mine : theirs;
+      expect((await putChunk(onOther, testId, sessionId, 1, winner)).status).toBe(200);
+      expect((await putChunk(technician, testId, sessionId, 1, winner)).status).toBe(200);
+      expect((await putChunk(onOther, testId, sessionId, 2, LOG.slice(3000, 6000))).status).toBe(201);
+      expect((await putChunk(technician, testId, sessionId, 3, LOG.slice(6000, 9000))).status).toBe(201);
     } finally {
       await other.stop();
     }

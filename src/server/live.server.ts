@@ -163,7 +163,6 @@ function refuseOther(session: LiveSession, n: number, sha: string, stored: { sha
 /** PUT …/live/{sessionId}/chunks/{n}: 201 stored, 200 the same bytes again; 409 other bytes or a gap. */
 export async function receiveChunk(
   request: Request,
-  user: RequestUser,
   testId: number,
   sessionId: number,
   n: number,

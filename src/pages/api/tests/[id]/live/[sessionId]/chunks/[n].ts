@@ -6,10 +6,10 @@ import { receiveChunk } from '../../../../../../../server/live.server';
  * 201 {n, bytes, rows} stored; 200 the same bytes again; 409 other bytes or a gap (details.expected).
  */
 export const PUT = endpoint(async (ctx) => {
-  const user = requirePermission(ctx, 'upload', { tokenWrite: 'upload' });
+  requirePermission(ctx, 'upload', { tokenWrite: 'upload' });
   const testId = idParam(ctx.params.id, 'test');
   const sessionId = idParam(ctx.params.sessionId, 'live session');
   const n = idParam(ctx.params.n, 'chunk');
-  const { status, ...answer } = await receiveChunk(ctx.request, user, testId, sessionId, n);
+  const { status, ...answer } = await receiveChunk(ctx.request, testId, sessionId, n);
   return json(answer, status);
 });
