@@ -202,6 +202,11 @@ export class RowAccumulator {
     this.series.add(t, this.seriesVals);
   }
 
+  /** The pressure of the last row (plan unit), null before the first. */
+  get lastPressure(): number | null {
+    return this.rows > 0 ? this.seriesVals[0]! : null;
+  }
+
   /** The end of the rows: fold the last, partial block. */
   finish(): void {
     if (this.blockRows > 0) this.foldBlock();

@@ -171,7 +171,7 @@ export interface FitContext {
 }
 
 /** Creep during the hold at test pressure: late − early strain, minus the slope × their pressure difference. */
-function creepDuring(h: ClassifiedHold | undefined, s: number, slope: number | null): number | null {
+export function creepDuring(h: ClassifiedHold | undefined, s: number, slope: number | null): number | null {
   if (!h?.early || !h.late) return null;
   const a = meanOf(h.early.slotSum[s], h.early.slotCount[s]);
   const b = meanOf(h.late.slotSum[s], h.late.slotCount[s]);

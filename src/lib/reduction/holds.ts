@@ -106,6 +106,11 @@ export class HoldDetector {
     }
   }
 
+  /** The run in progress (not yet a hold): its mean pressure, samples and duration; null before the first sample. */
+  get current(): { pressure: number; samples: number; duration: number } | null {
+    return this.runN > 0 ? { pressure: this.runMean, samples: this.runN, duration: this.lastInT - this.runT0 } : null;
+  }
+
   /** The holds completed so far, in time order (the run in progress is not among them). */
   get completed(): readonly RawHold[] {
     return this.out;

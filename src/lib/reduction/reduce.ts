@@ -95,6 +95,26 @@ export class Reducer {
       );
   }
 
+  /**
+   * What the live reducer reads between chunks (live.ts): the accumulator and the plan's grids and
+   * settings. Read only: the reduction itself never depends on who looked.
+   */
+  get liveView(): {
+    acc: RowAccumulator;
+    setups: readonly GridSetup[];
+    predicted: ReturnType<typeof predictForPlan>;
+    bandAbs: number;
+    zeroBand: number;
+  } {
+    return {
+      acc: this.acc,
+      setups: this.setups,
+      predicted: this.predicted,
+      bandAbs: this.bandAbs,
+      zeroBand: this.zeroBand,
+    };
+  }
+
   /** Start the next segment of the log (a file with its own preamble and header). */
   beginSegment(): void {
     this.reader.beginSegment();
