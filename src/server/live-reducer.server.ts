@@ -22,9 +22,13 @@ export interface LiveEngine {
 
 const plain = (e: LiveEvent): LiveEngineEvent => ({ type: e.type, data: { ...e.data } });
 
+/**
+ * Hold and warning events are a pure function of the bytes; status events also depend on where
+ * the chunks end. Every server replays a session's stored chunks exactly as they arrived, so the
+ * whole list, status events included, is the same on every server and can be numbered.
+ */
 class EngineLive implements LiveEngine {
   private readonly reducer: LiveReducer;
-  private reported = 0;
 
   constructor(plan: Plan) {
     // the live view needs no time history: keep the reducer's series small
@@ -36,14 +40,11 @@ class EngineLive implements LiveEngine {
   }
 
   push(chunk: Uint8Array): LiveEngineEvent[] {
-    const events = this.reducer.push(chunk).map(plain);
-    this.reported += events.length;
-    return events;
+    return this.reducer.push(chunk).map(plain);
   }
 
   finish(): LiveEngineEvent[] {
-    // finish() answers every event of the session; the ones past those pushed are new
-    return this.reducer.finish().events.slice(this.reported).map(plain);
+    return this.reducer.finish().caused.map(plain);
   }
 }
 
