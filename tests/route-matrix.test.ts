@@ -42,7 +42,7 @@ const ok = 'ok' as const;
 const MATRIX: [method: string, route: string, body: unknown, ...cells: Cell[]][] = [
   ['GET', '/api/health', undefined, ok, ok, ok, ok, ok, ok, ok, ok, ok, 401],
   ['GET', '/api/ready', undefined, ok, ok, ok, ok, ok, ok, ok, ok, ok, 401],
-  // metrics: an admin's token, or any loopback caller (these requests all come from loopback)
+  // metrics: this machine (the matrix asks from loopback) or an admin token; proxied callers in read-path.test.ts
   ['GET', '/api/metrics', undefined, ok, ok, ok, ok, ok, ok, ok, ok, ok, 401],
   // vessels, materials, tests, plans — read: all; write: engineer (admin may do all but sign)
   ['GET', '/api/vessels', undefined, 401, ok, ok, ok, ok, ok, 403, ok, ok, 401],

@@ -76,4 +76,14 @@ export class HttpClient {
     });
     return [...this.cookies.keys()].some((k) => k.includes('session-token'));
   }
+
+  /** Sign out through Auth.js (ends every session of the account: the session epoch moves on). */
+  async signOut(): Promise<void> {
+    const csrf = await this.json<{ csrfToken: string }>('/api/auth/csrf');
+    await this.fetch('/api/auth/signout', {
+      method: 'POST',
+      body: new URLSearchParams({ csrfToken: csrf.body.csrfToken, callbackUrl: this.baseUrl + '/signin' }),
+      headers: { 'content-type': 'application/x-www-form-urlencoded' },
+    });
+  }
 }
