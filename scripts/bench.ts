@@ -4,7 +4,9 @@
 // 250 k-row one, then runs, each in its own child process: the CLI (node --import tsx
 // scripts/reduce.ts) and papaparse with header + dynamicTyping streaming the file and counting
 // rows. Wall time is measured around the child; peak RSS from /usr/bin/time -v when available,
-// else from the child's own process.resourceUsage().maxRSS.
+// else from the child's own process.resourceUsage().maxRSS. Then the live case: the 1 M-row log fed
+// in 64 KiB chunks to the batch Reducer and to a LiveReducer (scripts/bench-live.ts, one process
+// each), and the ratio of their retained heap growth.
 import { spawnSync } from 'node:child_process';
 import { existsSync, statSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
@@ -142,6 +144,34 @@ async function main() {
     `  memory flat, 250 k → 1 M rows (≤ 25 MB growth) . ${growth === null ? 'n/a' : `${growth >= 0 ? '+' : ''}${growth.toFixed(0)} MB`}  ${ok(growth !== null && growth <= 25)}`,
   );
   lines.push(`  all runs succeeded ............................ ${ok(rows.every((r) => r.cli.ok && r.papa.ok))}`);
+  // live reducer against the batch Reducer, the same log and chunks, in this run
+  const side = (mode: 'batch' | 'live') => {
+    const r = run([process.execPath, '--expose-gc', '--import', 'tsx', 'scripts/bench-live.ts', mode, planPath, big]);
+    if (!r.ok) return { r, j: null };
+    return {
+      r,
+      j: JSON.parse(r.out) as {
+        growthBytes: number;
+        wallS: number;
+        rows: number;
+        events: number | null;
+        chunks: number;
+      },
+    };
+  };
+  const lb = side('batch');
+  const ll = side('live');
+  const mb = (x: number) => x / 2 ** 20;
+  lines.push('');
+  if (lb.j && ll.j) {
+    // judged against max(1 MB, batch): a few hundred kB either way is GC noise, not growth
+    const rawRatio = ll.j.growthBytes / Math.max(1, lb.j.growthBytes);
+    const liveRatio = mb(ll.j.growthBytes) / Math.max(1, mb(lb.j.growthBytes));
+    lines.push(
+      `live reducer, 1 M rows in ${ll.j.chunks} chunks of 64 KiB, ${ll.j.events} events: retained heap growth batch ${f(mb(lb.j.growthBytes))} MB, live ${f(mb(ll.j.growthBytes))} MB, ratio live/batch ${f(rawRatio)}; wall batch ${f(lb.j.wallS)} s, live ${f(ll.j.wallS)} s (both with a full GC every 64 chunks)`,
+    );
+    lines.push(`  live memory flat (growth ≤ 1.5 × max(1 MB, batch)) ${f(liveRatio)}  ${ok(liveRatio <= 1.5)}`);
+  } else lines.push(`live reducer case failed: ${lb.j ? ll.r.out : lb.r.out}`);
   process.stdout.write(lines.join('\n') + '\n');
 }
 

@@ -5,7 +5,7 @@
 import type { RowAccumulator } from './accumulator';
 import { BLOCK_STRIDE, N_BINS } from './accumulator';
 import type { CycleSpan } from './cycles';
-import type { ClassifiedHold } from './holds';
+import type { ClassifiedHold, RawHold } from './holds';
 import { fitFromSums, fitLine, interpolateSorted, serialCorrelationFromBlockSums, type LineFit } from './stats';
 import type { CycleResult, GaugeResult } from './types';
 
@@ -76,7 +76,7 @@ export function zeroReadings(
 }
 
 /** Mean strain of slot s over a hold, zeroed; null when the slot had no reading there. */
-export function holdStrain(h: ClassifiedHold | undefined, s: number, zero: number): number | null {
+export function holdStrain(h: RawHold | undefined, s: number, zero: number): number | null {
   if (!h) return null;
   const m = meanOf(h.slotSum[s], h.slotCount[s]);
   return m === null ? null : m - zero;
@@ -171,7 +171,7 @@ export interface FitContext {
 }
 
 /** Creep during the hold at test pressure: late − early strain, minus the slope × their pressure difference. */
-export function creepDuring(h: ClassifiedHold | undefined, s: number, slope: number | null): number | null {
+export function creepDuring(h: RawHold | undefined, s: number, slope: number | null): number | null {
   if (!h?.early || !h.late) return null;
   const a = meanOf(h.early.slotSum[s], h.early.slotCount[s]);
   const b = meanOf(h.late.slotSum[s], h.late.slotCount[s]);

@@ -4,10 +4,10 @@
 // only reads the hold detector's completed holds, so its events are a pure function of the bytes.
 // Rules and their reasons: README.md, "Live reducer".
 import type { RowAccumulator } from './accumulator';
-import type { CycleSpan } from './cycles';
+import { splitCycles, type CycleSpan } from './cycles';
 import { creepDuring, holdStrain, meanOf } from './fits';
 import { flagGauge, isNearZeroPrediction } from './flags';
-import { classifyHolds, type ClassifiedHold, type RawHold } from './holds';
+import { mergeHolds, type RawHold } from './holds';
 import type { GridSetup } from './installation';
 import type { Plan } from './plan';
 import { Reducer, type ReduceOptions } from './reduce';
@@ -110,9 +110,9 @@ export class LiveReducer {
   private readonly stream: LiveEvent[] = [];
   private readonly holdEvents: LiveHoldEvent[] = [];
   private readonly warningEvents: LiveWarningEvent[] = [];
-  /** raw holds of the detector already looked at, and merged holds reported */
+  /** raw holds of the detector already looked at, and those merged as mergeHolds does (a left fold) */
   private rawSeen = 0;
-  private holdsReported = 0;
+  private readonly merged: RawHold[] = [];
   private lastStatusRows = -1;
   private finished = false;
 
@@ -196,18 +196,26 @@ export class LiveReducer {
   /** Every raw hold the detector completed since the last look, one at a time, in order. */
   private collect() {
     const raw = this.acc.detector.completed;
-    while (this.rawSeen < raw.length) {
-      this.rawSeen++;
-      // classify the holds up to this one only, so the outcome does not depend on how many more
-      // holds the same chunk completed
-      this.onHold(raw.slice(0, this.rawSeen));
-    }
+    while (this.rawSeen < raw.length) this.onRawHold(raw[this.rawSeen++]!);
   }
 
-  private onHold(raw: readonly RawHold[]) {
-    const { holds, cycles } = classifyHolds(raw, this.bandAbs, this.zeroBand);
-    if (holds.length === this.holdsReported) return; // the newest merged into the previous hold
-    this.holdsReported = holds.length;
+  /**
+   * One more completed hold, judged on the holds up to it alone (so the outcome does not depend on
+   * how many more holds the same chunk completed): merged and split into cycles as the batch path's
+   * classifyHolds does.
+   */
+  private onRawHold(raw: RawHold) {
+    const holds = this.merged;
+    const prev = holds[holds.length - 1];
+    if (prev) {
+      const m = mergeHolds([prev, raw], this.bandAbs);
+      if (m.length === 1) {
+        holds[holds.length - 1] = m[0]!; // continues the previous hold: no new event
+        return;
+      }
+    }
+    holds.push(raw);
+    const { cycles, branch: branches } = splitCycles(holds, this.zeroBand);
     const i = holds.length - 1;
     const h = holds[i]!;
     const atZero = Math.abs(h.pressure) <= this.zeroBand;
@@ -217,7 +225,7 @@ export class LiveReducer {
       ? endsCycle
         ? 'unloading'
         : 'loading'
-      : h.branch === 'unloading'
+      : branches[i] === 'unloading'
         ? 'unloading'
         : 'loading';
     const beforePressure = atZero && !endsCycle && cycles.length === 0;
@@ -256,7 +264,7 @@ export class LiveReducer {
   }
 
   /** The zero of slot s for a cycle: its starting zero hold, else (first cycle) the first samples at zero pressure, else 0. */
-  private zeroOf(holds: readonly ClassifiedHold[], c: CycleSpan, s: number): number {
+  private zeroOf(holds: readonly RawHold[], c: CycleSpan, s: number): number {
     const start = c.start !== null ? holds[c.start] : undefined;
     const fromHold = start ? meanOf(start.slotSum[s], start.slotCount[s]) : null;
     if (fromHold !== null) return fromHold;
@@ -267,13 +275,13 @@ export class LiveReducer {
   }
 
   /** Before any hold at pressure: zero holds are zeroed on the first one. */
-  private leadingZero(holds: readonly ClassifiedHold[], s: number): number {
+  private leadingZero(holds: readonly RawHold[], s: number): number {
     const first = holds[0];
     return (first && meanOf(first.slotSum[s], first.slotCount[s])) ?? 0;
   }
 
   /** The loading line of the current cycle so far: its zero hold and loading holds (as the batch path's points). */
-  private loadingFit(holds: readonly ClassifiedHold[], c: CycleSpan, s: number, zero: number) {
+  private loadingFit(holds: readonly RawHold[], c: CycleSpan, s: number, zero: number) {
     const head = this.setups[s]!.headPressure;
     const ps: number[] = [];
     const es: number[] = [];
@@ -288,7 +296,7 @@ export class LiveReducer {
   }
 
   /** zero-drift: before any pressure, a channel moved from its first zero reading by more than the zero-shift limit. */
-  private checkZeroDrift(h: ClassifiedHold, s: number, raise: (c: LiveWarningCode, m: string) => void) {
+  private checkZeroDrift(h: RawHold, s: number, raise: (c: LiveWarningCode, m: string) => void) {
     const state = this.grids[s]!;
     const early = h.early ? meanOf(h.early.slotSum[s], h.early.slotCount[s]) : null;
     const late = h.late ? meanOf(h.late.slotSum[s], h.late.slotCount[s]) : null;
@@ -308,7 +316,7 @@ export class LiveReducer {
   }
 
   /** hold-creep: the batch rule (late − early third, less slope × pressure change) at every hold at pressure. */
-  private checkCreep(h: ClassifiedHold, s: number, slope: number, raise: (c: LiveWarningCode, m: string) => void) {
+  private checkCreep(h: RawHold, s: number, slope: number, raise: (c: LiveWarningCode, m: string) => void) {
     const creep = creepDuring(h, s, slope);
     if (creep === null) return;
     const tol = this.plan.tolerances;
@@ -380,7 +388,7 @@ export class LiveReducer {
     if (projected < limit) return;
     raise(
       'near-yield',
-      `${this.name(s)} reads ${fmt(Math.abs(ratio))} × its prediction after the ${ordinal(loadingHolds)} loading hold: at the test pressure of ${fmt(this.plan.testPressure, 4)} ${this.pUnit} that puts the largest stress in the wall at about ${fmt(projected * 100)} % of yield (limit ${fmt(limit * 100)} %); hold the pressure where it is, keep everyone clear, and have the responsible engineer check the wall thickness and material before going on.`,
+      `${this.name(s)} reads ${fmt(Math.abs(ratio))} × its prediction after the ${ordinal(loadingHolds)} loading hold: at the test pressure of ${fmt(this.plan.testPressure, 4)} ${this.pUnit} that puts the largest stress in the wall at about ${fmt(projected * 100)} % of yield (limit ${fmt(limit * 100)} %); hold the pressure where it is, keep everyone clear, and have the responsible engineer check the wall thickness, the material and the test pressure against the governing code before going on.`,
     );
   }
 

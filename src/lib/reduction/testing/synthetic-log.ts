@@ -23,6 +23,10 @@ export interface GaugeBehaviour {
   saturateAt?: number;
   /** strain noise for this gauge, µε standard deviation */
   noise?: number;
+  /** the strain grows at this rate (µε/s) during the first hold at `level` (fraction of test pressure) and keeps what it gained */
+  creep?: { level: number; microstrainPerSecond: number };
+  /** the reading drifts at this rate (µε/s) during the first hold, before any pressure, and keeps what it gained */
+  zeroDrift?: number;
 }
 
 export interface SyntheticFormat {
@@ -100,12 +104,19 @@ export function pressureProfile(opts: SyntheticOptions): {
   at: (t: number) => number;
   duration: number;
   peakEnd: number;
+  /** the holds of a stepped profile, in time order (none for a ramp) */
+  holds: { start: number; end: number; level: number }[];
 } {
   const hold = opts.holdSeconds ?? 60;
   const ramp = opts.rampSeconds ?? 30;
   if (opts.profile === 'ramp') {
     const half = opts.rampSeconds ?? 300;
-    return { at: (t) => (t <= half ? t / half : Math.max(0, 2 - t / half)), duration: 2 * half, peakEnd: half };
+    return {
+      at: (t) => (t <= half ? t / half : Math.max(0, 2 - t / half)),
+      duration: 2 * half,
+      peakEnd: half,
+      holds: [],
+    };
   }
   const levels = opts.levels ?? [0, 0.25, 0.5, 0.75, 1, 0.75, 0.5, 0.25, 0];
   const [firstLevel] = levels;
@@ -128,6 +139,7 @@ export function pressureProfile(opts: SyntheticOptions): {
   return {
     duration: t,
     peakEnd,
+    holds: steps.map((x) => ({ start: x.start, end: x.start + hold, level: x.level })),
     at: (x) => {
       for (const { start, level, next } of latestFirst) {
         if (!(x >= start)) continue;
@@ -236,10 +248,17 @@ export function* syntheticLogChunks(plan: Plan, opts: SyntheticOptions = {}): Ge
         const across = c.across * pTrue * (b.scale ?? 1);
         e = c.kt !== 0 ? indicatedStrain(along, across, c.kt) : along;
         if (b.permanentSet && t > profile.peakEnd) e += b.permanentSet;
+        if (b.creep) {
+          const level = b.creep.level;
+          const h = profile.holds.find((x) => Math.abs(x.level - level) < 1e-9);
+          if (h) e += b.creep.microstrainPerSecond * Math.max(0, Math.min(t, h.end) - h.start);
+        }
         if (b.reversed) e = -e;
         e *= c.gf; // the instrument's gauge factor setting
         if (b.saturateAt !== undefined) e = Math.max(-b.saturateAt, Math.min(b.saturateAt, e));
       }
+      const first = profile.holds[0];
+      if (b.zeroDrift && first) e += b.zeroDrift * Math.max(0, Math.min(t, first.end) - first.start);
       e += (b.offset ?? 0) + gauss() * (b.noise ?? sNoise);
       cells.push(num(e, digits));
     }
