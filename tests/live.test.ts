@@ -318,7 +318,12 @@ describe('events', () => {
       expect((await putChunk(onOther, testId, sessionId, 1, winner)).status).toBe(200);
       expect((await putChunk(technician, testId, sessionId, 1, winner)).status).toBe(200);
       expect((await putChunk(onOther, testId, sessionId, 2, LOG.slice(3000, 6000))).status).toBe(201);
-      expect((await putChunk(technician, testId, sessionId, 3, LOG.slice(6000, 9000))).status).toBe(201);
+      expect((await putChunk(technician, testId, sessionId, 3, LOG.slice(6000))).status).toBe(201);
+      // two finishes at once: one log, and both answers name the same log and reduction
+      const finishes = await Promise.all([finish(technician, testId, sessionId), finish(onOther, testId, sessionId)]);
+      expect(finishes.map((f) => f.status).sort()).toEqual([200, 201]);
+      expect(finishes[0].body).toEqual(finishes[1].body);
+      expect((await engineer.json(`/api/tests/${testId}/logs`)).body.items).toHaveLength(1);
     } finally {
       await other.stop();
     }

@@ -286,9 +286,12 @@ export async function finishLiveSession(user: RequestUser, testId: number, sessi
       // the log is stored and reduced either way; only the live view misses its last events
       logger().warn({ err, sessionId }, 'the live reducer could not finish');
     }
-    await withLockedTest(testId, { forWrite: true }, async (tx) => {
+    const settled = await withLockedTest(testId, { forWrite: true }, async (tx) => {
       const locked = await lockLiveSession(tx, sessionId);
-      if (!locked || locked.status !== 'open') return;
+      // another server finished it meanwhile (the same bytes: the same log): its answer stands
+      if (locked?.status === 'finished' && locked.logId && locked.reductionId)
+        return { status: 200 as const, logId: locked.logId, reductionId: locked.reductionId };
+      if (!locked || locked.status !== 'open') throw new AppError('live-session-closed');
       await updateLiveSession(tx, sessionId, {
         status: 'finished',
         sha256: log.sha256,
@@ -308,8 +311,10 @@ export async function finishLiveSession(user: RequestUser, testId: number, sessi
         sha256: log.sha256,
         chunks: chunks.length,
       });
+      return null;
     });
     reducing.delete(sessionId);
+    if (settled) return settled;
     // the log holds every byte now: the chunk objects are no longer needed
     await Promise.all(chunks.map((c) => deleteObject(c.objectKey).catch(() => undefined)));
     return { status: 201, logId: log.id, reductionId };
