@@ -425,6 +425,8 @@ describe('events', () => {
       const watcher = await signedIn('engineer@example.com', undefined, url);
       const stream = await events(watcher, testId);
       await stream.until((r) => r.comments.includes('heartbeat'), 5000);
+      const metrics = await (await fetch(`${url}/api/metrics`)).text();
+      expect(metrics).toMatch(/^hoopline_live_event_streams 1$/m);
       const asked = Date.now();
       child.kill('SIGTERM');
       await stream.finished;

@@ -28,6 +28,11 @@ export const eventId = (c: LiveCursor) => `${c.sessionId}.${c.ordinal}`;
 const open = new Set<() => void>();
 let hooked = false;
 
+/** How many event streams this process serves now (a metric). */
+export function openLiveStreams(): number {
+  return open.size;
+}
+
 /** The cursor a new stream starts from: the one the client names, else the newest session's start. */
 async function startCursor(testId: number, request: Request): Promise<LiveCursor> {
   const url = new URL(request.url);
