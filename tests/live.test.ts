@@ -13,6 +13,7 @@ import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { Client, signedIn } from './support/http';
 import { startAppServer, startWorker, stopProcess, waitForHttp } from './support/processes';
 import { smallLog, smallPlan, uploadLog, waitForReduction } from './support/reduced-test';
+import { reviewedTest, signBody } from './support/journey';
 import { readMails, waitForMail } from './support/mail';
 import { SseReader } from './support/sse';
 import { freePort } from '../fake-services/ports.mjs';
@@ -194,6 +195,24 @@ describe('chunk rules', () => {
     expect((await finish(technician, testId, sessionId)).status).toBe(409);
     expect((await engineer.json(`/api/tests/${testId}/logs`)).body.items).toHaveLength(0);
     await openSession(technician, testId);
+  });
+});
+
+describe('release', () => {
+  it('refuses to release a test while a live session is open, and a session on a released test', async () => {
+    const crew = { engineer, technician, qa };
+    const { testId, reductionId } = await reviewedTest(crew, 'live release');
+    const sessionId = await openSession(technician, testId);
+    const refused = await qa.json(`/api/tests/${testId}/release`, { method: 'POST', json: signBody(reductionId) });
+    expect(refused.status).toBe(409);
+    expect(refused.body.error).toMatchObject({ code: 'live-session-open', details: { sessionId } });
+    const del = await technician.fetch(`/api/tests/${testId}/live/${sessionId}`, { method: 'DELETE' });
+    expect(del.status).toBe(204);
+    const released = await qa.json(`/api/tests/${testId}/release`, { method: 'POST', json: signBody(reductionId) });
+    expect(released.status).toBe(201);
+    const again = await technician.json(`/api/tests/${testId}/live`, { method: 'POST' });
+    expect(again.status).toBe(409);
+    expect(again.body.error.code).toBe('test-released');
   });
 });
 
