@@ -430,6 +430,21 @@ describe('events', () => {
     expect(gone.status).toBe(410);
   });
 
+  it('ends the server side of a stream when the client goes away', async () => {
+    const testId = await newTest('live disconnect');
+    const openStreams = async () => {
+      const text = await (await fetch(`${inject('baseUrl')}/api/metrics`)).text();
+      return Number(/^hoopline_live_event_streams (\d+)$/m.exec(text)?.[1] ?? NaN);
+    };
+    const before = await openStreams();
+    const streams = await Promise.all([events(engineer, testId), events(technician, testId)]);
+    expect(await openStreams()).toBe(before + 2);
+    await Promise.all(streams.map((s) => s.close()));
+    const deadline = Date.now() + 5000;
+    while ((await openStreams()) !== before && Date.now() < deadline) await new Promise((r) => setTimeout(r, 100));
+    expect(await openStreams()).toBe(before);
+  });
+
   it('sends heartbeats and ends open streams at once on a graceful shutdown', async () => {
     const testId = await newTest('live shutdown');
     const port = await freePort();
