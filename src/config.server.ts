@@ -53,6 +53,16 @@ export const configSchema = z.object({
   WORKER_RETRY_MAX_SECONDS: z.coerce.number().int().min(1).default(300),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   SERIES_CACHE_MB: z.coerce.number().min(1).default(256),
+  /** the largest live chunk (DESIGN 8); the push script sends at most 4 MiB by default */
+  LIVE_CHUNK_MAX_BYTES: z.coerce
+    .number()
+    .int()
+    .positive()
+    .default(8 * 1024 * 1024),
+  /** how often an open event stream looks for new live events in MariaDB */
+  LIVE_POLL_MS: z.coerce.number().int().min(50).default(500),
+  /** the comment line an idle event stream sends so proxies keep it open */
+  LIVE_HEARTBEAT_SECONDS: z.coerce.number().min(1).default(15),
   SHUTDOWN_GRACE_SECONDS: z.coerce.number().min(0).default(25),
 });
 

@@ -67,6 +67,26 @@ const MATRIX: [method: string, route: string, body: unknown, ...cells: Cell[]][]
   ['POST', '/api/tests/:test/reductions', {}, 401, ok, ok, 403, ok, 403, ok, ok, 403, 401],
   ['GET', '/api/reductions/:none', undefined, 401, ok, ok, ok, ok, ok, 403, ok, ok, 401],
   ['GET', '/api/tests/:test/series', undefined, 401, ok, ok, ok, ok, ok, 403, ok, ok, 401],
+  // live test mode — writes like logs (technician+, token scope upload); the event stream like every GET
+  ['POST', '/api/tests/:test/live', {}, 401, ok, ok, 403, ok, 403, ok, ok, 403, 401],
+  [
+    'PUT',
+    '/api/tests/:test/live/:none/chunks/:chunk',
+    'time_s,P [MPa],SG1',
+    401,
+    ok,
+    ok,
+    403,
+    ok,
+    403,
+    ok,
+    ok,
+    403,
+    401,
+  ],
+  ['POST', '/api/tests/:test/live/:none/finish', {}, 401, ok, ok, 403, ok, 403, ok, ok, 403, 401],
+  ['DELETE', '/api/tests/:test/live/:none', undefined, 401, ok, ok, 403, ok, 403, ok, ok, 403, 401],
+  ['GET', '/api/tests/:test/live/events', undefined, 401, ok, ok, ok, ok, ok, 403, ok, ok, 401],
   // test notes — technicians (and so engineers and admins); not a token scope
   ['GET', '/api/tests/:test/notes', undefined, 401, ok, ok, ok, ok, ok, 403, ok, ok, 401],
   ['POST', '/api/tests/:test/notes', {}, 401, ok, ok, 403, ok, 403, 403, 403, 403, 401],
@@ -109,6 +129,8 @@ const MATRIX: [method: string, route: string, body: unknown, ...cells: Cell[]][]
   // the API description — anyone (a share-link token sent as a Bearer token is not a credential)
   ['GET', '/api/openapi.json', undefined, ok, ok, ok, ok, ok, ok, ok, ok, ok, 401],
   ['GET', '/api/docs', undefined, ok, ok, ok, ok, ok, ok, ok, ok, ok, 401],
+  ['GET', '/api/share/:share/live/events', undefined, ok, ok, ok, ok, ok, ok, ok, ok, ok, ok],
+  ['POST', '/api/share/:share/live/events', {}, 405, 405, 405, 405, 405, 405, 405, 405, 405, 405],
 ];
 
 const clients = {} as Record<Who, Client>;
@@ -154,7 +176,8 @@ const fill = (route: string) =>
     .replace(':vessel', String(ids.vessel))
     .replace(':material', String(ids.material))
     .replace(':share', ids.share)
-    .replace(':none', String(ids.none));
+    .replace(':none', String(ids.none))
+    .replace(':chunk', '1');
 
 describe('every API route × every kind of caller', () => {
   it.each(MATRIX)('%s %s', async (method, route, body, ...cells) => {
@@ -166,11 +189,14 @@ describe('every API route × every kind of caller', () => {
       const init: RequestInit & { json?: unknown } = { method };
       if (typeof body === 'string') {
         init.body = body;
-        init.headers = { 'content-type': route.endsWith('/logs') ? 'text/csv' : 'application/json' };
-        if (!route.endsWith('/logs')) init.body = JSON.stringify(body);
+        const csv = route.endsWith('/logs') || route.includes('/chunks/');
+        init.headers = { 'content-type': csv ? 'text/csv' : 'application/json' };
+        if (!csv) init.body = JSON.stringify(body);
       } else if (body !== undefined) init.json = body;
       const res = await c.fetch(fill(route), init);
-      await res.arrayBuffer();
+      // an event stream stays open: its status is the answer
+      if (res.headers.get('content-type')?.startsWith('text/event-stream')) await res.body?.cancel();
+      else await res.arrayBuffer();
       const cell = cells[i]!;
       want[who] = cell;
       got[who] = res.status;

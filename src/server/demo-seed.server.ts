@@ -7,20 +7,20 @@
 // seed script passes DEMO_RESET=true), which puts it back to its demo role and password and
 // enables it. Other rows are created once.
 import { getDb, inTransaction, type Db } from '../db/client.server';
-import { insertLog } from '../db/queries/logs';
 import { queueReduction } from '../db/queries/reductions';
-import { findTestByName, insertNote, insertTest, replaceGauges, updateTest } from '../db/queries/tests';
+import { findTest, findTestByName, insertNote, insertTest, replaceGauges, updateTest } from '../db/queries/tests';
 import { createUser, findUserByEmail, resetUser } from '../db/queries/users';
 import { findMaterialByName, findVesselByTag, insertMaterial, insertVessel } from '../db/queries/vessels';
 import type { Role } from '../lib/roles';
 import { hashPassword } from './auth/passwords.server';
 import { passwordProblem } from './auth/password-policy.server';
-import { createHash } from 'node:crypto';
-import { inspectLogHead, parsePlan, type PlanInput } from '../lib/reduction';
+import { Readable } from 'node:stream';
+import { parsePlan, type PlanInput } from '../lib/reduction';
 import { syntheticLog } from '../lib/reduction/testing/synthetic-log';
 import { audit } from './audit.server';
 import { gaugeRows } from './plans.server';
-import { putObject } from './storage.server';
+import type { RequestUser } from './http';
+import { storeLog } from './logs.server';
 
 export const demoAccounts: { email: string; name: string; role: Role }[] = [
   { email: 'technician@example.com', name: 'Tomas Reyes (demo)', role: 'technician' },
@@ -148,30 +148,25 @@ export async function seedDemoScenario(): Promise<string[]> {
       gauges: { A2: { scale: 0.88 }, H3: { scale: 1.22 } },
       format: { preamble: ['unit,DAQ bay 2', 'operator,demo'] },
     });
-    const sha256 = createHash('sha256').update(csv).digest('hex');
-    const key = `tests/${testId}/logs/demo-${sha256.slice(0, 12)}.csv`;
-    await putObject(key, csv, 'text/csv');
-    const info = inspectLogHead(plan, csv.slice(0, 65536));
-    const lines = csv.trim().split(/\r?\n/);
-    const logId = await insertLog(db, {
-      testId,
-      objectKey: key,
+    // the same path as an upload: the engine's header check, object storage, the log row and its audit row
+    const asTechnician: RequestUser = {
+      id: technician.id,
+      email: technician.email,
+      name: technician.name,
+      role: 'technician',
+      via: 'session',
+      scopes: null,
+    };
+    const test = (await findTest(db, testId))!;
+    const { log } = await storeLog({
+      test,
+      plan,
+      source: Readable.from([Buffer.from(csv)]),
       filename: 'ar102-hydrotest.csv',
-      sha256,
-      sizeBytes: Buffer.byteLength(csv),
-      rows: lines.length - info.headerLine,
-      timeStart: 0,
-      timeEnd: Number(lines.at(-1)?.split(',')[0] ?? 0),
-      columnMap: {
-        delimiter: info.delimiter,
-        decimalComma: info.decimalComma,
-        headerLine: info.headerLine,
-        columns: info.columns,
-        pressureUnit: info.pressureUnit,
-        preview: info.previewRows.slice(0, 10),
-      },
-      uploadedBy: technician.id,
+      user: asTechnician,
+      auditDetails: { demo: true },
     });
+    const logId = log.id;
     await insertNote(db, {
       testId,
       userId: technician.id,
@@ -181,13 +176,6 @@ export async function seedDemoScenario(): Promise<string[]> {
     const reductionId = await queueReduction(db, { testId, plan: demoPlan, logIds: [logId], queuedBy: technician.id });
     await updateTest(db, testId, {});
     await inTransaction(async (tx) => {
-      await audit(tx, {
-        userId: technician.id,
-        actor: technician.email,
-        action: 'log-uploaded',
-        testId,
-        details: { logId, demo: true },
-      });
       await audit(tx, {
         userId: technician.id,
         actor: technician.email,

@@ -50,6 +50,24 @@ export const errorCatalogue = {
     status: 409,
     message: 'The database refused the change because the record is locked; nothing was changed.',
   },
+  'live-session-open': {
+    status: 409,
+    message: 'This test has an open live session already: carry on with it, finish it or abandon it first.',
+  },
+  'live-session-closed': {
+    status: 409,
+    message: 'This live session is finished or abandoned; it takes no more chunks. Open a new one.',
+  },
+  'live-session-empty': { status: 409, message: 'This live session has no chunks yet: there is nothing to finish.' },
+  'chunk-conflict': {
+    status: 409,
+    message:
+      'A chunk with this number holds other bytes; nothing was stored. Send the chunk named in details.expected.',
+  },
+  'chunk-gap': {
+    status: 409,
+    message: 'This chunk comes after a gap; nothing was stored. Send the chunk named in details.expected first.',
+  },
   'method-not-allowed': { status: 405, message: 'This address is read-only.' },
   'test-released': { status: 409, message: 'This test is released and locked; nothing about it can change.' },
   'no-result': { status: 409, message: 'There is no finished reduction yet. Upload a log and run a reduction first.' },
@@ -148,6 +166,12 @@ export const errors = {
     new AppError('too-large', `The file is larger than the limit of ${Math.round(limitBytes / 1024 / 1024)} MB.`, {
       limitBytes,
     }),
+  chunkTooLarge: (limitBytes: number) =>
+    new AppError(
+      'too-large',
+      `The chunk is larger than the limit of ${Math.round(limitBytes / 1024 / 1024)} MB: send smaller chunks (the push script's --max-chunk).`,
+      { limitBytes },
+    ),
   invalid: (message: string, details?: unknown) => new AppError('invalid-request', message, details),
   unavailable: (message?: string) => new AppError('unavailable', message),
   throttled: (waitMs: number) =>

@@ -95,11 +95,15 @@ export function requirePermission(
   return user;
 }
 
-/** The body as text, refusing more than `limit` bytes whatever Content-Length says (413). */
-export async function readBodyText(request: Request, limit = JSON_BODY_LIMIT): Promise<string> {
+/** The body's bytes, refusing more than `limit` whatever Content-Length says (413 with `tooLarge`). */
+export async function readBodyBytes(
+  request: Request,
+  limit = JSON_BODY_LIMIT,
+  tooLarge: (limitBytes: number) => AppError = errors.tooLargeBody,
+): Promise<Buffer> {
   const declared = Number(request.headers.get('content-length') ?? NaN);
-  if (Number.isFinite(declared) && declared > limit) throw errors.tooLargeBody(limit);
-  if (!request.body) return '';
+  if (Number.isFinite(declared) && declared > limit) throw tooLarge(limit);
+  if (!request.body) return Buffer.alloc(0);
   const reader = request.body.getReader();
   const parts: Uint8Array[] = [];
   let size = 0;
@@ -109,11 +113,16 @@ export async function readBodyText(request: Request, limit = JSON_BODY_LIMIT): P
     size += value.byteLength;
     if (size > limit) {
       await reader.cancel().catch(() => undefined);
-      throw errors.tooLargeBody(limit);
+      throw tooLarge(limit);
     }
     parts.push(value);
   }
-  return Buffer.concat(parts).toString('utf8');
+  return Buffer.concat(parts);
+}
+
+/** The body as text, refusing more than `limit` bytes whatever Content-Length says (413). */
+export async function readBodyText(request: Request, limit = JSON_BODY_LIMIT): Promise<string> {
+  return (await readBodyBytes(request, limit)).toString('utf8');
 }
 
 /** Parse a JSON body (at most 1 MB) with a zod schema; 400 naming the fields when it does not fit. */

@@ -3,6 +3,7 @@
 // one consistent outcome; the audit row commits with the change. A signature names the exact
 // reduction and the statement signed, and needs the signer's password; release freezes the record.
 import type { Tx } from '../db/client.server';
+import { findOpenLiveSession } from '../db/queries/live';
 import { cancelOpenReductions } from '../db/queries/reductions';
 import { insertDisposition, insertReleaseSnapshot, insertSignature } from '../db/queries/review';
 import { updateTest } from '../db/queries/tests';
@@ -175,6 +176,14 @@ export async function releaseTest(user: RequestUser, testId: number, body: Signa
     requireSameReduction(reduction.id, body.reductionId);
     if (record.test.status !== 'reviewed')
       throw new AppError('not-reviewed', 'Only a reviewed test can be released; the engineering review is not signed.');
+    // a log still streaming in is not a record to lock: its session is finished or abandoned first
+    const live = await findOpenLiveSession(tx, testId);
+    if (live)
+      throw new AppError(
+        'live-session-open',
+        'A live session is still open for this test: finish or abandon it before the release.',
+        { sessionId: live.id },
+      );
     const review = currentReview(record, reduction.id);
     if (review.userId === user.id)
       throw new AppError(

@@ -80,6 +80,12 @@ export async function storageAnswers(timeoutMs = 2000): Promise<boolean> {
   }
 }
 
+/** The object's bytes. */
+export async function getObjectBytes(key: string): Promise<Uint8Array> {
+  const res = await getS3().send(new GetObjectCommand({ Bucket: bucket(), Key: key }));
+  return res.Body!.transformToByteArray();
+}
+
 /** The object's bytes, or null when there is no such object. */
 export async function getObjectBytesIfExists(key: string): Promise<Uint8Array | null> {
   try {

@@ -2,8 +2,10 @@
 // 503 (never 500), nothing is lost or half-written, and everything recovers when the service
 // returns — without restarting the app.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createHash } from 'node:crypto';
 import { readdirSync } from 'node:fs';
 import {
+  createTest,
   journeyLog,
   reducedTest,
   reviewedTest,
@@ -213,4 +215,64 @@ describe('the mail server stops', () => {
 
 afterAll(async () => {
   if (worker) await stopProcess(worker.child);
+});
+
+describe('a live session meets an outage', () => {
+  const put = (testId: number, sessionId: number, n: number, body: Buffer) =>
+    crew.technician.json(`/api/tests/${testId}/live/${sessionId}/chunks/${n}`, {
+      method: 'PUT',
+      body: new Uint8Array(body),
+      headers: { 'content-type': 'text/csv' },
+    });
+
+  it('storage and then MariaDB stop between chunks: 503 each time, the retried chunk is taken, the log is whole', async () => {
+    const testId = await createTest(crew, 'live session through outages');
+    const log = Buffer.from(journeyLog());
+    const chunks: Buffer[] = [];
+    for (let i = 0; i < log.length; i += 2048) chunks.push(log.subarray(i, i + 2048));
+    const open = await crew.technician.json(`/api/tests/${testId}/live`, { method: 'POST' });
+    expect(open.status).toBe(201);
+    const sessionId = open.body.sessionId as number;
+    const third = Math.floor(chunks.length / 3);
+    for (let n = 1; n <= third; n++) expect((await put(testId, sessionId, n, chunks[n - 1]!)).status).toBe(201);
+
+    await stack.stopS3();
+    try {
+      const r = await put(testId, sessionId, third + 1, chunks[third]!);
+      expect(r.status).toBe(503);
+      expect(r.body.error.code).toBe('unavailable');
+    } finally {
+      await stack.startS3();
+    }
+    expect((await put(testId, sessionId, third + 1, chunks[third]!)).status).toBe(201);
+    for (let n = third + 2; n <= 2 * third; n++)
+      expect((await put(testId, sessionId, n, chunks[n - 1]!)).status).toBe(201);
+
+    await stack.stopDb();
+    try {
+      const r = await put(testId, sessionId, 2 * third + 1, chunks[2 * third]!);
+      expect(r.status).toBe(503);
+    } finally {
+      await stack.startDb();
+    }
+    await until('the app to reach MariaDB again', async () => {
+      const r = await put(testId, sessionId, 2 * third + 1, chunks[2 * third]!);
+      if (r.status !== 503 && r.status !== 201) throw new Error(`chunk answered ${r.status}`);
+      return r.status === 201;
+    });
+    for (let n = 2 * third + 2; n <= chunks.length; n++)
+      expect((await put(testId, sessionId, n, chunks[n - 1]!)).status).toBe(201);
+
+    const done = await crew.technician.json(`/api/tests/${testId}/live/${sessionId}/finish`, { method: 'POST' });
+    expect(done.status).toBe(201);
+    const logs = (await crew.engineer.json(`/api/tests/${testId}/logs`)).body.items;
+    expect(logs).toHaveLength(1);
+    expect(logs[0].sha256).toBe(createHash('sha256').update(log).digest('hex'));
+    const stored = await stack.sql<{ n: number }>('SELECT n FROM live_chunks WHERE session_id = ? ORDER BY n', [
+      sessionId,
+    ]);
+    expect(stored.map((r) => r.n)).toEqual(chunks.map((_, i) => i + 1));
+    expect((await waitForReduction(crew.technician, done.body.reductionId)).status).toBe('done');
+    expect(await chainOk(testId)).toBe(true);
+  });
 });

@@ -5,3 +5,4 @@ export * from './logs';
 export * from './reductions';
 export * from './review';
 export * from './audit';
+export * from './live';

@@ -4,6 +4,7 @@
 // max, not sum): the reduction queue, job durations and the outbox backlog.
 import { Counter, Gauge, Histogram, Registry, collectDefaultMetrics } from 'prom-client';
 import { getDb } from '../../db/client.server';
+import { openLiveStreams } from '../live-events.server';
 import { outboxBacklog, reductionDurationHistogram, reductionQueueDepth } from '../../db/queries/operations';
 
 export const registry = new Registry();
@@ -45,6 +46,15 @@ new Gauge({
     const since = Date.now() - ACTIVE_WINDOW_MS;
     for (const [id, at] of lastSeen) if (at < since) lastSeen.delete(id);
     this.set(lastSeen.size);
+  },
+});
+
+new Gauge({
+  name: 'hoopline_live_event_streams',
+  help: 'Live test event streams (Server-Sent Events) this process is serving now.',
+  registers: [registry],
+  collect() {
+    this.set(openLiveStreams());
   },
 });
 

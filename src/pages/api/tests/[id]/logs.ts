@@ -2,7 +2,7 @@ import { getDb } from '../../../../db/client.server';
 import { listLogs } from '../../../../db/queries/logs';
 import { endpoint, idParam, json, requirePermission } from '../../../../server/http';
 import { loadTest, validatePlan } from '../../../../server/plans.server';
-import { receiveLogUpload } from '../../../../server/uploads.server';
+import { receiveLogUpload } from '../../../../server/logs.server';
 
 /** GET /api/tests/{id}/logs — the test's logs with size, rows, time span, sha256 and header preview. */
 export const GET = endpoint(async (ctx) => {

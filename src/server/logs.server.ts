@@ -1,9 +1,12 @@
-// Receives a log upload as a stream (multipart field `file`, or a raw text/csv body): checks
-// the header from the first 64 KB before anything is stored, then streams the bytes to object
+// The one log service (DESIGN 5, 8): every log that becomes part of a record — a one-shot
+// upload (multipart field `file`, or a raw text/csv body), a finished live session, the demo
+// seed — passes through `storeLog`. It checks the header from the first 64 KB with the engine's
+// own reader (its findings and messages, with line and column), then streams the bytes to object
 // storage while hashing, counting and keeping only the last few KB. Nothing is written to the
 // database until the object is complete; then one transaction locks the test row, re-checks that
 // it is not released (a release may have happened while the bytes streamed) and stores the log
-// with its audit row. A refused or failed upload leaves no object behind.
+// with its audit row. The same bytes again give the existing log. A refused or failed log leaves
+// no object behind.
 import busboy from 'busboy';
 import { createHash, randomUUID } from 'node:crypto';
 import type { ReadableStream as WebReadableStream } from 'node:stream/web';
@@ -14,7 +17,8 @@ import { findLogBySha, insertLog } from '../db/queries/logs';
 import { updateTest } from '../db/queries/tests';
 import { canonicalJson } from '../lib/canonical-json';
 import type { LogFile, Test } from '../db/schema';
-import { inspectLogHead } from '../lib/reduction';
+import { inspectLogHead, LogReader, type LogHeadInfo } from '../lib/reduction';
+import { isInputError } from '../lib/reduction/errors';
 import type { Plan } from '../lib/reduction/plan';
 import { auditBy } from './audit.server';
 import { getConfig } from '../config.server';
@@ -24,7 +28,8 @@ import type { RequestUser } from './http';
 import { withLockedTest } from './locks.server';
 import { deleteObject, putObjectStream } from './storage.server';
 
-const HEAD_BYTES = 64 * 1024;
+/** How much of a log's start must hold its preamble and header. */
+export const HEAD_BYTES = 64 * 1024;
 const TAIL_BYTES = 8 * 1024;
 
 interface IncomingFile {
@@ -166,53 +171,91 @@ export interface UploadOutcome {
   created: boolean;
 }
 
-/** POST /api/tests/{id}/logs. Throws AppError 400/413/422; 503 when storage fails. */
-export async function receiveLogUpload(
-  request: Request,
-  test: Test,
-  plan: Plan,
-  user: RequestUser,
-): Promise<UploadOutcome> {
-  const limit = getConfig().UPLOAD_MAX_BYTES;
-  const declared = Number(request.headers.get('content-length') ?? NaN);
-  if (Number.isFinite(declared) && declared > limit + 64 * 1024) throw errors.tooLarge(limit);
+/**
+ * The header check, with the engine's own reader: the complete lines of `head` are read as a
+ * segment, so a missing or repeated column, binary bytes or a header without the pressure column
+ * fail with the engine's code, message, line and column (422 through the endpoint's one mapping).
+ * Answers what the header holds, or null while no line of a log still arriving (`ended` false)
+ * is its header yet and the head is shorter than HEAD_BYTES (a live session's first chunks).
+ */
+export function checkLogHead(plan: Plan, head: Uint8Array, ended: boolean): LogHeadInfo | null {
+  if (head.length === 0) {
+    if (!ended) return null;
+    throw new AppError('empty-file', 'The file is empty.');
+  }
+  // only whole lines: a header cut by the window would look like one that lacks a column
+  const window = head.subarray(0, HEAD_BYTES);
+  const lastNewline = window.lastIndexOf(10);
+  const whole = ended && head.length <= HEAD_BYTES ? window : window.subarray(0, lastNewline + 1);
+  const waiting = !ended && head.length < HEAD_BYTES;
+  if (whole.length === 0) {
+    if (waiting) return null;
+    throw new AppError(
+      'not-delimited-text',
+      `The first ${Math.round(HEAD_BYTES / 1024)} KB of the log hold no line end: it is not delimited text.`,
+      { line: 1 },
+    );
+  }
+  try {
+    const reader = new LogReader(plan, () => undefined);
+    reader.beginSegment();
+    reader.push(whole);
+    reader.endSegment();
+    return inspectLogHead(plan, Buffer.from(whole).toString('utf8'));
+  } catch (err) {
+    if (waiting && isInputError(err) && (err.code === 'pressure-column-not-found' || err.code === 'no-data'))
+      return null;
+    throw err;
+  }
+}
 
-  const incoming = await openIncomingFile(request);
-  const { stream } = incoming;
+/** What the log row records about the header and its mapping to the plan. */
+function columnMapOf(plan: Plan, info: LogHeadInfo) {
+  return {
+    delimiter: info.delimiter,
+    decimalComma: info.decimalComma,
+    headerLine: info.headerLine,
+    columns: info.columns,
+    pressureUnit: info.pressureUnit,
+    preview: info.previewRows.slice(0, 10),
+    mapping: {
+      pressure: plan.columns.pressure,
+      time: plan.columns.time ?? null,
+      channels: plan.gauges.flatMap((g) => g.channels),
+    },
+  };
+}
+
+export interface StoreLogInput {
+  test: Test;
+  plan: Plan;
+  /** the log's bytes, in order */
+  source: Readable;
+  filename: string;
+  user: RequestUser;
+  /** extra audit details (a live session's id, the demo seed) */
+  auditDetails?: Record<string, unknown>;
+}
+
+/**
+ * Check, store, hash and record one log (the one path every log takes). Throws AppError
+ * 400/409/413/422, 503 when storage or the database fails; the same bytes again answer the
+ * existing log with `created` false.
+ */
+export async function storeLog(input: StoreLogInput): Promise<UploadOutcome> {
+  const { test, plan, source: stream, user } = input;
+  const limit = getConfig().UPLOAD_MAX_BYTES;
   let head: Buffer;
   let ended: boolean;
+  let info: LogHeadInfo;
   try {
     ({ head, ended } = await readHead(stream, limit));
+    info = checkLogHead(plan, head, ended)!; // ended, or a full head: never null
   } catch (err) {
     stream.resume();
     throw err;
   }
   const headText = head.toString('utf8');
-  let info: ReturnType<typeof inspectLogHead>;
-  try {
-    if (head.length === 0) throw new AppError('empty-file', 'The file is empty.');
-    if (head.includes(0))
-      throw new AppError(
-        'not-delimited-text',
-        'The file is not delimited text (it holds binary bytes). Upload the CSV export of the data-acquisition unit.',
-      );
-    info = inspectLogHead(plan, headText);
-    if (info.duplicateColumns.length)
-      throw new AppError(
-        'duplicate-column',
-        `Column ${info.duplicateColumns.map((c) => `'${c}'`).join(', ')} appears more than once in the header (line ${info.headerLine}).`,
-        { line: info.headerLine, columns: info.duplicateColumns },
-      );
-    if (info.missingColumns.length)
-      throw new AppError(
-        'missing-column',
-        `The header (line ${info.headerLine}) lacks column${info.missingColumns.length > 1 ? 's' : ''} ${info.missingColumns.map((c) => `'${c}'`).join(', ')} that the plan maps. Fix the plan's column names or the log.`,
-        { line: info.headerLine, missingColumns: info.missingColumns, columns: info.columns },
-      );
-  } catch (err) {
-    stream.resume();
-    throw err; // an engine InputError answers 422 through the endpoint's one mapping
-  }
 
   const meter = new LogMeter(limit);
   const body = new PassThrough();
@@ -230,7 +273,7 @@ export async function receiveLogUpload(
     await deleteObject(key).catch(() => undefined);
     if (err instanceof AppError) throw err;
     if (meter.bytes > limit) throw errors.tooLarge(limit);
-    logger().error({ err }, 'log upload to object storage failed');
+    logger().error({ err }, 'storing a log in object storage failed');
     throw errors.unavailable('Object storage did not take the file; nothing was stored. Try again shortly.');
   }
 
@@ -242,45 +285,33 @@ export async function receiveLogUpload(
     .toString('utf8')
     .split(/\r?\n/)
     .filter((l) => l.trim().length > 0);
-  const columnMap = {
-    delimiter: info.delimiter,
-    decimalComma: info.decimalComma,
-    headerLine: info.headerLine,
-    columns: info.columns,
-    pressureUnit: info.pressureUnit,
-    preview: info.previewRows.slice(0, 10),
-    mapping: {
-      pressure: plan.columns.pressure,
-      time: plan.columns.time ?? null,
-      channels: plan.gauges.flatMap((g) => g.channels),
-    },
-  };
   const checkedPlan = canonicalJson(test.plan);
   let outcome: UploadOutcome;
   try {
     outcome = await withLockedTest(test.id, { forWrite: true }, async (tx, locked) => {
       const existing = await findLogBySha(tx, test.id, sha256);
       if (existing) return { log: existing, created: false };
-      // the header was checked against the plan as it was when the upload began
+      // the header was checked against the plan as it was when the log began
       if (canonicalJson(locked.plan) !== checkedPlan) throw new AppError('plan-changed');
       const id = await insertLog(tx, {
         testId: test.id,
         objectKey: key,
-        filename: incoming.filename,
+        filename: input.filename,
         sha256,
         sizeBytes: meter.bytes,
         rows: Math.max(0, meter.lines - info.headerLine),
         timeStart: timeOf(firstData, timeIndex, info.delimiter, info.decimalComma),
         timeEnd: timeOf(tailLines.at(-1), timeIndex, info.delimiter, info.decimalComma),
-        columnMap,
+        columnMap: columnMapOf(plan, info),
         uploadedBy: user.id,
       });
       await updateTest(tx, test.id, { status: 'logging' });
       await auditBy(tx, user, 'log-uploaded', test.id, {
         logId: id,
-        filename: incoming.filename,
+        filename: input.filename,
         sha256,
         bytes: meter.bytes,
+        ...input.auditDetails,
       });
       if (locked.status === 'reviewed')
         await auditBy(tx, user, 'review-withdrawn', test.id, { reason: `log ${id} uploaded after the review` });
@@ -297,4 +328,18 @@ export async function receiveLogUpload(
   }
   if (!outcome.created) await deleteObject(key).catch(() => undefined);
   return outcome;
+}
+
+/** POST /api/tests/{id}/logs. Throws AppError 400/413/422; 503 when storage fails. */
+export async function receiveLogUpload(
+  request: Request,
+  test: Test,
+  plan: Plan,
+  user: RequestUser,
+): Promise<UploadOutcome> {
+  const limit = getConfig().UPLOAD_MAX_BYTES;
+  const declared = Number(request.headers.get('content-length') ?? NaN);
+  if (Number.isFinite(declared) && declared > limit + 64 * 1024) throw errors.tooLarge(limit);
+  const incoming = await openIncomingFile(request);
+  return storeLog({ test, plan, source: incoming.stream, filename: incoming.filename, user });
 }
