@@ -141,7 +141,7 @@ describe('a hydrotest from plan to inspector link, in the browser', () => {
     await page.getByRole('button', { name: 'Reduce all logs' }).click();
     await page.getByRole('progressbar', { name: /Reduction \d+ progress/ }).waitFor();
     await page.getByText(/Reduction \d+: done/).waitFor({ timeout: 60_000 });
-    await page.getByText(/Verdict before dispositions: flagged/).waitFor();
+    await page.getByText(/Strain comparison before dispositions: Flagged/).waitFor();
     await s.shoot('reduction-done');
     noProblems(s);
   });

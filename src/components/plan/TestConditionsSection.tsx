@@ -5,11 +5,12 @@ import TestPressureHelper from '../review/TestPressureHelper';
 import { PlanNumberField, PlanSelectField, PlanTextField } from './PlanField';
 import PlanSection from './PlanSection';
 import { cleanFloat } from './plan-draft';
+import { MODEL_NAME } from '../../lib/verdict-words';
 import { usePlanEditor } from './plan-editor-context';
 
 const MODELS = [
-  { value: 'lame', label: 'Lamé thick wall, outer surface (default)' },
-  { value: 'membrane', label: 'Membrane, mean radius (hand calculation)' },
+  { value: 'lame', label: `${MODEL_NAME.lame} (default)` },
+  { value: 'membrane', label: `${MODEL_NAME.membrane} (hand calculation)` },
 ];
 
 /** Model, test pressure (with the code-rule helper beside it) and the log's pressure and time columns. */

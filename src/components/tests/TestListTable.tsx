@@ -1,5 +1,6 @@
 import { useMemo, useState } from 'react';
 import { formatDateTime } from '../api';
+import { verdictLabel } from '../../lib/verdict-words';
 
 export interface TestListRow {
   id: number;
@@ -84,9 +85,12 @@ export default function TestListTable({ rows, caption }: { rows: TestListRow[]; 
             <td>{t.status}</td>
             <td>
               {t.verdict ? (
-                <span className={`font-semibold ${VERDICT_LOOK[t.verdict]?.cls ?? ''}`}>
+                <span
+                  className={`font-semibold ${VERDICT_LOOK[t.verdict]?.cls ?? ''}`}
+                  title={`strain comparison verdict (code: ${t.verdict})`}
+                >
                   <span aria-hidden="true">{VERDICT_LOOK[t.verdict]?.glyph} </span>
-                  {t.verdict}
+                  {verdictLabel(t.verdict)}
                 </span>
               ) : (
                 '—'

@@ -6,6 +6,7 @@ import { TRANSVERSE_WORDS } from '../review/budget-words';
 import UncertaintyBudgetTable from '../review/UncertaintyBudgetTable';
 import DispositionForm from './DispositionForm';
 import type { RecordDisposition, RecordGauge } from './record-types';
+import { DISPOSITION_LABEL } from '../../lib/verdict-words';
 
 interface Props {
   gauge: RecordGauge;
@@ -131,7 +132,8 @@ export default function GaugeDetail({
       )}
       {disposition && (
         <p className="rounded-md bg-ink-50 p-2 text-sm">
-          <strong>Disposition: {disposition.outcome}</strong> — {disposition.reason}{' '}
+          <strong title={`disposition code: ${disposition.outcome}`}>{DISPOSITION_LABEL[disposition.outcome]}</strong> —{' '}
+          {disposition.reason}{' '}
           <span className="text-ink-700">
             ({disposition.by}, {new Date(disposition.at).toLocaleString('en-GB')})
           </span>

@@ -55,6 +55,14 @@ describe('renderReportPdf (SI, draft)', () => {
     }
   });
 
+  it('names the verdict as the strain comparison and says it is not acceptance of the hydrotest', () => {
+    const all = squash(pages.map((p) => p.text).join(' '));
+    expect(all).toContain(squash('STRAIN COMPARISON VERDICT'));
+    expect(all).toContain(squash('It is not acceptance of the hydrostatic test'));
+    expect(all).toContain(squash('Follow the written test procedure'));
+    expect(all).not.toContain(squash('has no disposition yet'));
+  });
+
   it('has extractable text: title, verdict, every gauge id, units with µ and ε', () => {
     const all = pages.map((p) => p.text).join(' ');
     expect(all).toContain('Hydrotest strain report');

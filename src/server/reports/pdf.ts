@@ -24,6 +24,13 @@ import {
 } from './format';
 import { drawFigureLegend, drawStrainPressureFigure } from './pdf-figure';
 import { PageFlow, drawTable, type TableCell } from './pdf-layout';
+import {
+  DISPOSITION_LABEL,
+  NEAR_YIELD_ADVICE,
+  VERDICT_SCOPE,
+  verdictStanding,
+  type DispositionCode,
+} from '../../lib/verdict-words';
 import { COLOR, CONTENT_BOTTOM, CONTENT_WIDTH, MARGIN, OUTCOME_COLOR, PAGE, VERDICT_COLOR } from './pdf-style';
 import { drawParagraph, drawTextLine, lineHeight, measureParagraph, measureText } from './pdf-text';
 import { outcomeOf, toReportRecord, unitLabels, type ReportInput, type ReportRecord } from './report-input';
@@ -143,6 +150,22 @@ function drawTitleBlock(flow: PageFlow, input: ReportRecord): void {
   flow.y = y + 12;
 }
 
+/** Flagged gauges with no disposition yet. */
+function undisposedCount(input: ReportRecord): number {
+  return input.result.gauges.filter((g) => outcomeOf(input, g.id) === 'flagged' && !input.dispositions[g.id]).length;
+}
+
+/** Flagged gauges an engineer marked for retest. */
+function retestIds(input: ReportRecord): string[] {
+  return input.result.gauges
+    .filter((g) => outcomeOf(input, g.id) === 'flagged' && input.dispositions[g.id]?.outcome === 'retest')
+    .map((g) => g.id);
+}
+
+function dispositionWords(code: DispositionCode | undefined): string {
+  return code ? DISPOSITION_LABEL[code] : '–';
+}
+
 function drawVerdictBox(flow: PageFlow, input: ReportRecord): void {
   const { doc } = flow;
   const counts = countOutcomes(input);
@@ -153,7 +176,11 @@ function drawVerdictBox(flow: PageFlow, input: ReportRecord): void {
   const x = MARGIN.left;
   const textX = x + 16;
   const textWidth = CONTENT_WIDTH - 16 - 190;
-  const explanation = VERDICT_EXPLANATIONS[input.verdict];
+  const explanation = [
+    VERDICT_EXPLANATIONS[input.verdict],
+    verdictStanding(input.verdict, { awaiting: undisposedCount(input), retest: retestIds(input).length }),
+    VERDICT_SCOPE,
+  ].join(' ');
   const height = Math.max(70, 40 + measureParagraph(doc, explanation, textWidth, { size: 8.5 }) + 8);
   flow.ensureSpace(height + 12);
   const y = flow.y;
@@ -163,7 +190,7 @@ function drawVerdictBox(flow: PageFlow, input: ReportRecord): void {
     .rect(x + 0.5, y + 0.5, 6, height - 1)
     .fill(color)
     .restore();
-  drawTextLine(doc, 'VERDICT', textX, y + 9, { size: 7, weight: 600, color: COLOR.muted });
+  drawTextLine(doc, 'STRAIN COMPARISON VERDICT', textX, y + 9, { size: 7, weight: 600, color: COLOR.muted });
   drawTextLine(doc, VERDICT_LABELS[input.verdict].toUpperCase(), textX, y + 19, { size: 18, weight: 700, color });
   drawParagraph(doc, explanation, textX, y + 42, textWidth, { size: 8.5, color: COLOR.ink });
 
@@ -197,7 +224,7 @@ function drawYieldCheck(flow: PageFlow, input: ReportRecord): void {
     `Yield check: ${YIELD_SURFACE_LABELS[y.surface]} (${MODEL_LABELS[y.model]}) ` +
     `${showNumber(formatFixed(y.stress, p.stress))} ${u.stress} at ${formatPlain(y.pressure)} ${u.pressure} = ` +
     `${formatPercent(y.fraction, 1)} % of yield (near-yield limit ${formatPercent(y.limit, 0)} %)` +
-    (y.nearYield ? '. NEAR YIELD: stop raising the pressure and consult the responsible engineer.' : '.');
+    (y.nearYield ? `. NEAR YIELD. ${NEAR_YIELD_ADVICE}` : '.');
   flow.paragraph(text, 8.5, y.nearYield ? OUTCOME_COLOR.flagged : COLOR.ink, y.nearYield ? 700 : 400);
   flow.y += 4;
 }
@@ -393,13 +420,13 @@ function drawGaugeTables(flow: PageFlow, input: ReportRecord): void {
       value(`distance_to_discontinuity_${u.length}`, g),
       value(`predicted_u95_${slope}`, g),
       { text: UNCERTAINTY_WORDS[dominantUncertainty(g)] ?? '–', color: COLOR.muted },
-      { text: g.flags.length ? g.flags.join(', ') : '–', color: g.flags.length ? OUTCOME_COLOR.flagged : COLOR.faint },
-      input.dispositions[g.id]?.outcome ?? '–',
+      {
+        text: g.flags.length ? g.flags.map((f) => FLAG_LABELS[f]).join(', ') : '–',
+        color: g.flags.length ? OUTCOME_COLOR.flagged : COLOR.faint,
+      },
+      dispositionWords(input.dispositions[g.id]?.outcome),
     ]),
   );
-  const used = [...new Set(gauges.flatMap((g) => g.flags))];
-  if (used.length > 0)
-    flow.paragraph(`Flags: ${used.map((f) => `${f} = ${FLAG_LABELS[f]}`).join('; ')}.`, 7, COLOR.muted);
 }
 
 function drawRosettes(flow: PageFlow, input: ReportRecord): void {
@@ -448,7 +475,7 @@ function drawRosettes(flow: PageFlow, input: ReportRecord): void {
           color: r.yieldFraction > input.tolerances.yieldFraction ? OUTCOME_COLOR.flagged : COLOR.ink,
         },
         {
-          text: r.flags.length ? r.flags.join(', ') : '–',
+          text: r.flags.length ? r.flags.map((f) => FLAG_LABELS[f]).join(', ') : '–',
           color: r.flags.length ? OUTCOME_COLOR.flagged : COLOR.faint,
         },
       ];
@@ -477,7 +504,7 @@ function drawDispositions(flow: PageFlow, input: ReportRecord): void {
         const d = input.dispositions[g.id]!;
         return [
           { text: g.id, weight: 600 },
-          { text: d.outcome, weight: 600 },
+          { text: dispositionWords(d.outcome), weight: 600 },
           d.reason,
           d.by,
           formatDateTimeUtc(d.at).replace(' UTC', ''),
@@ -487,7 +514,15 @@ function drawDispositions(flow: PageFlow, input: ReportRecord): void {
     );
   if (undisposed.length > 0)
     flow.paragraph(
-      `Flagged without disposition: ${undisposed.map((g) => g.id).join(', ')}.`,
+      `Outside tolerance, awaiting a disposition: ${undisposed.map((g) => g.id).join(', ')}.`,
+      8.5,
+      OUTCOME_COLOR.flagged,
+      600,
+    );
+  const retest = retestIds(input);
+  if (retest.length > 0)
+    flow.paragraph(
+      `Marked for retest (the verdict stays flagged until they are tested again): ${retest.join(', ')}.`,
       8.5,
       OUTCOME_COLOR.flagged,
       600,
