@@ -38,18 +38,23 @@ const PlanIssueSummary = forwardRef<HTMLDivElement, Props>(function PlanIssueSum
             : {nameError}
           </li>
         )}
-        {issues.map((i, k) => (
-          <li key={k}>
-            {i.fieldId ? (
-              <a href={`#${i.fieldId}`} className="font-medium underline" onClick={(e) => focusField(e, i.fieldId!)}>
-                {i.label}
-              </a>
-            ) : (
-              <span className="font-medium">{i.label}</span>
-            )}
-            : {i.message} <span className="font-mono text-xs text-ink-700">({i.path})</span>
-          </li>
-        ))}
+        {issues.map((i, k) => {
+          // a message that names its gauge is a whole sentence; others follow the field's label
+          const whole = /^Gauge /.test(i.message);
+          const lead = whole ? i.message : i.label;
+          return (
+            <li key={k} title={`plan field ${i.path}`}>
+              {i.fieldId ? (
+                <a href={`#${i.fieldId}`} className="font-medium underline" onClick={(e) => focusField(e, i.fieldId!)}>
+                  {lead}
+                </a>
+              ) : (
+                <span className="font-medium">{lead}</span>
+              )}
+              {!whole && `: ${i.message}`}
+            </li>
+          );
+        })}
       </ul>
     </div>
   );
