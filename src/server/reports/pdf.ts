@@ -32,7 +32,17 @@ import {
   type DispositionCode,
 } from '../../lib/verdict-words';
 import { COLOR, CONTENT_BOTTOM, CONTENT_WIDTH, MARGIN, OUTCOME_COLOR, PAGE, VERDICT_COLOR } from './pdf-style';
-import { drawParagraph, drawTextLine, lineHeight, measureParagraph, measureText } from './pdf-text';
+import {
+  asArtifact,
+  beginTagging,
+  drawParagraph,
+  drawTextLine,
+  endTagging,
+  lineHeight,
+  measureParagraph,
+  measureText,
+  tagged,
+} from './pdf-text';
 import { outcomeOf, toReportRecord, unitLabels, type ReportInput, type ReportRecord } from './report-input';
 
 export const PDF_CONTENT_TYPE = 'application/pdf';
@@ -66,8 +76,11 @@ export async function renderReportPdf(raw: ReportInput, options: RenderPdfOption
     // No default font: pdfkit would load Helvetica, and a default Inter opened here (same
     // PostScript name as a registered face) defeats pdfkit's font cache, reopening it per call.
     font: null as unknown as string,
-    lang: 'en',
+    lang: 'en-GB',
     displayTitle: true,
+    // structure tags for screen readers (see pdf-text.ts); 1.7 is where tagged PDF is settled
+    tagged: true,
+    pdfVersion: '1.7',
     info: {
       Title: `Hydrotest strain report: ${input.test.name}`,
       Subject: `Test ${input.test.id}, vessel ${input.vessel.tag}, reduction ${input.reductionId}${input.draft ? ' (DRAFT)' : ''}`,
@@ -80,6 +93,7 @@ export async function renderReportPdf(raw: ReportInput, options: RenderPdfOption
   });
   const done = collectBytes(doc);
 
+  beginTagging(doc);
   const flow = new PageFlow(doc);
   flow.addPage();
   drawTitleBlock(flow, input);
@@ -93,6 +107,7 @@ export async function renderReportPdf(raw: ReportInput, options: RenderPdfOption
   drawWarnings(flow, input);
   drawFigures(flow, input);
   finishPages(doc, input);
+  endTagging(doc);
 
   doc.end();
   return done;
@@ -132,7 +147,7 @@ function drawTitleBlock(flow: PageFlow, input: ReportRecord): void {
     width: CONTENT_WIDTH,
   });
   y += 13;
-  drawTextLine(doc, 'Hydrotest strain report', x, y, { size: 20, weight: 700 });
+  drawTextLine(doc, 'Hydrotest strain report', x, y, { size: 20, weight: 700, tag: 'H1' });
   y += 27;
   y += drawParagraph(doc, input.test.name, x, y, CONTENT_WIDTH, { size: 12.5, weight: 600 });
   y += 2;
@@ -596,17 +611,26 @@ function drawFigures(flow: PageFlow, input: ReportRecord): void {
     gauges.slice(start, start + perPage).forEach((g, i) => {
       const col = i % columns;
       const row = Math.floor(i / columns);
-      drawStrainPressureFigure(
+      const alt =
+        `Strain against pressure for gauge ${g.id}: measured slope ${formatFixed(g.measuredSlope, p.slope) || 'none'}, ` +
+        `predicted ${formatFixed(g.predictedSlope, p.slope)} µε/${u.pressure}, ${OUTCOME_LABELS[outcomeOf(input, g.id)]}.`;
+      tagged(
         flow.doc,
-        { x: MARGIN.left + col * (width + gapX), y: top + row * (height + gapY), width, height },
-        g,
-        {
-          pressureUnit: u.pressure,
-          testPressure: input.testPressure,
-          slopeBand: input.tolerances.slopeBand,
-          outcome: outcomeOf(input, g.id),
-          slopeDecimals: p.slope,
-        },
+        'Figure',
+        () =>
+          drawStrainPressureFigure(
+            flow.doc,
+            { x: MARGIN.left + col * (width + gapX), y: top + row * (height + gapY), width, height },
+            g,
+            {
+              pressureUnit: u.pressure,
+              testPressure: input.testPressure,
+              slopeBand: input.tolerances.slopeBand,
+              outcome: outcomeOf(input, g.id),
+              slopeDecimals: p.slope,
+            },
+          ),
+        { alt },
       );
     });
   }
@@ -618,6 +642,34 @@ function finishPages(doc: Doc, input: ReportRecord): void {
   const total = range.count;
   for (let i = 0; i < total; i += 1) {
     doc.switchToPage(range.start + i);
+    asArtifact(doc, () => drawRunningHeader(doc, input, i));
+    const footerY = CONTENT_BOTTOM + 16;
+    const pageLabel = `Page ${i + 1} of ${total}`;
+    const labelWidth = measureText(doc, pageLabel, { size: 7.5, weight: 600 });
+    const caution = () =>
+      drawParagraph(doc, REPORT_CAUTION, MARGIN.left, footerY, CONTENT_WIDTH - labelWidth - 24, {
+        size: 6.8,
+        color: COLOR.muted,
+      });
+    // the caution is read once, on the first page; on the others it is page furniture
+    if (i === 0) tagged(doc, 'P', caution);
+    else asArtifact(doc, caution);
+    asArtifact(doc, () => {
+      drawTextLine(doc, pageLabel, MARGIN.left, footerY, {
+        size: 7.5,
+        weight: 600,
+        color: COLOR.ink,
+        align: 'right',
+        width: CONTENT_WIDTH,
+      });
+      if (input.draft) drawDraftMark(doc);
+    });
+  }
+}
+
+/** The running header of pages after the first, and the footer rule. */
+function drawRunningHeader(doc: Doc, input: ReportRecord, i: number): void {
+  {
     if (i > 0) {
       drawTextLine(doc, 'Hoopline · Hydrotest strain report', MARGIN.left, 26, { size: 7.5, color: COLOR.muted });
       drawTextLine(
@@ -650,20 +702,6 @@ function finishPages(doc: Doc, input: ReportRecord): void {
       .lineTo(MARGIN.left + CONTENT_WIDTH, footerY - 6)
       .stroke()
       .restore();
-    const pageLabel = `Page ${i + 1} of ${total}`;
-    const labelWidth = measureText(doc, pageLabel, { size: 7.5, weight: 600 });
-    drawParagraph(doc, REPORT_CAUTION, MARGIN.left, footerY, CONTENT_WIDTH - labelWidth - 24, {
-      size: 6.8,
-      color: COLOR.muted,
-    });
-    drawTextLine(doc, pageLabel, MARGIN.left, footerY, {
-      size: 7.5,
-      weight: 600,
-      color: COLOR.ink,
-      align: 'right',
-      width: CONTENT_WIDTH,
-    });
-    if (input.draft) drawDraftMark(doc);
   }
 }
 
