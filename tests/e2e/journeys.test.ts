@@ -195,7 +195,7 @@ describe('a hydrotest from plan to inspector link, in the browser', () => {
     await s.shoot('dashboard-needs-qa');
     await page.goto(`/tests/${testId}/review`);
     await page.getByRole('button', { name: 'Release and lock' }).click();
-    await page.getByText(/I, Quentin Abara \(demo\), release reduction \d+/).waitFor();
+    await page.getByText(/I, Quentin Abara \(demo\), release the strain record of reduction \d+/).waitFor();
     await s.shoot('release-confirm');
     await page.getByLabel('Your password').fill(password());
     await page.getByRole('button', { name: 'Release now' }).click();
