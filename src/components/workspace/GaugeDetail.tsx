@@ -79,7 +79,9 @@ export default function GaugeDetail({
           <dt className="text-ink-700">Effective wall</dt>
           <dd className="num">
             {g.effectiveThickness === null ? '—' : `${fmt(g.effectiveThickness)} ${lengthUnit}`}{' '}
-            <span className="text-ink-700">(nominal {nominalThickness})</span>
+            <span className="text-ink-700">
+              (nominal {nominalThickness} {lengthUnit})
+            </span>
           </dd>
         </div>
         <div>
