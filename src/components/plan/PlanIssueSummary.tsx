@@ -26,7 +26,7 @@ const PlanIssueSummary = forwardRef<HTMLDivElement, Props>(function PlanIssueSum
       aria-labelledby="plan-issues-h"
       className="rounded-md border-2 border-flag bg-white p-4"
     >
-      <h2 id="plan-issues-h" className="font-semibold text-flag">
+      <h2 id="plan-issues-h" className="font-semibold text-flag-ink">
         {count} problem{count > 1 ? 's' : ''} to fix before this plan can be saved
       </h2>
       <ul className="mt-2 list-disc space-y-0.5 pl-5 text-sm">

@@ -39,7 +39,7 @@ export default function VerdictBanner({ verdict, counts }: Props) {
         className={`num max-w-sm rounded-md px-3 py-1.5 text-sm font-semibold ${blocking ? 'bg-flag/10 text-ink-950 ring-1 ring-flag' : 'bg-ink-50 text-ink-900'}`}
       >
         {blocking && (
-          <span aria-hidden="true" className="text-flag">
+          <span aria-hidden="true" className="text-flag-ink">
             ▲{' '}
           </span>
         )}

@@ -29,7 +29,7 @@ export default function YieldCheckCard({ yieldCheck: y, pressureUnit }: Props) {
           role="alert"
           className="mt-2 rounded-md border border-flag/40 bg-flag/5 px-3 py-2 text-sm font-semibold text-ink-900"
         >
-          <span aria-hidden="true" className="text-flag">
+          <span aria-hidden="true" className="text-flag-ink">
             ▲{' '}
           </span>
           Near yield. {FLAG_GLOSSARY['near-yield'].next}

@@ -110,7 +110,7 @@ export default function LogUploader({ testId, onUploaded }: Props) {
       )}
       {problem && (
         <div role="alert" className="rounded-md border-l-4 border-flag bg-white p-3 text-sm">
-          <p className="font-semibold text-flag">The log was not stored.</p>
+          <p className="font-semibold text-flag-ink">The log was not stored.</p>
           <p>{problem.message}</p>
           {problem.missing && problem.missing.length > 0 && (
             <p className="mt-1">

@@ -15,7 +15,7 @@ type Key = 'name' | 'vesselTag' | 'status' | 'verdict' | 'flaggedCount' | 'lastA
 const STATUS_ORDER = ['draft', 'logging', 'reduced', 'reviewed', 'released'];
 const VERDICT_LOOK: Record<string, { glyph: string; cls: string }> = {
   conforms: { glyph: '●', cls: 'text-ok' },
-  flagged: { glyph: '▲', cls: 'text-flag' },
+  flagged: { glyph: '▲', cls: 'text-flag-ink' },
   incomplete: { glyph: '◐', cls: 'text-ink-700' },
 };
 const COLUMNS: { key: Key; label: string; numeric?: boolean }[] = [

@@ -176,6 +176,11 @@ export default function ReviewWorkspace({
           seriesUrl={seriesUrl}
           reductionId={record.reduction?.status === 'done' ? record.reduction.id : null}
           channels={plan.gauges.flatMap((g) => g.channels)}
+          channelLabels={Object.fromEntries(
+            plan.gauges.flatMap((g) =>
+              g.channels.map((c, k) => [c, `${g.kind === 'uniaxial' ? g.id : `${g.id}/${'ABC'[k]}`} (${c})`]),
+            ),
+          )}
           pressureUnit={result.pressureUnit}
         />
       </section>
