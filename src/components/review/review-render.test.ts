@@ -17,6 +17,7 @@ import StrainPressurePlot from './StrainPressurePlot';
 import TestPressureHelper from './TestPressureHelper';
 import TimeHistoryPlot from './TimeHistoryPlot';
 import VerdictBanner from './VerdictBanner';
+import { ChosenPressureCautions } from './TestPressureHelper';
 import YieldCheckCard from './YieldCheckCard';
 import UncertaintyBudgetTable from './UncertaintyBudgetTable';
 import { FIXTURE_CHANNELS, FIXTURE_GAUGES, FIXTURE_PLAN, FIXTURE_RESULT, FIXTURE_ROSETTE } from './fixtures';
@@ -219,6 +220,24 @@ describe('rosette, verdict, cautions, test pressure', () => {
     expect(t).toMatch(/stores energy/);
     expect(t).toMatch(/governing code/);
     expect(t).toMatch(/does not replace.*responsible engineer and the authorised inspector/);
+  });
+  it('a chosen test pressure is checked against yield and says where it is measured and the metal temperature', () => {
+    const near = text(
+      renderToString(
+        h(ChosenPressureCautions, { pressure: 2.25, fraction: 0.94, limit: 0.9, pressureUnit: 'MPa', digits: 3 }),
+      ),
+    );
+    expect(near).toContain(
+      'Yield check at 2.250 MPa: the largest stress in the wall is 94.0 % of yield (near-yield limit 90 %): near yield',
+    );
+    expect(near).toMatch(/read at the top of the vessel; at the lowest point the water adds its weight/);
+    expect(near).toMatch(/minimum design metal temperature/);
+    const clear = text(
+      renderToString(
+        h(ChosenPressureCautions, { pressure: 1.95, fraction: 0.62, limit: 0.9, pressureUnit: 'MPa', digits: 3 }),
+      ),
+    );
+    expect(clear).not.toMatch(/near yield\./);
   });
   it('TestPressureHelper shows every rule for MAWP 1.5 MPa (REFERENCES.md, Test pressure rules [derived])', () => {
     const t = text(renderToString(h(TestPressureHelper, { pressureUnit: 'MPa', initialMawp: 1.5 })));
