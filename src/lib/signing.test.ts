@@ -13,18 +13,33 @@ const facts = {
 describe('the signed statement', () => {
   it('names the signer, the test and the exact reduction, and the verdict', () => {
     const s = signatureStatement({ kind: 'review', ...facts });
-    expect(s).toBe(
-      'I, Imke Sorensen, have reviewed reduction 17 (engine 1.0.0) of test 4 "AR-102 hydrotest", its predicted-versus-measured comparison and every disposition, and sign the engineering review with the verdict conforms.',
+    expect(s).toContain(
+      'I, Imke Sorensen, have reviewed reduction 17 (engine 1.0.0) of test 4 "AR-102 hydrotest": the plan\'s vessel, material and gauge installation as recorded',
     );
+    expect(s).toContain('the disposition and reason of every flagged gauge');
+    expect(s).toContain('strain comparison verdict: Conforms.');
+    expect(s).toContain('It is not acceptance of the hydrostatic test');
     const r = signatureStatement({
       kind: 'release',
       ...facts,
       signerName: 'Quentin Abara',
       reviewerName: 'Imke Sorensen',
     });
-    expect(r).toContain('I, Quentin Abara, release reduction 17');
+    expect(r).toContain('I, Quentin Abara, release the strain record of reduction 17');
     expect(r).toContain('reviewed by Imke Sorensen');
     expect(r).toContain('locked');
+    expect(r).toContain('Returning the vessel to service is the owner’s and the authorised inspector’s decision');
+  });
+
+  it('names the written procedure, code edition, medium, temperature and witness when the plan gives them', () => {
+    const s = signatureStatement({
+      kind: 'review',
+      ...facts,
+      verdict: 'flagged',
+      procedure: { procedureReference: 'HT-PRO-7 rev C', witness: 'A. Inspector', testMedium: 'water' },
+    });
+    expect(s).toContain('written test procedure HT-PRO-7 rev C; test medium water; witnessed by A. Inspector.');
+    expect(s).toContain('verdict: Flagged.');
   });
 
   it('keeps the signer\u2019s remark after the statement, and nothing when there is none', () => {

@@ -3,6 +3,17 @@
 // signer is named, not e-mailed: the statement travels with the record to the inspector, and
 // the signature row itself links the account.
 
+import { RELEASE_SCOPE, VERDICT_SCOPE, verdictLabel } from './verdict-words';
+
+/** How the test was conducted, from the plan (each optional). */
+export interface ProcedureFacts {
+  procedureReference?: string;
+  codeEdition?: string;
+  testMedium?: string;
+  testTemperature?: string;
+  witness?: string;
+}
+
 export interface StatementFacts {
   kind: 'review' | 'release';
   signerName: string;
@@ -13,15 +24,38 @@ export interface StatementFacts {
   verdict: string;
   /** the reviewer, for a release */
   reviewerName?: string;
+  procedure?: ProcedureFacts;
 }
 
-/** The statement the signer attests, in full. */
+/** The test's conduct facts the signer relies on, when the plan gives them. */
+function procedureSentence(p: ProcedureFacts | undefined): string {
+  if (!p) return '';
+  const parts = [
+    p.procedureReference && `written test procedure ${p.procedureReference}`,
+    p.codeEdition && `governing code ${p.codeEdition}`,
+    p.testMedium && `test medium ${p.testMedium}`,
+    p.testTemperature && `metal and medium temperature ${p.testTemperature}`,
+    p.witness && `witnessed by ${p.witness}`,
+  ].filter(Boolean);
+  return parts.length ? ` The test is recorded as conducted under: ${parts.join('; ')}.` : '';
+}
+
+/** The statement the signer attests, in full: what was checked, the verdict in words, and what it is not. */
 export function signatureStatement(f: StatementFacts): string {
   const who = `I, ${f.signerName},`;
   const what = `reduction ${f.reductionId}${f.engineVersion ? ` (engine ${f.engineVersion})` : ''} of test ${f.testId} "${f.testName}"`;
+  const verdict = `strain comparison verdict: ${verdictLabel(f.verdict)}`;
+  const procedure = procedureSentence(f.procedure);
   if (f.kind === 'review')
-    return `${who} have reviewed ${what}, its predicted-versus-measured comparison and every disposition, and sign the engineering review with the verdict ${f.verdict}.`;
-  return `${who} release ${what}, reviewed by ${f.reviewerName ?? 'the integrity engineer'}, with the verdict ${f.verdict}. The record is locked from now on.`;
+    return (
+      `${who} have reviewed ${what}: the plan's vessel, material and gauge installation as recorded, the comparison ` +
+      `of measured strain with the elastic prediction, and the disposition and reason of every flagged gauge. ` +
+      `I sign the engineering review with the ${verdict}.${procedure} ${VERDICT_SCOPE}`
+    );
+  return (
+    `${who} release the strain record of ${what}, reviewed by ${f.reviewerName ?? 'the integrity engineer'}, ` +
+    `with the ${verdict}. The record is locked from now on.${procedure} ${RELEASE_SCOPE}`
+  );
 }
 
 /** The stored text: the statement, and the signer's own remark when they added one. */

@@ -16,7 +16,7 @@ import { hashPassword } from './auth/passwords.server';
 import { passwordProblem } from './auth/password-policy.server';
 import { Readable } from 'node:stream';
 import { parsePlan, type PlanInput } from '../lib/reduction';
-import { syntheticLog } from '../lib/reduction/testing/synthetic-log';
+import { syntheticLog, type SyntheticOptions } from '../lib/reduction/testing/synthetic-log';
 import { audit } from './audit.server';
 import { gaugeRows } from './plans.server';
 import type { RequestUser } from './http';
@@ -31,7 +31,7 @@ export const demoAccounts: { email: string; name: string; role: Role }[] = [
 
 /** Generic room-temperature properties; code tables vary by edition and temperature. */
 export const genericMaterials = [
-  { name: 'Carbon steel, generic', elasticModulusMPa: 203_000, poissonRatio: 0.3, yieldStrengthMPa: 260 },
+  { name: 'Carbon steel, generic', elasticModulusMPa: 200_000, poissonRatio: 0.3, yieldStrengthMPa: 260 },
   { name: 'Austenitic stainless, generic', elasticModulusMPa: 195_000, poissonRatio: 0.31, yieldStrengthMPa: 205 },
   { name: 'Aluminium 6061-T6', elasticModulusMPa: 68_900, poissonRatio: 0.33, yieldStrengthMPa: 240 },
 ];
@@ -95,7 +95,7 @@ export const demoPlan: PlanInput & { remarks?: string } = {
       { kind: 'support', name: 'Saddle E', axialPosition: 3500, size: 300 },
     ],
   },
-  material: { name: 'Carbon steel, generic', elasticModulus: 203000, poissonRatio: 0.3, yieldStrength: 260 },
+  material: { name: 'Carbon steel, generic', elasticModulus: 200000, poissonRatio: 0.3, yieldStrength: 260 },
   model: 'lame',
   testPressure: 1.95,
   columns: { time: 'time_s', pressure: 'P [MPa]' },
@@ -115,6 +115,33 @@ export const demoPlan: PlanInput & { remarks?: string } = {
       transverseSensitivity: 0.01,
     },
   ],
+};
+
+/**
+ * The demo's log: an invented test, made to read like a real one. The acquisition unit's noise
+ * (2–4 µε, more on the long leads to the far end), the pressure settling for some seconds at the
+ * start of each hold, a slow drift of the zero as the water warms, and one gauge (H2) creeping a
+ * little through the hold at test pressure. A2 reads 12 % low (a lifted edge) and H3 beside the
+ * inlet nozzle 22 % high (local bending): the two flags the demo is about.
+ */
+export const demoLogOptions: SyntheticOptions = {
+  rateHz: 2,
+  holdSeconds: 120,
+  rampSeconds: 60,
+  levels: [0, 0.25, 0.5, 0.75, 0.9, 1, 0.75, 0.5, 0.25, 0],
+  seed: 102,
+  pressureNoise: 0.0025,
+  strainNoise: 2.5,
+  settleSeconds: 9,
+  gauges: {
+    H1: { offset: 14, driftPerHour: 6, noise: 2.2, seatingMicrostrain: 4 },
+    H2: { offset: -9, driftPerHour: -5, noise: 3.6, creepMicrostrain: 13, seatingMicrostrain: 6 },
+    A1: { offset: 6, driftPerHour: 5, noise: 2.4, seatingMicrostrain: 1.5 },
+    A2: { scale: 0.86, offset: -21, driftPerHour: 3, noise: 3.1, seatingMicrostrain: 2.5 },
+    H3: { scale: 1.22, offset: 3, driftPerHour: 7, noise: 2.8, seatingMicrostrain: 9 },
+    R1: { offset: 11, driftPerHour: -3, noise: 2.6, seatingMicrostrain: 3 },
+  },
+  format: { preamble: ['unit,DAQ bay 2', 'operator,demo', 'sample rate,2 Hz'], digits: 1 },
 };
 
 const LOGGED = 'AR-102 hydrotest at 1.95 MPa (demo)';
@@ -140,14 +167,7 @@ export async function seedDemoScenario(): Promise<string[]> {
       status: 'logging',
     });
     await replaceGauges(db, testId, rows);
-    const csv = syntheticLog(plan, {
-      rateHz: 2,
-      holdSeconds: 90,
-      rampSeconds: 45,
-      seed: 102,
-      gauges: { A2: { scale: 0.88 }, H3: { scale: 1.22 } },
-      format: { preamble: ['unit,DAQ bay 2', 'operator,demo'] },
-    });
+    const csv = syntheticLog(plan, demoLogOptions);
     // the same path as an upload: the engine's header check, object storage, the log row and its audit row
     const asTechnician: RequestUser = {
       id: technician.id,
@@ -171,7 +191,7 @@ export async function seedDemoScenario(): Promise<string[]> {
       testId,
       userId: technician.id,
       kind: 'pressure-held',
-      body: 'Held 1.95 MPa for 90 s; no leak at the N1 flange. Water and shell at 14 °C.',
+      body: 'Held 1.95 MPa for 120 s; pressure settled within 10 s of each stop. No leak at the N1 flange. Water 13 °C at the start, 15 °C at the end; shell 14 °C.',
     });
     const reductionId = await queueReduction(db, { testId, plan: demoPlan, logIds: [logId], queuedBy: technician.id });
     await updateTest(db, testId, {});

@@ -115,7 +115,11 @@ export const errorCatalogue = {
     status: 503,
     message: 'A service Hoopline needs is not answering; nothing was changed. Try again shortly.',
   },
-  internal: { status: 500, message: 'Something went wrong on the server; it has been logged.' },
+  internal: {
+    status: 500,
+    message:
+      'Something went wrong on the server and it has been logged. A change in progress was not saved (each change is stored whole or not at all): try again, and if it happens again give your administrator the reference shown.',
+  },
 } as const satisfies Record<string, { status: ErrorStatus; message: string }>;
 
 export type ErrorCode = keyof typeof errorCatalogue;

@@ -11,6 +11,7 @@ import { listUsers } from '../db/queries/users';
 import type { DispositionOutcome } from '../db/schema';
 import { can } from '../lib/roles';
 import { signatureStatement, signedText } from '../lib/signing';
+import { RELEASE_SCOPE, VERDICT_LABEL, VERDICT_MEANING } from '../lib/verdict-words';
 import { getConfig } from '../config.server';
 import { auditBy } from './audit.server';
 import { confirmSignerPassword } from './auth/credentials.server';
@@ -118,9 +119,13 @@ export async function signReview(user: RequestUser, testId: number, body: Signat
         'The log has not reached test pressure and come back to zero; a partial record cannot be reviewed.',
       );
     if (record.openFlags.length)
-      throw new AppError('open-flags', `Disposition every flagged gauge first: ${record.openFlags.join(', ')}.`, {
-        gaugeIds: record.openFlags,
-      });
+      throw new AppError(
+        'open-flags',
+        `Gauges outside tolerance await a disposition: ${record.openFlags.join(', ')}. Accept, exclude or mark each for retest, then sign.`,
+        {
+          gaugeIds: record.openFlags,
+        },
+      );
     const statement = signedText(reviewStatement(user, record), body.statement);
     const id = await insertSignature(tx, {
       testId,
@@ -150,7 +155,7 @@ async function queueReleaseNotices(tx: Tx, reviewer: RequestUser, record: TestRe
     await enqueueMailIn(tx, {
       to: q.email,
       subject: `Hoopline: "${record.test.name}" is reviewed and waits for release`,
-      text: `${reviewer.name} signed the engineering review of "${record.test.name}" (verdict: ${record.verdict}).\n\nRelease it here: ${base}/tests/${record.test.id}/review\n\n— Hoopline`,
+      text: `${reviewer.name} signed the engineering review of "${record.test.name}" (strain comparison verdict: ${record.verdict ? VERDICT_LABEL[record.verdict] : 'unknown'}).\n${record.verdict ? `${VERDICT_MEANING[record.verdict]}\n` : ''}\nRelease the strain record here: ${base}/tests/${record.test.id}/review\n\n${RELEASE_SCOPE}\n\n— Hoopline`,
       testId: record.test.id,
     });
 }

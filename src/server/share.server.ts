@@ -69,10 +69,15 @@ export async function revokeLink(user: RequestUser, id: number) {
 
 /** The live link behind a token: 404 unknown, 410 expired or revoked. Counts and audits the use. */
 export async function useShareLink(token: string | undefined, what: string): Promise<ShareLink> {
-  if (!token || token.length < 20 || token.length > 100) throw errors.notFound('share link');
+  const unknown = () =>
+    new AppError(
+      'not-found',
+      'This share link is not known. Check that the whole address was copied (share links are long), or ask the QA manager who sent it for a new one.',
+    );
+  if (!token || token.length < 20 || token.length > 100) throw unknown();
   const db = getDb();
   const link = await findShareLinkByHash(db, hashToken(token));
-  if (!link) throw errors.notFound('share link');
+  if (!link) throw unknown();
   if (link.revokedAt)
     throw new AppError('link-gone', 'This link has been revoked. Ask the QA manager who sent it for a new one.');
   if (link.expiresAt.getTime() <= Date.now())

@@ -1,11 +1,47 @@
 // Headless Debian Chromium through playwright-core, with the launch flags this machine needs,
 // a screenshot of every screen a journey visits, and a record of console errors and failed requests.
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
-import { mkdirSync, mkdtempSync, rmSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { createRequire } from 'node:module';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 
 export const SCREENSHOT_DIR = path.resolve('tests/e2e/screenshots');
+
+/** axe-core's browser build, evaluated in each page (through the DevTools protocol, so the CSP that forbids inline script does not apply to it). */
+const AXE_SOURCE = readFileSync(createRequire(import.meta.url).resolve('axe-core/axe.min.js'), 'utf8');
+
+interface AxeViolation {
+  id: string;
+  impact: string | null;
+  help: string;
+  nodes: { target: unknown[] }[];
+}
+
+/**
+ * Run axe-core on the page as it is now (WCAG 2.1 A and AA rules) and describe every serious or
+ * critical violation: rule, what it asks, and the first elements it found.
+ */
+export async function findAccessibilityProblems(page: Page, where: string): Promise<string[]> {
+  await page.evaluate(AXE_SOURCE);
+  const violations = await page.evaluate(async () => {
+    const axe = (window as unknown as { axe: { run: (c: unknown, o: unknown) => Promise<{ violations: unknown[] }> } })
+      .axe;
+    const r = await axe.run(document, {
+      runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa'] },
+    });
+    return r.violations;
+  });
+  return (violations as AxeViolation[])
+    .filter((v) => v.impact === 'serious' || v.impact === 'critical')
+    .map(
+      (v) =>
+        `axe ${v.impact} on ${where}: ${v.id} — ${v.help} (${v.nodes
+          .slice(0, 3)
+          .map((n) => JSON.stringify(n.target))
+          .join(', ')})`,
+    );
+}
 
 export interface Session {
   context: BrowserContext;
@@ -62,6 +98,8 @@ export async function openBrowser(journey: string, baseUrl: string): Promise<Ses
         path: path.join(SCREENSHOT_DIR, `${journey}-${String(n).padStart(2, '0')}-${name}.png`),
         fullPage: true,
       });
+      // every screen a journey shows is also checked for serious and critical accessibility faults
+      problems.push(...(await findAccessibilityProblems(page, `${journey} ${name}`)));
     },
     close: async () => {
       await context.close();

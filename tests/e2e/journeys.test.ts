@@ -38,6 +38,12 @@ const plan = {
 };
 const planFile = path.join(files, 'e2e-plan.json');
 writeFileSync(planFile, JSON.stringify(plan, null, 2));
+// the same plan with a uniaxial gauge that lists two channels: the editor must name the gauge
+const badPlanFile = path.join(files, 'e2e-plan-two-channels.json');
+writeFileSync(
+  badPlanFile,
+  JSON.stringify({ ...plan, gauges: plan.gauges.map((g) => (g.id === 'A1' ? { ...g, channels: ['SG2', 'SG4'] } : g)) }),
+);
 const logFile = path.join(files, 'e2e-hydrotest.csv');
 writeFileSync(
   logFile,
@@ -86,6 +92,11 @@ describe('a hydrotest from plan to inspector link, in the browser', () => {
     await s.shoot('dashboard');
     await page.getByRole('link', { name: 'New test' }).click();
     await page.waitForURL('**/tests/new');
+    // a plan problem names the gauge by its id and says what is wrong, with no developer path
+    await page.locator('#plan-import').setInputFiles(badPlanFile);
+    await page.getByRole('link', { name: 'Gauge A1 is uniaxial and needs one channel; it lists two.' }).waitFor();
+    expect(await page.getByText(/gauges\[\d\]/).count()).toBe(0);
+    await s.shoot('new-test-plan-error-names-gauge');
     await page.locator('#plan-import').setInputFiles(planFile);
     await page.getByLabel('Test name').fill('E2E hydrotest of vessel E2E-7');
     await s.shoot('new-test-imported');
@@ -141,7 +152,7 @@ describe('a hydrotest from plan to inspector link, in the browser', () => {
     await page.getByRole('button', { name: 'Reduce all logs' }).click();
     await page.getByRole('progressbar', { name: /Reduction \d+ progress/ }).waitFor();
     await page.getByText(/Reduction \d+: done/).waitFor({ timeout: 60_000 });
-    await page.getByText(/Verdict before dispositions: flagged/).waitFor();
+    await page.getByText(/Strain comparison before dispositions: Flagged/).waitFor();
     await s.shoot('reduction-done');
     noProblems(s);
   });
@@ -153,6 +164,16 @@ describe('a hydrotest from plan to inspector link, in the browser', () => {
     await page.goto(`/tests/${testId}/review`);
     await page.getByText('Measured over predicted slope').waitFor();
     await expect.poll(async () => page.locator('canvas').count()).toBeGreaterThanOrEqual(2);
+    // the verdict says what it means and what it does not
+    await page
+      .getByText('Flagged: gauges outside tolerance, awaiting a disposition, or marked for retest.')
+      .first()
+      .waitFor();
+    await page
+      .getByTestId('verdict-scope')
+      .getByText(/It is not acceptance of the hydrostatic test/)
+      .waitFor();
+    await page.getByText(/1 gauge outside tolerance awaits a disposition before the review can be signed/).waitFor();
     await s.shoot('review-flagged');
     await page
       .getByRole('button', { name: 'Sign engineering review' })
@@ -167,7 +188,11 @@ describe('a hydrotest from plan to inspector link, in the browser', () => {
       .fill('Bond of A2 inspected: edge lifted; axial strain taken from A1 and the rosette-free mirror gauge.');
     await page.getByRole('radio', { name: /Exclude/ }).check();
     await page.getByRole('button', { name: /Record disposition/ }).click();
-    await page.getByText('Verdict: Conforms', { exact: false }).waitFor();
+    await page.getByText('Strain comparison verdict: Conforms').waitFor();
+    await page
+      .getByText(/^Conforms: the measured strain slopes agree with the elastic prediction/)
+      .first()
+      .waitFor();
     await s.shoot('review-dispositioned');
     await page.getByRole('button', { name: 'Sign engineering review' }).click();
     // the statement is shown before signing, and the password is asked again
@@ -193,13 +218,36 @@ describe('a hydrotest from plan to inspector link, in the browser', () => {
     const { page } = s;
     await signIn(page, 'qa@example.com', password());
     await s.shoot('dashboard-needs-qa');
+    // a link made before the release shows the inspector an unmistakable DRAFT banner
+    await page.goto(`/tests/${testId}/report`);
+    await page.getByRole('button', { name: 'Create link' }).click();
+    await page.getByLabel('Share link').waitFor();
+    const draftUrl = await page.getByLabel('Share link').inputValue();
+    const early = await session('4b-inspector-before-release');
+    await early.page.goto(new URL(draftUrl).pathname);
+    await early.page
+      .getByTestId('draft-banner')
+      .getByText(/DRAFT — NOT RELEASED/)
+      .waitFor();
+    await early.page.getByText('Strain comparison verdict: Conforms').waitFor();
+    await early.shoot('shared-draft');
+    noProblems(early);
     await page.goto(`/tests/${testId}/review`);
-    await page.getByRole('button', { name: 'Release and lock' }).click();
-    await page.getByText(/I, Quentin Abara \(demo\), release reduction \d+/).waitFor();
+    await page.getByRole('button', { name: 'Release the strain record' }).click();
+    await page.getByText(/I, Quentin Abara \(demo\), release the strain record of reduction \d+/).waitFor();
+    // the confirmation restates the verdict and says who returns the vessel to service
+    await page
+      .getByTestId('signature-verdict')
+      .getByText(/You are signing the strain comparison verdict Conforms/)
+      .waitFor();
+    await page
+      .getByTestId('release-scope')
+      .getByText(/Returning the vessel to service is the owner’s and the authorised inspector’s decision/)
+      .waitFor();
     await s.shoot('release-confirm');
     await page.getByLabel('Your password').fill(password());
-    await page.getByRole('button', { name: 'Release now' }).click();
-    await page.getByText(/Released.*the record is locked/).waitFor();
+    await page.getByRole('button', { name: 'Release the record now' }).click();
+    await page.getByText(/Strain record released.*the\s+record is locked/).waitFor();
     await s.shoot('released');
     await page.goto(`/tests/${testId}/report`);
     await s.shoot('report');

@@ -81,7 +81,11 @@ export default function MaterialSection() {
           path={['material', 'elasticModulus']}
           label="Elastic modulus E"
           unit={stress}
-          hint={units === 'US' ? 'In psi: 29.5 Msi = 29500000' : 'In MPa: 203 GPa = 203000'}
+          hint={
+            units === 'US'
+              ? 'In psi: carbon steel about 29 Msi = 29000000'
+              : 'In MPa: carbon steel about 200 GPa = 200000'
+          }
         />
         <PlanNumberField path={['material', 'poissonRatio']} label="Poisson's ratio ν" hint="Steel about 0.30" />
         <PlanNumberField

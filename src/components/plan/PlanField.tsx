@@ -2,7 +2,7 @@
 // input with aria-invalid and aria-describedby.
 import type { ReactNode } from 'react';
 import NumberInput from './NumberInput';
-import type { PlanPath } from './plan-draft';
+import { cleanFloat, type NumberValue, type PlanPath } from './plan-draft';
 import { usePlanEditor, usePlanField } from './plan-editor-context';
 
 interface BaseProps {
@@ -59,16 +59,23 @@ export function PlanNumberField({
   className,
   inputClassName,
   placeholder,
-}: BaseProps & { placeholder?: string }) {
+  percent = false,
+}: BaseProps & {
+  placeholder?: string;
+  /** the plan stores a fraction (0.05); the person types and reads percent (5) */
+  percent?: boolean;
+}) {
   const f = usePlanField(path);
   const hintId = hint ? `${f.id}-hint` : undefined;
+  const shown = percent && typeof f.value === 'number' ? cleanFloat(f.value * 100) : f.value;
+  const store = (v: NumberValue) => f.set(percent && typeof v === 'number' ? cleanFloat(v / 100) : v);
   return (
     <div className={className}>
       <FieldLabel id={f.id} label={label} unit={unit} hideLabel={hideLabel} />
       <NumberInput
         id={f.id}
-        value={f.value}
-        onValue={f.set}
+        value={shown}
+        onValue={store}
         onBlur={f.touch}
         disabled={f.readOnly}
         placeholder={placeholder}

@@ -93,8 +93,9 @@ export default function PlanGaugeRow({ index: i, lengthUnit, onRemove }: Props) 
       <td className={`${cell} w-20`}>
         <PlanNumberField
           path={['gauges', i, 'transverseSensitivity']}
-          label={`${who} transverse sensitivity`}
-          unit="fraction"
+          label={`${who} transverse sensitivity Kt`}
+          unit="%"
+          percent
           hideLabel
           placeholder="0"
           inputClassName="px-2!"

@@ -49,8 +49,9 @@ export default function PlanGaugeTable() {
       intro={
         <>
           Angle from the vessel axis: 0° axial, 90° hoop; for a rosette, the direction of grid A. A gauge closer than
-          the edge zone 2.5·√(r t) = <strong className="num">{edge}</strong> to a discontinuity is reported but not
-          compared. Give the distance, or the axial position (and clock) to measure it from the features.
+          the edge zone 2.5·√(r t) (r mean radius, t wall) = <strong className="num">{edge}</strong> to a discontinuity
+          is reported but not compared. Give the distance, or the axial position (and clock) to measure it from the
+          features.
         </>
       }
       actions={

@@ -26,7 +26,7 @@ const PlanIssueSummary = forwardRef<HTMLDivElement, Props>(function PlanIssueSum
       aria-labelledby="plan-issues-h"
       className="rounded-md border-2 border-flag bg-white p-4"
     >
-      <h2 id="plan-issues-h" className="font-semibold text-flag">
+      <h2 id="plan-issues-h" className="font-semibold text-flag-ink">
         {count} problem{count > 1 ? 's' : ''} to fix before this plan can be saved
       </h2>
       <ul className="mt-2 list-disc space-y-0.5 pl-5 text-sm">
@@ -38,18 +38,23 @@ const PlanIssueSummary = forwardRef<HTMLDivElement, Props>(function PlanIssueSum
             : {nameError}
           </li>
         )}
-        {issues.map((i, k) => (
-          <li key={k}>
-            {i.fieldId ? (
-              <a href={`#${i.fieldId}`} className="font-medium underline" onClick={(e) => focusField(e, i.fieldId!)}>
-                {i.label}
-              </a>
-            ) : (
-              <span className="font-medium">{i.label}</span>
-            )}
-            : {i.message} <span className="font-mono text-xs text-ink-700">({i.path})</span>
-          </li>
-        ))}
+        {issues.map((i, k) => {
+          // a message that names its gauge is a whole sentence; others follow the field's label
+          const whole = /^Gauge /.test(i.message);
+          const lead = whole ? i.message : i.label;
+          return (
+            <li key={k} title={`plan field ${i.path}`}>
+              {i.fieldId ? (
+                <a href={`#${i.fieldId}`} className="font-medium underline" onClick={(e) => focusField(e, i.fieldId!)}>
+                  {lead}
+                </a>
+              ) : (
+                <span className="font-medium">{lead}</span>
+              )}
+              {!whole && `: ${i.message}`}
+            </li>
+          );
+        })}
       </ul>
     </div>
   );

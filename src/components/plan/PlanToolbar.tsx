@@ -32,7 +32,7 @@ export default function PlanToolbar({
   onSave,
 }: Props) {
   const fileRef = useRef<HTMLInputElement>(null);
-  const tone = status?.kind === 'error' ? 'text-flag' : status?.kind === 'ok' ? 'text-ok' : 'text-ink-700';
+  const tone = status?.kind === 'error' ? 'text-flag-ink' : status?.kind === 'ok' ? 'text-ok' : 'text-ink-700';
   return (
     <div className="flex flex-wrap items-center gap-x-6 gap-y-3 card py-3!">
       <UnitSystemToggle

@@ -15,7 +15,9 @@ const SURFACE = { inner: 'bore', outer: 'outer surface', 'mid-wall': 'mid-wall' 
 
 /** Both models side by side at the outer surface: strain per unit pressure, and stresses, dimension changes and yield at test pressure. */
 export default function ShellPreviewTable() {
-  const { preview, units } = usePlanEditor();
+  const { preview, units, plan } = usePlanEditor();
+  const tolerances = plan.tolerances as { yieldFraction?: unknown } | undefined;
+  const yieldLimit = typeof tolerances?.yieldFraction === 'number' ? tolerances.yieldFraction : 0.9;
   const u = getUnitLabels(units);
   if (!preview)
     return (
@@ -25,6 +27,7 @@ export default function ShellPreviewTable() {
       </p>
     );
   const { lame, membrane } = preview.predicted;
+  const usedFraction = preview.predicted[preview.model].yieldCheck.fraction;
   const lenDigits = units === 'US' ? 5 : 3;
   const sig = (v: number) => formatSignificant(v, 4);
   const stress = (v: number) => formatFixed(v, units === 'US' ? 0 : 1);
@@ -50,7 +53,7 @@ export default function ShellPreviewTable() {
     { key: 'vm', label: 'Largest stress (von Mises)', unit: u.stress, get: (m) => m.yieldCheck.stress, show: stress },
     {
       key: 'yf',
-      label: 'Fraction of yield',
+      label: 'Largest stress / yield',
       unit: '%',
       get: (m) => m.yieldCheck.fraction,
       show: (v) => formatFixed(v * 100, 1),
@@ -100,6 +103,17 @@ export default function ShellPreviewTable() {
           ))}
         </tbody>
       </table>
+      {usedFraction >= yieldLimit && (
+        <p
+          role="alert"
+          className="rounded-md border-2 border-flag bg-white px-3 py-2 text-sm font-semibold text-ink-950"
+        >
+          ⚠ Near yield at the planned test pressure: the largest stress in the wall is{' '}
+          {formatFixed(usedFraction * 100, 1)} % of yield (limit {formatFixed(yieldLimit * 100, 0)} %). Review the test
+          pressure, the wall and the material with the responsible engineer before the test; the code and the written
+          procedure decide the pressure.
+        </p>
+      )}
       <p className="text-xs text-ink-700">
         The largest stress sits at the {SURFACE[lame.yieldCheck.surface]} under Lamé and at mid-wall in the membrane
         model; near yield is flagged from {preview.model === 'lame' ? 'Lamé' : 'the membrane value'}.

@@ -1,15 +1,17 @@
-import { useState } from 'react';
+import { useMemo, useState } from 'react';
 import { planPressureUnit } from '../../lib/reduction/browser';
 import { TEST_PRESSURE_RULES, type TestPressureRuleId } from '../../lib/test-pressure';
 import TestPressureHelper from '../review/TestPressureHelper';
 import { PlanNumberField, PlanSelectField, PlanTextField } from './PlanField';
 import PlanSection from './PlanSection';
 import { cleanFloat } from './plan-draft';
+import { buildPlanPreview } from './plan-preview';
+import { MODEL_NAME } from '../../lib/verdict-words';
 import { usePlanEditor } from './plan-editor-context';
 
 const MODELS = [
-  { value: 'lame', label: 'Lamé thick wall, outer surface (default)' },
-  { value: 'membrane', label: 'Membrane, mean radius (hand calculation)' },
+  { value: 'lame', label: `${MODEL_NAME.lame} (default)` },
+  { value: 'membrane', label: `${MODEL_NAME.membrane} (hand calculation)` },
 ];
 
 /** Model, test pressure (with the code-rule helper beside it) and the log's pressure and time columns. */
@@ -19,6 +21,14 @@ export default function TestConditionsSection() {
   const [rule, setRule] = useState<{ id: TestPressureRuleId; value: number } | null>(null);
   const ruleLabel = rule && TEST_PRESSURE_RULES.find((r) => r.id === rule.id)?.label;
   const ruleStillUsed = rule && plan.testPressure === rule.value;
+  // the engine's yield check for the plan as typed; stress is linear in pressure, so it scales
+  const preview = useMemo(() => buildPlanPreview(plan), [plan]);
+  const tolerances = plan.tolerances as { yieldFraction?: unknown } | undefined;
+  const yieldLimit = typeof tolerances?.yieldFraction === 'number' ? tolerances.yieldFraction : 0.9;
+  const yieldFractionAt = (p: number) =>
+    preview && preview.testPressure > 0
+      ? (preview.predicted[preview.model].yieldCheck.fraction * p) / preview.testPressure
+      : null;
   return (
     <div className="grid gap-5 2xl:grid-cols-2">
       <PlanSection id="plan-conditions" title="Model, test pressure and log columns">
@@ -63,6 +73,8 @@ export default function TestConditionsSection() {
         <TestPressureHelper
           key={units}
           pressureUnit={pressure}
+          yieldFractionAt={yieldFractionAt}
+          yieldLimit={yieldLimit}
           onPick={(value, id) => {
             const v = cleanFloat(value);
             setRule({ id, value: v });

@@ -24,7 +24,7 @@ export default function UncertaintySection() {
       ? `${formatPercent(share, 1)} of nominal = ${formatFixed(v * share, units === 'US' ? 4 : 3)} ${len}`
       : `${formatPercent(share, 1)} of nominal`;
   const D = UNCERTAINTY_DEFAULTS;
-  const fields: { key: string; label: string; unit: string; assumed: string }[] = [
+  const fields: { key: string; label: string; unit: string; assumed: string; percent?: boolean }[] = [
     {
       key: 'wallThickness',
       label: 'Uncertainty of the wall thickness',
@@ -40,21 +40,24 @@ export default function UncertaintySection() {
     {
       key: 'elasticModulus',
       label: 'Uncertainty of the elastic modulus',
-      unit: 'fraction',
-      assumed: `${D.elasticModulus} (${formatPercent(D.elasticModulus, 0)})`,
+      unit: '% of E',
+      assumed: formatPercent(D.elasticModulus, 0),
+      percent: true,
     },
     { key: 'poissonRatio', label: "Uncertainty of Poisson's ratio", unit: 'absolute', assumed: String(D.poissonRatio) },
     {
       key: 'gaugeFactor',
       label: 'Uncertainty of the gauge factor',
-      unit: 'fraction',
-      assumed: `${D.gaugeFactor} (${formatPercent(D.gaugeFactor, 1)})`,
+      unit: '% of the gauge factor',
+      assumed: formatPercent(D.gaugeFactor, 1),
+      percent: true,
     },
     {
       key: 'transverseSensitivity',
-      label: 'Uncertainty of Kt',
-      unit: 'absolute',
-      assumed: String(D.transverseSensitivity),
+      label: 'Uncertainty of the transverse sensitivity Kt',
+      unit: 'percentage points',
+      assumed: `${formatPercent(D.transverseSensitivity, 1)} (points)`,
+      percent: true,
     },
     { key: 'misalignmentDeg', label: 'Gauge misalignment', unit: 'degrees', assumed: `${D.misalignmentDeg}°` },
   ];
@@ -72,12 +75,13 @@ export default function UncertaintySection() {
             label={f.label}
             unit={f.unit}
             placeholder="assumed"
+            percent={f.percent}
             hint={<>Assumed when empty: {f.assumed}</>}
           />
         ))}
         <PlanSelectField
           path={['tolerances', 'bandMode']}
-          label="Band used for outside-band"
+          label="Band used for “outside tolerance”"
           options={BAND_MODES}
           defaultValue="fixed"
           hint="From the uncertainties, a gauge is outside band when measured and predicted differ by more than both uncertainties together."

@@ -61,7 +61,7 @@ export default function VesselSection() {
       <dl className="mt-4 grid grid-cols-2 gap-x-4 gap-y-1 rounded-md bg-ink-50 px-3 py-2 text-sm">
         <dt className="text-ink-700">Inside radius / thickness</dt>
         <dd className="num font-medium">{ratio ? formatFixed(ratio, 1) : '—'}</dd>
-        <dt className="text-ink-700">Edge zone 2.5·√(r t)</dt>
+        <dt className="text-ink-700">Edge zone 2.5·√(r t), r mean radius</dt>
         <dd className="num font-medium">
           {preview ? `${formatFixed(preview.predicted.edgeZoneDistance, units === 'US' ? 2 : 0)} ${len}` : '—'}
         </dd>

@@ -33,7 +33,7 @@ export function createBlankPlan(): PlanDraft {
   return {
     units: 'SI',
     vessel: { shape: 'cylinder', ends: 'closed', features: [] },
-    material: { name: 'Carbon steel, generic', elasticModulus: 203000, poissonRatio: 0.3, yieldStrength: 260 },
+    material: { name: 'Carbon steel, generic', elasticModulus: 200000, poissonRatio: 0.3, yieldStrength: 260 },
     model: 'lame',
     columns: { time: 'time_s', pressure: 'P [MPa]' },
     tolerances: { ...TOLERANCE_DEFAULTS },

@@ -88,8 +88,10 @@ describe('resolveFieldId', () => {
 
 describe('labelForPath', () => {
   it.each([
-    ['gauges[1].channels[2]', 'Gauge 2 (R1) channel C'],
-    ['gauges[0].angleDeg', 'Gauge 1 (H1) angle'],
+    ['gauges[1].channels[2]', 'Gauge R1, channel of grid C'],
+    ['gauges[0].angleDeg', 'Gauge H1, angle'],
+    ['columns.pressure', 'Pressure column'],
+    ['uncertainty.gaugeFactor', 'Uncertainty of the gauge factor'],
     ['vessel.wallThickness', 'Vessel wall thickness'],
     ['vessel.features[0].axialPosition', 'Feature 1 axial position'],
     ['tolerances.minRSquared', 'Tolerances minimum R²'],

@@ -2,6 +2,7 @@
 // (`gauges[2].channels[1]`) maps to the id of the input that edits it, or to the nearest section
 // that holds it. Pure; used by the editor and its tests.
 import type { PlanDraft, PlanPath } from './plan-draft';
+import { labelForPath } from '../../lib/reduction/plan-words';
 
 export interface PlanIssue {
   path: string;
@@ -102,70 +103,7 @@ export function resolveFieldId(path: PlanPath, ids: Set<string>): string | null 
   return null;
 }
 
-const WORDS: Record<string, string> = {
-  units: 'Units',
-  model: 'Model',
-  testPressure: 'Test pressure',
-  gauges: 'Gauges',
-  vessel: 'Vessel',
-  material: 'Material',
-  columns: 'Log columns',
-  tolerances: 'Tolerances',
-  uncertainty: 'Uncertainty of',
-  holdDetection: 'Hold detection',
-  features: 'Features',
-  name: 'name',
-  shape: 'shape',
-  ends: 'ends',
-  insideDiameter: 'inside diameter',
-  wallThickness: 'wall thickness',
-  length: 'length',
-  elasticModulus: 'elastic modulus',
-  poissonRatio: "Poisson's ratio",
-  yieldStrength: 'yield strength',
-  pressure: 'pressure column',
-  time: 'time column',
-  slopeBand: 'slope band',
-  minRSquared: 'minimum R²',
-  hysteresis: 'hysteresis limit',
-  zeroShiftMicrostrain: 'zero shift (µε)',
-  zeroShiftFraction: 'zero shift (fraction of peak)',
-  noResponseMicrostrain: 'no-response floor',
-  yieldFraction: 'near-yield fraction',
-  holdCreepMicrostrain: 'hold creep (µε)',
-  holdCreepFraction: 'hold creep (fraction of peak)',
-  principalDirectionDeg: 'principal direction limit',
-  bandMode: 'band mode',
-  misalignmentDeg: 'gauge misalignment',
-  id: 'id',
-  kind: 'kind',
-  channels: 'channels',
-  angleDeg: 'angle',
-  gaugeFactor: 'gauge factor',
-  instrumentGaugeFactor: 'instrument gauge factor',
-  transverseSensitivity: 'transverse sensitivity',
-  distanceToDiscontinuity: 'distance to discontinuity',
-  axialPosition: 'axial position',
-  clockDeg: 'clock position',
-  size: 'size',
-};
-
-/** A path in words for the summary: `gauges[1].channels[2]` → "Gauge 2 (R1) channel C". */
-export function labelForPath(path: PlanPath, plan: PlanDraft): string {
-  if (path.length === 0) return 'Plan';
-  const [head, ...rest] = path;
-  if (head === 'gauges' && typeof rest[0] === 'number') {
-    const g = list(plan.gauges)[rest[0]] as { id?: unknown } | undefined;
-    const who = `Gauge ${rest[0] + 1}${typeof g?.id === 'string' && g.id ? ` (${g.id})` : ''}`;
-    if (rest[1] === 'channels' && typeof rest[2] === 'number') return `${who} channel ${'ABC'[rest[2]] ?? rest[2] + 1}`;
-    return rest.length > 1 ? `${who} ${WORDS[String(rest[1])] ?? rest[1]}` : who;
-  }
-  if (head === 'vessel' && rest[0] === 'features' && typeof rest[1] === 'number') {
-    return `Feature ${rest[1] + 1}${rest[2] !== undefined ? ' ' + (WORDS[String(rest[2])] ?? rest[2]) : ''}`;
-  }
-  const words = path.map((p) => (typeof p === 'number' ? String(p + 1) : (WORDS[p] ?? p)));
-  return words.join(' ').replace(/^./, (c) => c.toUpperCase());
-}
+export { labelForPath };
 
 /** Every issue with the field that shows it and a label; and the messages per field id. */
 export function placeIssues(

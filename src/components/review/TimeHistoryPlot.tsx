@@ -1,11 +1,11 @@
 import 'uplot/dist/uPlot.min.css';
-import { useCallback, useEffect, useId, useMemo, useRef, useState } from 'react';
+import { useCallback, useEffect, useId, useMemo, useRef, useState, type KeyboardEvent } from 'react';
 import { decodeSeries, type DecodedSeries, type EncodedSeries } from '../../lib/series-encoding';
 import { formatFixed, type PressureUnit } from '../../lib/ui-format';
 import { api } from '../api';
 import { LegendSwatch } from './ChartLegend';
 import { CHART_COLORS } from './outcome-style';
-import { buildSeriesUrl, buildTimeHistoryData, scaleWindow } from './series-data';
+import { buildSeriesUrl, buildTimeHistoryData, readAtIndex, scaleWindow } from './series-data';
 import { buildTimeHistoryOptions, channelColor } from './time-history-options';
 import { useUplot } from './use-uplot';
 
@@ -19,6 +19,8 @@ interface Props {
   initialChannels?: string[];
   /** the reduction whose series this is (lets the browser keep the answers) */
   reductionId?: number | null;
+  /** what a person calls each channel: `A1 (CH03)`, `R1/B (CH07)`; the channel name when absent */
+  channelLabels?: Record<string, string>;
 }
 
 type Window = [number, number];
@@ -31,7 +33,10 @@ export default function TimeHistoryPlot({
   pressureUnit,
   initialChannels,
   reductionId = null,
+  channelLabels = {},
 }: Props) {
+  const nameOf = (c: string) => channelLabels[c] ?? c;
+  const [cursor, setCursor] = useState<number | null>(null);
   const chartEl = useRef<HTMLDivElement>(null);
   const groupId = useId();
   const [chosen, setChosen] = useState<string[]>(initialChannels ?? channels.slice(0, 3));
@@ -79,6 +84,7 @@ export default function TimeHistoryPlot({
             pressureUnit,
             timeIsIndex: series.timeIsIndex,
             onSelectWindow,
+            onCursor: setCursor,
           })
         : null,
     [plot, series, channels, pressureUnit, onSelectWindow],
@@ -92,6 +98,22 @@ export default function TimeHistoryPlot({
   const toggle = (c: string) =>
     setChosen((cs) => (cs.includes(c) ? cs.filter((x) => x !== c) : channels.filter((x) => x === c || cs.includes(x))));
   const unit = series?.timeIsIndex ? '' : ' s';
+  const pan = (direction: -1 | 1) => {
+    if (!current || !full) return;
+    const step = ((current[1] - current[0]) / 4) * direction;
+    const lo = Math.max(full[0], Math.min(full[1] - (current[1] - current[0]), current[0] + step));
+    setView([lo, lo + (current[1] - current[0])]);
+  };
+  const onKey = (e: KeyboardEvent) => {
+    if (e.key === '+' || e.key === '=') zoom(0.5);
+    else if (e.key === '-') zoom(2);
+    else if (e.key === '0' || e.key === 'Home') setView(null);
+    else if (e.key === 'ArrowLeft') pan(-1);
+    else if (e.key === 'ArrowRight') pan(1);
+    else return;
+    e.preventDefault();
+  };
+  const reading = plot && cursor !== null ? readAtIndex(plot.data, plot.specs, cursor) : null;
 
   return (
     <div className="space-y-3">
@@ -107,7 +129,7 @@ export default function TimeHistoryPlot({
         </button>
         <span className="num text-sm text-ink-700" aria-live="polite">
           {current &&
-            `Showing ${formatFixed(current[0], 0)}–${formatFixed(current[1], 0)}${unit}${view ? ' (zoomed) · ' : ' · '}drag across the chart to zoom`}
+            `Showing ${formatFixed(current[0], 0)}–${formatFixed(current[1], 0)}${unit}${view ? ' (zoomed) · ' : ' · '}drag across the chart, or focus it and use + − ← →, to zoom`}
         </span>
       </div>
       {error && (
@@ -124,10 +146,24 @@ export default function TimeHistoryPlot({
         <div
           ref={chartEl}
           role="img"
-          aria-label={`Pressure and ${chosen.length} strain channels over time`}
-          className="w-full min-w-0"
+          tabIndex={0}
+          onKeyDown={onKey}
+          aria-label={`Pressure and strain of ${chosen.map(nameOf).join(', ') || 'no channel'} over time. Keys: plus and minus zoom, left and right arrows move, 0 resets.`}
+          className="w-full min-w-0 rounded focus-visible:outline-3 focus-visible:outline-brass-500"
           data-testid="time-history-chart"
         />
+        <p className="num mt-1 min-h-5 text-sm text-ink-800" data-testid="time-history-readout">
+          {reading && reading.t !== null
+            ? [
+                `${series?.timeIsIndex ? 'sample' : 't ='} ${formatFixed(reading.t, 1)}${unit}`,
+                ...reading.values.map((v) =>
+                  v.channel === 'pressure'
+                    ? `pressure ${v.value === null ? '—' : formatFixed(v.value, 3)} ${pressureUnit}`
+                    : `${nameOf(v.channel)} ${v.value === null ? '—' : formatFixed(v.value, 1)} µε`,
+                ),
+              ].join(' · ')
+            : 'Point at the chart to read time, pressure and strain.'}
+        </p>
         {loading && (
           <p
             role="status"
@@ -155,7 +191,7 @@ export default function TimeHistoryPlot({
               onChange={() => toggle(c)}
             />
             <LegendSwatch kind="line" color={channelColor(channels, c)} />
-            {c}
+            {nameOf(c)}
           </label>
         ))}
       </fieldset>

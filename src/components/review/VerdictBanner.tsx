@@ -1,23 +1,17 @@
 import type { TestVerdict } from '../../lib/reduction/types';
+import { VERDICT_MEANING, VERDICT_SCOPE, verdictStanding, type VerdictCounts } from '../../lib/verdict-words';
 import { VERDICT_LOOK } from './outcome-style';
 
 interface Props {
   verdict: TestVerdict;
-  /** flagged gauges that no engineer has dispositioned yet */
-  undisposedFlaggedCount: number;
+  /** flagged gauges awaiting a disposition, and flagged gauges marked for retest */
+  counts: VerdictCounts;
 }
 
-const EXPLAIN: Record<TestVerdict, string> = {
-  conforms: 'Every compared gauge is in band or has a disposition.',
-  flagged: 'Some gauges are outside the acceptance limits; each needs a disposition before the review can be signed.',
-  incomplete:
-    'The log has not yet reached the test pressure and come back to zero: the comparison covers what has been logged so far.',
-};
-
-/** The test's verdict with an icon and words, and how many flagged gauges still await a disposition. */
-export default function VerdictBanner({ verdict, undisposedFlaggedCount }: Props) {
+/** The test's verdict with an icon and words, what it does not mean, and what still awaits a disposition. */
+export default function VerdictBanner({ verdict, counts }: Props) {
   const look = VERDICT_LOOK[verdict];
-  const n = undisposedFlaggedCount;
+  const blocking = counts.awaiting > 0;
   return (
     <div
       role="status"
@@ -32,21 +26,24 @@ export default function VerdictBanner({ verdict, undisposedFlaggedCount }: Props
       >
         {look.glyph}
       </span>
-      <div className="min-w-0 flex-1">
-        <p className="text-lg font-bold text-ink-950">Verdict: {look.label}</p>
-        <p className="text-sm text-ink-900">{EXPLAIN[verdict]}</p>
+      <div className="min-w-0 flex-1 space-y-1">
+        <p className="text-lg font-bold text-ink-950">
+          Strain comparison verdict: <span title={`verdict code: ${verdict}`}>{look.label}</span>
+        </p>
+        <p className="text-sm text-ink-900">{VERDICT_MEANING[verdict]}</p>
+        <p className="text-sm text-ink-900" data-testid="verdict-scope">
+          {VERDICT_SCOPE}
+        </p>
       </div>
       <p
-        className={`num rounded-md px-3 py-1.5 text-sm font-semibold ${n > 0 ? 'bg-flag/10 text-ink-950 ring-1 ring-flag' : 'bg-ink-50 text-ink-900'}`}
+        className={`num max-w-sm rounded-md px-3 py-1.5 text-sm font-semibold ${blocking ? 'bg-flag/10 text-ink-950 ring-1 ring-flag' : 'bg-ink-50 text-ink-900'}`}
       >
-        {n > 0 && (
-          <span aria-hidden="true" className="text-flag">
+        {blocking && (
+          <span aria-hidden="true" className="text-flag-ink">
             ▲{' '}
           </span>
         )}
-        {n === 0
-          ? 'No flagged gauge awaits a disposition'
-          : `${n} flagged ${n === 1 ? 'gauge awaits' : 'gauges await'} a disposition`}
+        {verdictStanding(verdict, counts)}
       </p>
     </div>
   );

@@ -21,7 +21,7 @@ export default function YieldBar({
     <div>
       <div className="flex flex-wrap items-baseline justify-between gap-x-3 text-sm">
         <span className="font-medium text-ink-900">{label}</span>
-        <span className={`num font-semibold ${near ? 'text-flag' : 'text-ink-900'}`}>
+        <span className={`num font-semibold ${near ? 'text-flag-ink' : 'text-ink-900'}`}>
           {near && '⚠ '}
           {formatPercent(fraction, 0)}
           {near ? ' — near yield' : ''}

@@ -1,6 +1,7 @@
 // Plain-language meaning of each flag code (DESIGN 3.3), what usually causes it, and what to do
 // next. Shown as chip tooltips and in the glossary beside the review. Pure data.
 import type { FlagCode } from '../../lib/reduction/types';
+import { NEAR_YIELD_ADVICE } from '../../lib/verdict-words';
 
 export interface FlagExplanation {
   code: FlagCode;
@@ -108,7 +109,7 @@ export const FLAG_GLOSSARY: Record<FlagCode, FlagExplanation> = {
     code: 'edge-zone',
     title: 'Edge zone',
     meaning:
-      'The gauge is closer to a head seam, nozzle, support or thickness change than 2.5·√(r t). There the shell bends, and the membrane prediction does not describe it, so the gauge is reported but not compared.',
+      'The gauge is closer to a head seam, nozzle, support or thickness change than 2.5·√(r t) (r the mean radius, t the wall thickness). There the shell bends, and the membrane prediction does not describe it, so the gauge is reported but not compared.',
     causes: [
       'the gauge was placed there on purpose to watch a discontinuity',
       'a position in the plan that is not the one on the vessel',
@@ -124,7 +125,7 @@ export const FLAG_GLOSSARY: Record<FlagCode, FlagExplanation> = {
       'a wall thinner than assumed',
       'a yield strength in the plan lower than the certificate',
     ],
-    next: 'Stop raising the pressure and consult the responsible engineer before going on.',
+    next: NEAR_YIELD_ADVICE,
     safety: true,
   },
   'hold-creep': {

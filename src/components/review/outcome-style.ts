@@ -17,7 +17,7 @@ export interface OutcomeLook {
 
 export const OUTCOME_LOOK: Record<GaugeOutcome, OutcomeLook> = {
   'in-band': { label: 'In band', color: '#0072b2', shape: 'circle', glyph: '●', textClass: 'text-ok' },
-  flagged: { label: 'Flagged', color: '#d55e00', shape: 'triangle', glyph: '▲', textClass: 'text-flag' },
+  flagged: { label: 'Flagged', color: '#d55e00', shape: 'triangle', glyph: '▲', textClass: 'text-flag-ink' },
   excluded: { label: 'Excluded', color: '#6b6b6b', shape: 'cross', glyph: '✕', textClass: 'text-excluded' },
   'not-compared': {
     label: 'Not compared',

@@ -17,6 +17,7 @@ import StrainPressurePlot from './StrainPressurePlot';
 import TestPressureHelper from './TestPressureHelper';
 import TimeHistoryPlot from './TimeHistoryPlot';
 import VerdictBanner from './VerdictBanner';
+import { ChosenPressureCautions } from './TestPressureHelper';
 import YieldCheckCard from './YieldCheckCard';
 import UncertaintyBudgetTable from './UncertaintyBudgetTable';
 import { FIXTURE_CHANNELS, FIXTURE_GAUGES, FIXTURE_PLAN, FIXTURE_RESULT, FIXTURE_ROSETTE } from './fixtures';
@@ -41,9 +42,11 @@ describe('OutcomeBadge and FlagChip', () => {
     expect(t).toContain(glyph);
     expect(t).toContain(word);
   });
-  it('gives a chip the plain explanation as its title', () => {
+  it('shows a chip in words, with the plain explanation and the code in its title', () => {
     const html = renderToString(h(FlagChip, { code: 'reversed-sign' }));
-    expect(html).toContain(`title="${FLAG_GLOSSARY['reversed-sign'].meaning.replace(/'/g, '&#x27;')}"`);
+    const meaning = FLAG_GLOSSARY['reversed-sign'].meaning.replace(/'/g, '&#x27;');
+    expect(html).toContain(`title="${meaning} (flag code: reversed-sign)"`);
+    expect(text(html).trim()).toBe(FLAG_GLOSSARY['reversed-sign'].title);
   });
 });
 
@@ -67,7 +70,8 @@ describe('flag glossary', () => {
       expect(FLAG_GLOSSARY[c].next.length).toBeGreaterThan(10);
     }
     expect(FLAG_GLOSSARY['reversed-sign'].causes.join(' ')).toMatch(/lead wires swapped/);
-    expect(FLAG_GLOSSARY['near-yield'].next).toMatch(/[Ss]top/);
+    expect(FLAG_GLOSSARY['near-yield'].next).toMatch(/During the test: do not raise the pressure further/);
+    expect(FLAG_GLOSSARY['near-yield'].next).toMatch(/After the test/);
     const t = text(renderToString(h(FlagGlossary, {})));
     for (const c of all) expect(t).toContain(c);
   });
@@ -155,7 +159,8 @@ describe('yield check and uncertainty budget', () => {
     expect(t).toContain('von Mises at the bore (inner surface), Lamé thick wall');
     expect(t).toContain('282.9 MPa');
     expect(t).toContain('94.3 % of yield');
-    expect(t).toMatch(/Near yield\. Stop raising the pressure/);
+    expect(t).toMatch(/Near yield\. During the test: do not raise the pressure further/);
+    expect(t).toMatch(/After the test: the responsible engineer assesses the wall/);
     const calm = text(
       renderToString(h(YieldCheckCard, { yieldCheck: FIXTURE_RESULT.yieldCheck, pressureUnit: 'MPa' })),
     );
@@ -194,16 +199,45 @@ describe('rosette, verdict, cautions, test pressure', () => {
     expect(html).toContain('role="meter"');
     expect(t).toContain('near-yield 90 %');
   });
-  it('VerdictBanner counts flagged gauges without a disposition', () => {
-    const t = text(renderToString(h(VerdictBanner, { verdict: FIXTURE_RESULT.verdict, undisposedFlaggedCount: 3 })));
-    expect(t).toContain('Verdict: Flagged');
-    expect(t).toContain('3 flagged gauges await a disposition');
+  it('VerdictBanner counts flagged gauges awaiting a disposition and those marked for retest', () => {
+    const t = text(
+      renderToString(h(VerdictBanner, { verdict: FIXTURE_RESULT.verdict, counts: { awaiting: 3, retest: 1 } })),
+    );
+    expect(t).toContain('Strain comparison verdict: Flagged');
+    expect(t).toContain('Flagged: gauges outside tolerance, awaiting a disposition, or marked for retest.');
+    expect(t).toContain('3 gauges outside tolerance await a disposition before the review can be signed');
+    expect(t).toContain('1 gauge marked for retest keeps the verdict flagged; the review can still be signed');
+  });
+  it('VerdictBanner says a conforming comparison is not acceptance of the hydrotest', () => {
+    const t = text(renderToString(h(VerdictBanner, { verdict: 'conforms', counts: { awaiting: 0, retest: 0 } })));
+    expect(t).toContain('Strain comparison verdict: Conforms');
+    expect(t).toMatch(/not acceptance of the hydrostatic test/);
+    expect(t).toMatch(/leak examination and the authorised inspector’s witness/);
+    expect(t).not.toMatch(/outside the acceptance limits/);
   });
   it('SafetyCaution defers to the code, the engineer and the inspector', () => {
     const t = text(renderToString(h(SafetyCaution, {})));
     expect(t).toMatch(/stores energy/);
     expect(t).toMatch(/governing code/);
     expect(t).toMatch(/does not replace.*responsible engineer and the authorised inspector/);
+  });
+  it('a chosen test pressure is checked against yield and says where it is measured and the metal temperature', () => {
+    const near = text(
+      renderToString(
+        h(ChosenPressureCautions, { pressure: 2.25, fraction: 0.94, limit: 0.9, pressureUnit: 'MPa', digits: 3 }),
+      ),
+    );
+    expect(near).toContain(
+      'Yield check at 2.250 MPa: the largest stress in the wall is 94.0 % of yield (near-yield limit 90 %): near yield',
+    );
+    expect(near).toMatch(/read at the top of the vessel; at the lowest point the water adds its weight/);
+    expect(near).toMatch(/minimum design metal temperature/);
+    const clear = text(
+      renderToString(
+        h(ChosenPressureCautions, { pressure: 1.95, fraction: 0.62, limit: 0.9, pressureUnit: 'MPa', digits: 3 }),
+      ),
+    );
+    expect(clear).not.toMatch(/near yield\./);
   });
   it('TestPressureHelper shows every rule for MAWP 1.5 MPa (REFERENCES.md, Test pressure rules [derived])', () => {
     const t = text(renderToString(h(TestPressureHelper, { pressureUnit: 'MPa', initialMawp: 1.5 })));

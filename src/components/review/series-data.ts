@@ -106,3 +106,23 @@ export function measureExtents(data: uPlot.AlignedData, specs: readonly PlotSeri
     pressureMax: Number.isFinite(pMax) ? pMax : 0,
   };
 }
+
+/** What the cursor reads at one sample: time, pressure and each chosen channel's strain (bucket mean of min and max). */
+export function readAtIndex(
+  data: uPlot.AlignedData,
+  specs: readonly PlotSeriesSpec[],
+  index: number,
+): { t: number | null; values: { channel: string; value: number | null }[] } {
+  const t = (data[0] as (number | null)[])[index] ?? null;
+  const values: { channel: string; value: number | null }[] = [];
+  specs.forEach((s, k) => {
+    if (s.edge !== 'max') return;
+    const hi = (data[k + 1] as (number | null)[])[index];
+    const lo = (data[k + 2] as (number | null)[])[index];
+    values.push({
+      channel: s.channel,
+      value: hi === null || hi === undefined || lo === null || lo === undefined ? null : (hi + lo) / 2,
+    });
+  });
+  return { t, values };
+}

@@ -17,6 +17,8 @@ export function buildTimeHistoryOptions(opts: {
   pressureUnit: string;
   timeIsIndex: boolean;
   onSelectWindow: (t0: number, t1: number) => void;
+  /** the sample under the cursor (null when it leaves the chart), for the read-out */
+  onCursor?: (index: number | null) => void;
 }): ChartOptions {
   const series: uPlot.Series[] = [{}];
   const bands: uPlot.Band[] = [];
@@ -56,6 +58,7 @@ export function buildTimeHistoryOptions(opts: {
     series,
     bands,
     hooks: {
+      setCursor: [(u) => opts.onCursor?.(u.cursor.idx ?? null)],
       setSelect: [
         (u) => {
           const { left, width } = u.select;

@@ -108,7 +108,7 @@ export default function LogList({ logs, expected }: Props) {
                       ✓
                     </span>
                   ) : (
-                    <span className="font-bold text-flag" aria-label="missing">
+                    <span className="font-bold text-flag-ink" aria-label="missing">
                       ✗
                     </span>
                   )}

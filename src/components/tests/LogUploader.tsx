@@ -1,6 +1,7 @@
 import { useRef, useState, type DragEvent } from 'react';
 import ProgressBar from './ProgressBar';
 import { formatBytes, formatSeconds, uploadWithProgress, type UploadProgress } from './upload-progress';
+import { messageForStatus } from '../api';
 
 interface Props {
   testId: number;
@@ -39,7 +40,7 @@ export default function LogUploader({ testId, onUploaded }: Props) {
       } else {
         const e = r.body?.error ?? {};
         setProblem({
-          message: e.message ?? `The server answered ${r.status}.`,
+          message: e.message ?? messageForStatus(r.status),
           missing: e.details?.missingColumns,
           columns: e.details?.columns,
           line: e.details?.line,
@@ -109,7 +110,7 @@ export default function LogUploader({ testId, onUploaded }: Props) {
       )}
       {problem && (
         <div role="alert" className="rounded-md border-l-4 border-flag bg-white p-3 text-sm">
-          <p className="font-semibold text-flag">The log was not stored.</p>
+          <p className="font-semibold text-flag-ink">The log was not stored.</p>
           <p>{problem.message}</p>
           {problem.missing && problem.missing.length > 0 && (
             <p className="mt-1">

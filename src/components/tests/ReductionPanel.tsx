@@ -2,6 +2,7 @@ import { useCallback, useEffect, useRef, useState } from 'react';
 import { api, formatDateTime } from '../api';
 import ProgressBar from './ProgressBar';
 import { announceTestChanged } from './TestStatusSteps';
+import { verdictLabel } from '../../lib/verdict-words';
 
 interface ReductionRow {
   id: number;
@@ -106,8 +107,8 @@ export default function ReductionPanel({ testId, canReduce, hasLogs, refreshKey 
           <ProgressBar value={pct} label={`Reduction ${watching.id} progress`} />
           {watching.status === 'done' && watching.result && (
             <p className="mt-2 text-sm">
-              Verdict before dispositions: <strong>{watching.result.verdict}</strong> · {watching.result.gauges.length}{' '}
-              gauges and grids, {flagged} flagged.{' '}
+              Strain comparison before dispositions: <strong>{verdictLabel(watching.result.verdict)}</strong> ·{' '}
+              {watching.result.gauges.length} gauges and grids, {flagged} flagged.{' '}
               <a className="font-semibold underline" href={`/tests/${testId}/review`}>
                 Open the review
               </a>

@@ -1,5 +1,6 @@
 import { useMemo, useState } from 'react';
 import { formatDateTime } from '../api';
+import { verdictLabel } from '../../lib/verdict-words';
 
 export interface TestListRow {
   id: number;
@@ -14,7 +15,7 @@ type Key = 'name' | 'vesselTag' | 'status' | 'verdict' | 'flaggedCount' | 'lastA
 const STATUS_ORDER = ['draft', 'logging', 'reduced', 'reviewed', 'released'];
 const VERDICT_LOOK: Record<string, { glyph: string; cls: string }> = {
   conforms: { glyph: '●', cls: 'text-ok' },
-  flagged: { glyph: '▲', cls: 'text-flag' },
+  flagged: { glyph: '▲', cls: 'text-flag-ink' },
   incomplete: { glyph: '◐', cls: 'text-ink-700' },
 };
 const COLUMNS: { key: Key; label: string; numeric?: boolean }[] = [
@@ -84,9 +85,12 @@ export default function TestListTable({ rows, caption }: { rows: TestListRow[]; 
             <td>{t.status}</td>
             <td>
               {t.verdict ? (
-                <span className={`font-semibold ${VERDICT_LOOK[t.verdict]?.cls ?? ''}`}>
+                <span
+                  className={`font-semibold ${VERDICT_LOOK[t.verdict]?.cls ?? ''}`}
+                  title={`strain comparison verdict (code: ${t.verdict})`}
+                >
                   <span aria-hidden="true">{VERDICT_LOOK[t.verdict]?.glyph} </span>
-                  {t.verdict}
+                  {verdictLabel(t.verdict)}
                 </span>
               ) : (
                 '—'

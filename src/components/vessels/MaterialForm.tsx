@@ -73,7 +73,7 @@ export default function MaterialForm({ idPrefix, units, onSaved }: Props) {
           value={form.elasticModulus}
           onValue={(v) => setForm({ ...form, elasticModulus: v })}
           error={issues.elasticModulus}
-          hint={units === 'US' ? 'Carbon steel about 29500000 psi' : 'Carbon steel about 203000 MPa'}
+          hint={units === 'US' ? 'Carbon steel about 29000000 psi (29 Msi)' : 'Carbon steel about 200000 MPa (200 GPa)'}
         />
         <FormNumberField
           id={id('poissonRatio')}

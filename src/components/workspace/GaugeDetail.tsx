@@ -6,6 +6,7 @@ import { TRANSVERSE_WORDS } from '../review/budget-words';
 import UncertaintyBudgetTable from '../review/UncertaintyBudgetTable';
 import DispositionForm from './DispositionForm';
 import type { RecordDisposition, RecordGauge } from './record-types';
+import { DISPOSITION_LABEL } from '../../lib/verdict-words';
 
 interface Props {
   gauge: RecordGauge;
@@ -78,7 +79,9 @@ export default function GaugeDetail({
           <dt className="text-ink-700">Effective wall</dt>
           <dd className="num">
             {g.effectiveThickness === null ? '—' : `${fmt(g.effectiveThickness)} ${lengthUnit}`}{' '}
-            <span className="text-ink-700">(nominal {nominalThickness})</span>
+            <span className="text-ink-700">
+              (nominal {nominalThickness} {lengthUnit})
+            </span>
           </dd>
         </div>
         <div>
@@ -131,7 +134,8 @@ export default function GaugeDetail({
       )}
       {disposition && (
         <p className="rounded-md bg-ink-50 p-2 text-sm">
-          <strong>Disposition: {disposition.outcome}</strong> — {disposition.reason}{' '}
+          <strong title={`disposition code: ${disposition.outcome}`}>{DISPOSITION_LABEL[disposition.outcome]}</strong> —{' '}
+          {disposition.reason}{' '}
           <span className="text-ink-700">
             ({disposition.by}, {new Date(disposition.at).toLocaleString('en-GB')})
           </span>

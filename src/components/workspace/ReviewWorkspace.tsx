@@ -8,12 +8,14 @@ import RosetteCard from '../review/RosetteCard';
 import SafetyCaution from '../review/SafetyCaution';
 import TimeHistoryPlot from '../review/TimeHistoryPlot';
 import VerdictBanner from '../review/VerdictBanner';
+import { countVerdictGauges } from '../../lib/verdict-words';
 import YieldCheckCard from '../review/YieldCheckCard';
 import type { FlagCode } from '../../lib/reduction/types';
 import GaugeDetail from './GaugeDetail';
 import SignOffBar from './SignOffBar';
 import { normalizeRecordResult, type RecordView } from './record-types';
 import { can } from '../../lib/roles';
+import { DISPOSITION_LABEL } from '../../lib/verdict-words';
 
 interface Props {
   initial: RecordView;
@@ -64,7 +66,7 @@ export default function ReviewWorkspace({
 
   return (
     <div className="space-y-6">
-      <VerdictBanner verdict={result.verdict} undisposedFlaggedCount={record.openFlags.length} />
+      <VerdictBanner verdict={result.verdict} counts={countVerdictGauges(result.gauges)} />
       <SafetyCaution />
       <YieldCheckCard yieldCheck={result.yieldCheck} pressureUnit={result.pressureUnit} />
       {!readOnly && (
@@ -115,7 +117,9 @@ export default function ReviewWorkspace({
               renderActions={(g) => {
                 const d = dispositionOf(g.id);
                 return d ? (
-                  <span className="text-sm">{d.outcome}</span>
+                  <span className="text-sm" title={`disposition code: ${d.outcome}`}>
+                    {DISPOSITION_LABEL[d.outcome]}
+                  </span>
                 ) : g.outcome === 'flagged' ? (
                   <button type="button" className="btn-secondary" onClick={() => select(g.id)}>
                     {canDisposition ? 'Disposition…' : 'Open'}
@@ -172,6 +176,11 @@ export default function ReviewWorkspace({
           seriesUrl={seriesUrl}
           reductionId={record.reduction?.status === 'done' ? record.reduction.id : null}
           channels={plan.gauges.flatMap((g) => g.channels)}
+          channelLabels={Object.fromEntries(
+            plan.gauges.flatMap((g) =>
+              g.channels.map((c, k) => [c, `${g.kind === 'uniaxial' ? g.id : `${g.id}/${'ABC'[k]}`} (${c})`]),
+            ),
+          )}
           pressureUnit={result.pressureUnit}
         />
       </section>

@@ -25,7 +25,8 @@ export default function SignOffBar({ record, role, userEmail, userName, onChange
   if (!record.result) blockers.push('no finished reduction yet');
   if (record.result?.verdict === 'incomplete')
     blockers.push('the log has not reached test pressure and come back to zero');
-  if (record.openFlags.length) blockers.push(`flagged gauges without disposition: ${record.openFlags.join(', ')}`);
+  if (record.openFlags.length)
+    blockers.push(`gauges outside tolerance awaiting a disposition: ${record.openFlags.join(', ')}`);
   if (status === 'logging') blockers.push('a newer log has not been reduced');
 
   const statement = (kind: 'review' | 'release') =>
@@ -48,12 +49,13 @@ export default function SignOffBar({ record, role, userEmail, userName, onChange
       <div className="min-w-64 flex-1 text-sm">
         {release ? (
           <p>
-            <strong>Released</strong> by {release.name}, {new Date(release.at).toUTCString()} — the record is locked.
+            <strong>Strain record released</strong> by {release.name}, {new Date(release.at).toUTCString()} — the record
+            is locked. Returning the vessel to service is the owner’s and the authorised inspector’s decision.
           </p>
         ) : review ? (
           <p>
             <strong>Reviewed</strong> by {review.name}, {new Date(review.at).toUTCString()} (reduction{' '}
-            {review.reductionId}). Waiting for QA release.
+            {review.reductionId}). Waiting for QA to release the strain record.
           </p>
         ) : blockers.length ? (
           <p>Not ready for review: {blockers.join('; ')}.</p>
@@ -78,7 +80,7 @@ export default function SignOffBar({ record, role, userEmail, userName, onChange
           disabled={review?.email === userEmail}
           onClick={() => setSigning('release')}
         >
-          Release and lock
+          Release the strain record
         </button>
       )}
       {signing && reductionId !== undefined && (
@@ -87,6 +89,7 @@ export default function SignOffBar({ record, role, userEmail, userName, onChange
           testId={record.test.id}
           reductionId={reductionId}
           statement={statement(signing)}
+          verdict={record.result?.verdict ?? null}
           onCancel={() => setSigning(null)}
           onSigned={() => {
             setSigning(null);

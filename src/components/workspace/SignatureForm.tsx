@@ -1,5 +1,6 @@
 import { useState, type SubmitEvent } from 'react';
 import { api } from '../api';
+import { RELEASE_SCOPE, VERDICT_LABEL, VERDICT_MEANING, type VerdictCode } from '../../lib/verdict-words';
 
 interface Props {
   kind: 'review' | 'release';
@@ -7,6 +8,8 @@ interface Props {
   reductionId: number;
   /** the statement the server will store, built by the same function (src/lib/signing.ts) */
   statement: string;
+  /** the verdict being signed, restated above the password */
+  verdict: VerdictCode | null;
   onSigned: () => void;
   onCancel: () => void;
 }
@@ -15,10 +18,10 @@ interface Props {
  * The confirmation before a signature: the statement in full, the signer's password (asked
  * again, so a signature is a deliberate act of this person) and an optional remark.
  */
-export default function SignatureForm({ kind, testId, reductionId, statement, onSigned, onCancel }: Props) {
+export default function SignatureForm({ kind, testId, reductionId, statement, verdict, onSigned, onCancel }: Props) {
   const [error, setError] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
-  const title = kind === 'review' ? 'Sign the engineering review' : 'Release and lock the record';
+  const title = kind === 'review' ? 'Sign the engineering review' : 'Release the strain record and lock it';
 
   async function submit(e: SubmitEvent<HTMLFormElement>) {
     e.preventDefault();
@@ -54,10 +57,19 @@ export default function SignatureForm({ kind, testId, reductionId, statement, on
       <p className="text-sm" data-testid="signature-statement">
         {statement}
       </p>
-      {kind === 'release' && (
-        <p className="text-sm font-semibold">
-          After this nothing about the test can change: every write answers “locked”.
+      {verdict && (
+        <p className="text-sm" data-testid="signature-verdict">
+          <strong>You are signing the strain comparison verdict {VERDICT_LABEL[verdict]}.</strong>{' '}
+          {VERDICT_MEANING[verdict]}
         </p>
+      )}
+      {kind === 'release' && (
+        <div className="space-y-1 text-sm" data-testid="release-scope">
+          <p className="font-semibold">
+            After this nothing about the strain record can change: every write answers “locked”.
+          </p>
+          <p>{RELEASE_SCOPE} This release does not return the vessel to service.</p>
+        </div>
       )}
       <div className="grid gap-3 md:grid-cols-[16rem_1fr]">
         <div>
@@ -87,7 +99,7 @@ export default function SignatureForm({ kind, testId, reductionId, statement, on
       )}
       <div className="flex gap-3">
         <button type="submit" className="btn-primary" disabled={busy}>
-          {busy ? 'Signing…' : kind === 'review' ? 'Sign now' : 'Release now'}
+          {busy ? 'Signing…' : kind === 'review' ? 'Sign now' : 'Release the record now'}
         </button>
         <button type="button" className="btn-secondary" onClick={onCancel} disabled={busy}>
           Cancel

@@ -46,7 +46,7 @@ export function inspectLogHead(plan: Plan, headText: string): LogHeadInfo {
   if (!found)
     throw new InputError(
       'pressure-column-not-found',
-      `no header line holds the pressure column '${plan.columns.pressure}' (plan.columns.pressure) in the first ${lines.length} lines`,
+      `No line in the first ${lines.length} has the pressure column '${plan.columns.pressure}': check the log's header, or change the plan's pressure column`,
       {
         column: plan.columns.pressure,
         line: lines.length,

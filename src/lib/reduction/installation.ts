@@ -134,7 +134,7 @@ export function planGridSetups(plan: Plan, grids: readonly PlannedGrid[], model:
         scales = [scale, pScale];
         correction = 'measured-partner';
         notes.push(
-          `transverse sensitivity Kt ${fmt(kt * 100)} % corrected with the strain measured by the perpendicular gauge ${partner.id} at the same place (TN-509 pair)`,
+          `transverse sensitivity Kt ${fmt(kt * 100)} % corrected with the strain measured by the perpendicular gauge ${partner.id} at the same place (standard correction, calibration ν₀ = 0.285)`,
         );
       } else if (kt !== 0) {
         const along = strainAtAngle(model.axialStrainPerPressure, model.hoopStrainPerPressure, g.angleDeg);
@@ -144,7 +144,7 @@ export function planGridSetups(plan: Plan, grids: readonly PlannedGrid[], model:
         scales = [scale];
         correction = 'model-ratio';
         notes.push(
-          `transverse sensitivity Kt ${fmt(kt * 100)} % corrected with the ${plan.model} model's predicted transverse/along strain ratio ${fmt(ratio, 4)} (factor ${fmt(uniaxialTransverseFactor(kt, ratio), 5)}); no perpendicular gauge at the same place`,
+          `transverse sensitivity Kt ${fmt(kt * 100)} % corrected for transverse sensitivity (standard correction, calibration ν₀ = 0.285) with the ${plan.model === 'lame' ? 'Lamé' : 'membrane'} model's predicted transverse/along strain ratio ${fmt(ratio, 4)} (factor ${fmt(uniaxialTransverseFactor(kt, ratio), 5)}); no perpendicular gauge at the same place`,
         );
       } else {
         terms = [{ ch: own, coef: scale }];
@@ -170,7 +170,7 @@ export function planGridSetups(plan: Plan, grids: readonly PlannedGrid[], model:
       const notes = [...base];
       if (g.transverseSensitivity !== 0)
         notes.push(
-          `transverse sensitivity Kt ${fmt(g.transverseSensitivity * 100)} % corrected from the three grids (TN-509, ${g.kind === 'rosette-delta' ? 'delta' : 'rectangular'} rosette)`,
+          `transverse sensitivity Kt ${fmt(g.transverseSensitivity * 100)} % corrected from the three grids of the ${g.kind === 'rosette-delta' ? 'delta' : 'rectangular'} rosette (standard correction, calibration ν₀ = 0.285)`,
         );
       const used = row.map((coef, j) => ({ ch: own + j, coef })).filter((x) => x.coef !== 0);
       out.push({

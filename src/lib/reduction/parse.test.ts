@@ -117,7 +117,7 @@ describe('log errors name the line and the column (DESIGN 5)', () => {
       'pressure-column-not-found',
       undefined,
       'P [MPa]',
-      /pressure column 'P \[MPa\]'/,
+      /^No line in the first \d+ has the pressure column 'P \[MPa\]': check the log's header, or change the plan's pressure column$/,
     ],
     ['an empty file', '', 'no-data', undefined, undefined, /empty/],
     ['header only', 'time_s,P [MPa],SG1,SG2\n', 'no-data', 1, undefined, /no data rows/],

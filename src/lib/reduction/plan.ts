@@ -1,5 +1,6 @@
 // The test plan (DESIGN 4.1) as a zod schema: the plan editor validates with it in the browser,
 // the API and the CLI parse plan files with parsePlan. Only zod may be imported here.
+import { countWord, describePlanIssue } from './plan-words';
 import { z } from 'zod';
 import { InputError, type InputIssue } from './errors';
 
@@ -207,7 +208,11 @@ export const planSchema = z
     const channels = new Map<string, string>();
     const reserved = new Set([plan.columns.pressure, plan.columns.time].filter(Boolean) as string[]);
     plan.gauges.forEach((g, i) => {
-      if (ids.has(g.id)) issue(['gauges', i, 'id'], `duplicate gauge id '${g.id}' (also gauges[${ids.get(g.id)}])`);
+      if (ids.has(g.id))
+        issue(
+          ['gauges', i, 'id'],
+          `Gauge id '${g.id}' is used twice: gauges ${ids.get(g.id)! + 1} and ${i + 1} in the list. Give each gauge its own id.`,
+        );
       else ids.set(g.id, i);
       if (g.id.includes('/')) issue(['gauges', i, 'id'], "must not contain '/' (used for rosette grids, e.g. R1/A)");
       const want = CHANNELS_BY_KIND[g.kind];
@@ -215,8 +220,8 @@ export const planSchema = z
         issue(
           ['gauges', i, 'channels'],
           want === 1
-            ? `a uniaxial gauge needs exactly 1 channel, got ${g.channels.length}`
-            : `a ${g.kind} needs exactly 3 channels (grids A, B, C), got ${g.channels.length}`,
+            ? `Gauge ${g.id} is uniaxial and needs one channel; it lists ${countWord(g.channels.length)}.`
+            : `Gauge ${g.id} is a ${g.kind === 'rosette-delta' ? 'delta' : 'rectangular'} rosette and needs three channels (grids A, B, C); it lists ${countWord(g.channels.length)}.`,
         );
       g.channels.forEach((c, k) => {
         if (reserved.has(c)) issue(['gauges', i, 'channels', k], `'${c}' is the pressure or time column`);
@@ -333,5 +338,6 @@ export function parsePlan(input: unknown): Plan {
   // a failed parse always reports an issue; without one there is still nothing better to say
   if (!first) throw new InputError('invalid-plan', 'the plan is not valid', { issues });
   const more = issues.length > 1 ? ` (and ${issues.length - 1} more problem${issues.length > 2 ? 's' : ''})` : '';
-  throw new InputError('invalid-plan', `${first.path}: ${first.message}${more}`, { path: first.path, issues });
+  const sentence = describePlanIssue(r.error.issues[0]!.path as (string | number)[], first.message, value);
+  throw new InputError('invalid-plan', `${sentence}${more}`, { path: first.path, issues });
 }

@@ -274,7 +274,7 @@ export class LogReader {
     if (weak) throw this.missingColumnError(weak.line, mapColumns(this.plan, weak.found.cells).missing);
     throw new InputError(
       'pressure-column-not-found',
-      `${this.src > 0 ? `log ${this.src + 1}: ` : ''}no header line holds the pressure column '${this.plan.columns.pressure}' (plan.columns.pressure) in the first ${this.lineNo} lines`,
+      `${this.src > 0 ? `log ${this.src + 1}: ` : ''}No line in the first ${this.lineNo} has the pressure column '${this.plan.columns.pressure}': check the log's header, or change the plan's pressure column`,
       { line: this.lineNo, column: this.plan.columns.pressure, source: this.src },
     );
   }

@@ -623,3 +623,19 @@ describe('fed in any chunks the reducer gives exactly the same result (the live 
 describe('the strain transformation the reference and the engine share only by formula', () => {
   it('ε(45°) is the mean of axial and hoop', () => expect(strainAlong(100, 425, 45)).toBeCloseTo(262.5, 12));
 });
+
+describe('a gauge with no place on the shell', () => {
+  it('is said to be not checked against the edge zone, in its notes and in a warning', async () => {
+    const plan: PlanInput = {
+      ...base,
+      gauges: base.gauges.map((g) =>
+        g.id === 'A1' ? { id: 'A1', kind: 'uniaxial', channels: ['SG2'], angleDeg: 0 } : g,
+      ),
+    };
+    const { result } = await run({ plan });
+    const a1 = result.gauges.find((x) => x.id === 'A1')!;
+    expect(a1.notes.join(' ')).toMatch(/not checked against the edge zone/);
+    expect(result.warnings.join(' ')).toMatch(/not checked against the edge zone .*: A1;/);
+    expect(result.gauges.find((x) => x.id === 'H1')!.notes.join(' ')).not.toMatch(/edge zone/);
+  });
+});

@@ -256,6 +256,7 @@ export class Reducer {
     // flags and outcomes
     const largestPrincipal = Math.max(Math.abs(model.hoopStrainPerPressure), Math.abs(model.axialStrainPerPressure));
     const lengthUnit = planLengthUnit(plan.units);
+    const edgeUnchecked: string[] = [];
     const gauges: GaugeResult[] = this.setups.map((setup, s) => {
       const fit = fits[s]!;
       const { grid, gauge } = setup;
@@ -286,10 +287,14 @@ export class Reducer {
       const notes = [...setup.notes, ...fit.notes];
       if (grid.edgeZone && grid.distanceToDiscontinuity !== null)
         notes.push(
-          `${fmt(grid.distanceToDiscontinuity, 4)} ${lengthUnit} from the nearest discontinuity (${grid.distanceTo}), inside the edge zone 2.5·√(r t) = ${fmt(predicted.edgeZoneDistance, 4)} ${lengthUnit}: membrane prediction not valid; reported, not compared`,
+          `${fmt(grid.distanceToDiscontinuity, 4)} ${lengthUnit} from the nearest discontinuity (${grid.distanceTo}), inside the edge zone 2.5·√(r t) (r the mean radius) = ${fmt(predicted.edgeZoneDistance, 4)} ${lengthUnit}: membrane prediction not valid; reported, not compared`,
         );
-      else if (grid.distanceToDiscontinuity === null && gauge.axialPosition === undefined)
-        notes.push('distance to the nearest discontinuity not given: assumed outside the edge zone');
+      else if (grid.distanceToDiscontinuity === null && gauge.axialPosition === undefined) {
+        notes.push(
+          'not checked against the edge zone: the plan gives neither a distance to the nearest discontinuity nor a place on the shell',
+        );
+        if (!edgeUnchecked.includes(gauge.id)) edgeUnchecked.push(gauge.id);
+      }
       notes.push(...f.notes);
       if (usedHolds && !zeroing.hold && !zeroing.known[s])
         notes.push('not zeroed: no zero-pressure reading before loading');
@@ -338,6 +343,10 @@ export class Reducer {
         notes,
       };
     });
+    if (edgeUnchecked.length)
+      warnings.push(
+        `not checked against the edge zone (no distance to a discontinuity, no place on the shell): ${edgeUnchecked.join(', ')}; compared as if clear of every discontinuity`,
+      );
     for (const r of rosettes) {
       const f = new Set(r.flags);
       gauges.filter((x) => x.id.startsWith(`${r.id}/`)).forEach((x) => x.flags.forEach((c) => f.add(c)));

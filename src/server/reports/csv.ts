@@ -1,6 +1,7 @@
 // The pass/flag summary as CSV: a header block of `# key,value` lines, then one row per gauge,
 // then the rosettes. Sections are separated by a blank line and a `# section,<name>` line, so a
 // reader that skips `#` comment lines gets two plain tables.
+import { RELEASE_SCOPE, VERDICT_MEANING, VERDICT_SCOPE } from '../../lib/verdict-words';
 import Papa from 'papaparse';
 import {
   REPORT_CAUTION,
@@ -81,13 +82,11 @@ function buildHeaderEntries(input: ReportRecord): HeaderEntry[] {
   const t = input.tolerances;
   const counts = countOutcomes(input);
 
-  const entries: HeaderEntry[] = [
-    ['encoding', 'UTF-8 with byte-order mark so spreadsheet programs show µ and ε correctly'],
-    ['record', input.draft ? 'DRAFT' : 'RELEASED'],
-  ];
+  const entries: HeaderEntry[] = [['record', input.draft ? 'DRAFT' : 'RELEASED']];
   if (input.draft) entries.push(['DRAFT', 'not released: results, dispositions and signatures may still change']);
   entries.push(
     ['caution', REPORT_CAUTION],
+    ['release_scope', RELEASE_SCOPE],
     ['generated_at', formatIsoUtc(input.generatedAt)],
     ['test_id', String(input.test.id)],
     ['test_name', text(input.test.name)],
@@ -150,6 +149,8 @@ function buildHeaderEntries(input: ReportRecord): HeaderEntry[] {
   });
   entries.push(
     ['verdict', input.verdict],
+    ['verdict_meaning', VERDICT_MEANING[input.verdict]],
+    ['verdict_scope', VERDICT_SCOPE],
     ['gauges_in_band', String(counts['in-band'])],
     ['gauges_flagged', String(counts.flagged)],
     ['gauges_excluded', String(counts.excluded)],

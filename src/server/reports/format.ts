@@ -9,6 +9,7 @@ import type {
   ShellModel,
   TestVerdict,
 } from '../../lib/reduction/types';
+import { MODEL_NAME, VERDICT_LABEL, VERDICT_MEANING, VERDICT_SCOPE } from '../../lib/verdict-words';
 import { outcomeOf, unitLabels, type ReportInput, type ReportRecord, type UnitSystem } from './report-input';
 
 /** Decimal places per quantity; US slopes (µε/psi) are ~145× smaller than SI ones (µε/MPa). */
@@ -61,34 +62,25 @@ export const OUTCOME_LABELS: Record<GaugeOutcome, string> = {
   'not-compared': 'not compared',
 };
 
-export const VERDICT_LABELS: Record<TestVerdict, string> = {
-  conforms: 'Conforms',
-  flagged: 'Flagged',
-  incomplete: 'Incomplete',
-};
+export const VERDICT_LABELS: Record<TestVerdict, string> = VERDICT_LABEL;
 
-export const VERDICT_EXPLANATIONS: Record<TestVerdict, string> = {
-  conforms: 'Every compared gauge is within tolerance, or its flag has been dispositioned by an engineer.',
-  flagged: 'At least one gauge is flagged and has no disposition yet.',
-  incomplete: 'The log has not yet reached test pressure (within 5 %) and returned to zero; results are provisional.',
-};
+/** The verdict's meaning, as on the review banner (src/lib/verdict-words.ts). */
+export const VERDICT_EXPLANATIONS: Record<TestVerdict, string> = VERDICT_MEANING;
 
-export const MODEL_LABELS: Record<ShellModel, string> = {
-  lame: 'Lamé thick wall, outer surface',
-  membrane: 'membrane thin wall, mean radius',
-};
+export const MODEL_LABELS: Record<ShellModel, string> = MODEL_NAME;
 
+/** A flag in words, short enough for a table cell; the code stays in the CSV. */
 export const FLAG_LABELS: Record<FlagCode, string> = {
-  'outside-band': 'slope outside band',
-  nonlinear: 'nonlinear loading',
+  'outside-band': 'outside tolerance',
+  nonlinear: 'not linear',
   hysteresis: 'hysteresis',
   'zero-shift': 'zero shift',
   'no-response': 'no response',
   'reversed-sign': 'reversed sign',
   'edge-zone': 'edge zone, not compared',
   'near-yield': 'near yield',
-  'hold-creep': 'strain creeps in the hold at test pressure',
-  'principal-direction': 'rosette principal direction off the prediction',
+  'hold-creep': 'creeps in hold',
+  'principal-direction': 'principal direction off',
 };
 
 /** Where the stress of the yield check sits, in words (DESIGN 3.1). */
@@ -106,8 +98,12 @@ export function dominantUncertainty(g: GaugeResult): string {
 
 /** The caution every export carries (DESIGN: reports carry it on every page). */
 export const REPORT_CAUTION =
-  'Caution: a hydrotest stores energy. This comparison supports, and does not replace, the judgement of the ' +
-  'responsible engineer and the authorised inspector; the governing code and the jurisdiction decide.';
+  'Caution: a hydrotest stores energy. Follow the written test procedure. This comparison of measured strain with ' +
+  'the elastic prediction supports, and does not replace, the judgement of the responsible engineer and the ' +
+  'authorised inspector; it is not acceptance of the hydrostatic test. The governing code and the jurisdiction decide.';
+
+/** Said beside every verdict in the exports. */
+export const VERDICT_SCOPE_TEXT = VERDICT_SCOPE;
 
 /** Spreadsheets run a cell that starts with = + - @ as a formula: quote free text so it stays text. */
 export function neutraliseFormula(text: string): string {

@@ -23,7 +23,7 @@ export class PageFlow {
   heading(text: string, keepWith = 60): void {
     this.ensureSpace(24 + keepWith);
     if (this.y > MARGIN.top) this.y += 10;
-    drawTextLine(this.doc, text, MARGIN.left, this.y, { size: 11.5, weight: 700, color: COLOR.accent });
+    drawTextLine(this.doc, text, MARGIN.left, this.y, { size: 11.5, weight: 700, color: COLOR.accent, tag: 'H2' });
     this.y += 16;
     this.doc
       .save()

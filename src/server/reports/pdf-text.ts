@@ -1,6 +1,7 @@
 // Text for the PDF: the Inter font embedded from @fontsource/inter. The package splits Inter into
 // subsets (the Latin file has µ ² ± ° – but no ε σ ν; a name like Łukasz needs latin-ext), so
-// each run of text goes to the subset that holds it. A few drawing primitives place single lines
+// each run of text goes to the subset that holds it. No Inter subset has ≤ ≥ √ → ≈: those come
+// from Noto Sans Math (@fontsource/noto-sans-math, regular weight only), embedded the same way. A few drawing primitives place single lines
 // exactly, so layout never depends on pdfkit's automatic page breaks.
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
@@ -10,24 +11,20 @@ import { decodeWoff } from './woff';
 export type Weight = 400 | 600 | 700;
 /** In lookup order: the first subset that covers a character draws it. */
 const SUBSETS = ['latin', 'latin-ext', 'greek', 'greek-ext', 'cyrillic', 'cyrillic-ext', 'vietnamese'] as const;
-export type Subset = (typeof SUBSETS)[number];
+/** An Inter subset, or the math face for the symbols Inter lacks. */
+export type Subset = (typeof SUBSETS)[number] | 'math';
 
-/**
- * Characters that no Inter subset in @fontsource/inter carries (checked glyph by glyph):
- * written as ASCII instead of a blank box.
- */
+/** Symbols no Inter subset carries (checked glyph by glyph), drawn from Noto Sans Math. */
+const MATH_CHARS = new Set(['≤', '≥', '√', '→', '≈', '∓', '≠']);
+
+/** Characters written otherwise: a thin space as a space. */
 const SUBSTITUTES: Record<string, string> = {
-  '≤': '<=',
-  '≥': '>=',
-  '√': 'sqrt',
-  '→': '->',
-  '≈': '~',
   '\u2009': ' ',
 };
 
 interface FontFiles {
   dir: string;
-  ranges: Record<Subset, [number, number][]>;
+  ranges: Record<(typeof SUBSETS)[number], [number, number][]>;
 }
 
 let fontFiles: FontFiles | null = null;
@@ -51,8 +48,18 @@ function locateFontFiles(): FontFiles {
   return fontFiles;
 }
 
-/** Absolute path of one Inter file (WOFF 1.0; pdfkit embeds it as TrueType). */
+let mathDir: string | null = null;
+
+/** Absolute path of one font file (WOFF 1.0; pdfkit embeds it as TrueType). */
 export function interFontPath(subset: Subset, weight: Weight): string {
+  if (subset === 'math') {
+    if (!mathDir) {
+      const require = createRequire(import.meta.url);
+      mathDir = path.join(path.dirname(require.resolve('@fontsource/noto-sans-math/package.json')), 'files');
+    }
+    // one weight only: a bold ≤ is drawn regular, which reads the same at report sizes
+    return path.join(mathDir, 'noto-sans-math-latin-400-normal.woff');
+  }
   return path.join(locateFontFiles().dir, `inter-${subset}-${weight}-normal.woff`);
 }
 
@@ -70,7 +77,7 @@ export function loadInterFont(subset: Subset, weight: Weight): Buffer {
 }
 
 function fontName(subset: Subset, weight: Weight): string {
-  return `Inter-${subset}-${weight}`;
+  return subset === 'math' ? 'NotoSansMath-400' : `Inter-${subset}-${weight}`;
 }
 
 const registered = new WeakMap<PDFKit.PDFDocument, Set<string>>();
@@ -88,6 +95,7 @@ function useFont(doc: PDFKit.PDFDocument, subset: Subset, weight: Weight, size: 
 }
 
 function subsetOf(codePoint: number): Subset | null {
+  if (MATH_CHARS.has(String.fromCodePoint(codePoint))) return 'math';
   const { ranges } = locateFontFiles();
   for (const subset of SUBSETS)
     if (ranges[subset].some(([lo, hi]) => codePoint >= lo && codePoint <= hi)) return subset;
@@ -139,10 +147,78 @@ export interface PlaceOptions extends TextStyle {
   align?: 'left' | 'right' | 'center';
   /** box width for right or centre alignment */
   width?: number;
+  /** structure type for a tagged PDF (default P) */
+  tag?: string;
+}
+
+/**
+ * Structure tags, so a screen reader reads the report in order (PDF/UA-style tagging): every
+ * paragraph, heading and table cell is one element under a Document root; a figure is one
+ * Figure with its alternative text; running headers, footers and the DRAFT mark are artifacts.
+ */
+type TagMode = 'tag' | 'inside' | 'artifact';
+const tagging = new WeakMap<Doc, { root: PDFKit.PDFStructureElement; mode: TagMode }>();
+
+/** Start the document's structure tree (the document must be created with `tagged: true`). */
+export function beginTagging(doc: Doc): void {
+  const root = doc.struct('Document');
+  doc.addStructure(root);
+  tagging.set(doc, { root, mode: 'tag' });
+}
+
+/** Close the structure tree before `doc.end()`. */
+export function endTagging(doc: Doc): void {
+  tagging.get(doc)?.root.end();
+}
+
+/** Draw as one structure element (`P`, `H1`, `H2`, `Figure`…); nested calls join the outer one. */
+export function tagged(doc: Doc, type: string, draw: () => void, options: { alt?: string } = {}): void {
+  const t = tagging.get(doc);
+  if (!t || t.mode !== 'tag') {
+    draw();
+    return;
+  }
+  const element = doc.struct(type, options.alt ? { alt: options.alt } : {});
+  t.root.add(element);
+  element.add(doc.markStructureContent(type));
+  t.mode = 'inside';
+  try {
+    draw();
+  } finally {
+    t.mode = 'tag';
+    doc.endMarkedContent();
+    element.end();
+  }
+}
+
+/** Draw page furniture (running header, footer, DRAFT mark) as an artifact a reader skips. */
+export function asArtifact(doc: Doc, draw: () => void): void {
+  const t = tagging.get(doc);
+  if (!t) {
+    draw();
+    return;
+  }
+  const before = t.mode;
+  t.mode = 'artifact';
+  doc.markContent('Artifact', { type: 'Pagination' });
+  try {
+    draw();
+  } finally {
+    doc.endMarkedContent();
+    t.mode = before;
+  }
 }
 
 /** Draw one line of text with its top at y; never wraps and never adds a page. */
 export function drawTextLine(doc: Doc, text: string, x: number, y: number, options: PlaceOptions): number {
+  let width = 0;
+  tagged(doc, options.tag ?? 'P', () => {
+    width = drawTextRuns(doc, text, x, y, options);
+  });
+  return width;
+}
+
+function drawTextRuns(doc: Doc, text: string, x: number, y: number, options: PlaceOptions): number {
   const width = measureText(doc, text, options);
   let left = x;
   if (options.align === 'right' && options.width !== undefined) left = x + options.width - width;
@@ -198,7 +274,9 @@ export function drawParagraph(
   options: PlaceOptions,
 ): number {
   const lines = wrapText(doc, text, width, options);
-  lines.forEach((line, i) => drawTextLine(doc, line, x, y + i * lineHeight(options.size), { ...options, width }));
+  tagged(doc, options.tag ?? 'P', () =>
+    lines.forEach((line, i) => drawTextLine(doc, line, x, y + i * lineHeight(options.size), { ...options, width })),
+  );
   return lines.length * lineHeight(options.size);
 }
 

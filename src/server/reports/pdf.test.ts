@@ -55,6 +55,29 @@ describe('renderReportPdf (SI, draft)', () => {
     }
   });
 
+  it('is a tagged PDF with language, title and a structure tree a screen reader can follow', () => {
+    const raw = bytes.toString('latin1');
+    expect(raw).toMatch(/\/MarkInfo \d+ 0 R/);
+    expect(raw).toMatch(/\/Marked true/);
+    expect(raw).toMatch(/\/StructTreeRoot \d+ 0 R/);
+    expect(raw).toMatch(/\/Lang \(en-GB\)/);
+    expect(raw).toMatch(/\/DisplayDocTitle true/);
+    expect(raw).toMatch(/\/S \/Document/);
+    expect(raw).toMatch(/\/S \/H1/);
+    expect(raw).toMatch(/\/S \/H2/);
+    expect(raw).toMatch(/\/S \/Figure[\s\S]{0,300}\/Alt [(<]/);
+    expect(raw).toMatch(/\/Artifact <<\s*\/Type \/Pagination\s*>> BDC/);
+    expect(raw).toMatch(/\/P <<\s*\/MCID \d+\s*>> BDC/);
+  });
+
+  it('names the verdict as the strain comparison and says it is not acceptance of the hydrotest', () => {
+    const all = squash(pages.map((p) => p.text).join(' '));
+    expect(all).toContain(squash('STRAIN COMPARISON VERDICT'));
+    expect(all).toContain(squash('It is not acceptance of the hydrostatic test'));
+    expect(all).toContain(squash('Follow the written test procedure'));
+    expect(all).not.toContain(squash('has no disposition yet'));
+  });
+
   it('has extractable text: title, verdict, every gauge id, units with µ and ε', () => {
     const all = pages.map((p) => p.text).join(' ');
     expect(all).toContain('Hydrotest strain report');
@@ -203,11 +226,28 @@ describe('Inter glyph coverage', () => {
     expect(all).toContain('Зоя Петрова');
   }, 60_000);
 
-  it('sends Greek letters to the Greek subset and spells out what Inter lacks', () => {
+  it('sends Greek letters to the Greek subset and ≤ ≥ √ to the math face, never to ASCII', () => {
     expect(splitTextRuns('µε')).toEqual([
       { subset: 'latin', text: 'µ' },
       { subset: 'greek', text: 'ε' },
     ]);
-    expect(splitTextRuns('R² ≤ 5 %')).toEqual([{ subset: 'latin', text: 'R² <= 5 %' }]);
+    expect(splitTextRuns('R² ≤ 5 %')).toEqual([
+      { subset: 'latin', text: 'R² ' },
+      { subset: 'math', text: '≤' },
+      { subset: 'latin', text: ' 5 %' },
+    ]);
+    expect(splitTextRuns('2.5·√(r t)').map((r) => r.subset)).toEqual(['latin', 'math', 'latin']);
   });
+
+  it('prints the real ≤, ≥ and √ in the report text, embedded from Noto Sans Math', async () => {
+    const input = buildSiReportInput();
+    input.result.warnings.push('check: slope ≤ band, ratio ≥ 0.9, edge zone 2.5·√(r t)');
+    const bytes = await renderReportPdf(input, { compress: false });
+    const all = (await readPdfPages(bytes)).map((p) => p.text).join(' ');
+    expect(all).toContain('≤');
+    expect(all).toContain('≥');
+    expect(all).toContain('√');
+    expect(all).not.toMatch(/<=|>=|sqrt/);
+    expect(bytes.toString('latin1')).toMatch(/\/BaseFont \/[A-Z]{6}\+NotoSansMath/);
+  }, 60_000);
 });

@@ -24,8 +24,25 @@ import {
 } from './format';
 import { drawFigureLegend, drawStrainPressureFigure } from './pdf-figure';
 import { PageFlow, drawTable, type TableCell } from './pdf-layout';
+import {
+  DISPOSITION_LABEL,
+  NEAR_YIELD_ADVICE,
+  VERDICT_SCOPE,
+  verdictStanding,
+  type DispositionCode,
+} from '../../lib/verdict-words';
 import { COLOR, CONTENT_BOTTOM, CONTENT_WIDTH, MARGIN, OUTCOME_COLOR, PAGE, VERDICT_COLOR } from './pdf-style';
-import { drawParagraph, drawTextLine, lineHeight, measureParagraph, measureText } from './pdf-text';
+import {
+  asArtifact,
+  beginTagging,
+  drawParagraph,
+  drawTextLine,
+  endTagging,
+  lineHeight,
+  measureParagraph,
+  measureText,
+  tagged,
+} from './pdf-text';
 import { outcomeOf, toReportRecord, unitLabels, type ReportInput, type ReportRecord } from './report-input';
 
 export const PDF_CONTENT_TYPE = 'application/pdf';
@@ -59,8 +76,11 @@ export async function renderReportPdf(raw: ReportInput, options: RenderPdfOption
     // No default font: pdfkit would load Helvetica, and a default Inter opened here (same
     // PostScript name as a registered face) defeats pdfkit's font cache, reopening it per call.
     font: null as unknown as string,
-    lang: 'en',
+    lang: 'en-GB',
     displayTitle: true,
+    // structure tags for screen readers (see pdf-text.ts); 1.7 is where tagged PDF is settled
+    tagged: true,
+    pdfVersion: '1.7',
     info: {
       Title: `Hydrotest strain report: ${input.test.name}`,
       Subject: `Test ${input.test.id}, vessel ${input.vessel.tag}, reduction ${input.reductionId}${input.draft ? ' (DRAFT)' : ''}`,
@@ -73,6 +93,7 @@ export async function renderReportPdf(raw: ReportInput, options: RenderPdfOption
   });
   const done = collectBytes(doc);
 
+  beginTagging(doc);
   const flow = new PageFlow(doc);
   flow.addPage();
   drawTitleBlock(flow, input);
@@ -86,6 +107,7 @@ export async function renderReportPdf(raw: ReportInput, options: RenderPdfOption
   drawWarnings(flow, input);
   drawFigures(flow, input);
   finishPages(doc, input);
+  endTagging(doc);
 
   doc.end();
   return done;
@@ -125,7 +147,7 @@ function drawTitleBlock(flow: PageFlow, input: ReportRecord): void {
     width: CONTENT_WIDTH,
   });
   y += 13;
-  drawTextLine(doc, 'Hydrotest strain report', x, y, { size: 20, weight: 700 });
+  drawTextLine(doc, 'Hydrotest strain report', x, y, { size: 20, weight: 700, tag: 'H1' });
   y += 27;
   y += drawParagraph(doc, input.test.name, x, y, CONTENT_WIDTH, { size: 12.5, weight: 600 });
   y += 2;
@@ -143,6 +165,22 @@ function drawTitleBlock(flow: PageFlow, input: ReportRecord): void {
   flow.y = y + 12;
 }
 
+/** Flagged gauges with no disposition yet. */
+function undisposedCount(input: ReportRecord): number {
+  return input.result.gauges.filter((g) => outcomeOf(input, g.id) === 'flagged' && !input.dispositions[g.id]).length;
+}
+
+/** Flagged gauges an engineer marked for retest. */
+function retestIds(input: ReportRecord): string[] {
+  return input.result.gauges
+    .filter((g) => outcomeOf(input, g.id) === 'flagged' && input.dispositions[g.id]?.outcome === 'retest')
+    .map((g) => g.id);
+}
+
+function dispositionWords(code: DispositionCode | undefined): string {
+  return code ? DISPOSITION_LABEL[code] : '–';
+}
+
 function drawVerdictBox(flow: PageFlow, input: ReportRecord): void {
   const { doc } = flow;
   const counts = countOutcomes(input);
@@ -153,7 +191,11 @@ function drawVerdictBox(flow: PageFlow, input: ReportRecord): void {
   const x = MARGIN.left;
   const textX = x + 16;
   const textWidth = CONTENT_WIDTH - 16 - 190;
-  const explanation = VERDICT_EXPLANATIONS[input.verdict];
+  const explanation = [
+    VERDICT_EXPLANATIONS[input.verdict],
+    verdictStanding(input.verdict, { awaiting: undisposedCount(input), retest: retestIds(input).length }),
+    VERDICT_SCOPE,
+  ].join(' ');
   const height = Math.max(70, 40 + measureParagraph(doc, explanation, textWidth, { size: 8.5 }) + 8);
   flow.ensureSpace(height + 12);
   const y = flow.y;
@@ -163,7 +205,7 @@ function drawVerdictBox(flow: PageFlow, input: ReportRecord): void {
     .rect(x + 0.5, y + 0.5, 6, height - 1)
     .fill(color)
     .restore();
-  drawTextLine(doc, 'VERDICT', textX, y + 9, { size: 7, weight: 600, color: COLOR.muted });
+  drawTextLine(doc, 'STRAIN COMPARISON VERDICT', textX, y + 9, { size: 7, weight: 600, color: COLOR.muted });
   drawTextLine(doc, VERDICT_LABELS[input.verdict].toUpperCase(), textX, y + 19, { size: 18, weight: 700, color });
   drawParagraph(doc, explanation, textX, y + 42, textWidth, { size: 8.5, color: COLOR.ink });
 
@@ -197,7 +239,7 @@ function drawYieldCheck(flow: PageFlow, input: ReportRecord): void {
     `Yield check: ${YIELD_SURFACE_LABELS[y.surface]} (${MODEL_LABELS[y.model]}) ` +
     `${showNumber(formatFixed(y.stress, p.stress))} ${u.stress} at ${formatPlain(y.pressure)} ${u.pressure} = ` +
     `${formatPercent(y.fraction, 1)} % of yield (near-yield limit ${formatPercent(y.limit, 0)} %)` +
-    (y.nearYield ? '. NEAR YIELD: stop raising the pressure and consult the responsible engineer.' : '.');
+    (y.nearYield ? `. NEAR YIELD. ${NEAR_YIELD_ADVICE}` : '.');
   flow.paragraph(text, 8.5, y.nearYield ? OUTCOME_COLOR.flagged : COLOR.ink, y.nearYield ? 700 : 400);
   flow.y += 4;
 }
@@ -393,13 +435,13 @@ function drawGaugeTables(flow: PageFlow, input: ReportRecord): void {
       value(`distance_to_discontinuity_${u.length}`, g),
       value(`predicted_u95_${slope}`, g),
       { text: UNCERTAINTY_WORDS[dominantUncertainty(g)] ?? '–', color: COLOR.muted },
-      { text: g.flags.length ? g.flags.join(', ') : '–', color: g.flags.length ? OUTCOME_COLOR.flagged : COLOR.faint },
-      input.dispositions[g.id]?.outcome ?? '–',
+      {
+        text: g.flags.length ? g.flags.map((f) => FLAG_LABELS[f]).join(', ') : '–',
+        color: g.flags.length ? OUTCOME_COLOR.flagged : COLOR.faint,
+      },
+      dispositionWords(input.dispositions[g.id]?.outcome),
     ]),
   );
-  const used = [...new Set(gauges.flatMap((g) => g.flags))];
-  if (used.length > 0)
-    flow.paragraph(`Flags: ${used.map((f) => `${f} = ${FLAG_LABELS[f]}`).join('; ')}.`, 7, COLOR.muted);
 }
 
 function drawRosettes(flow: PageFlow, input: ReportRecord): void {
@@ -448,7 +490,7 @@ function drawRosettes(flow: PageFlow, input: ReportRecord): void {
           color: r.yieldFraction > input.tolerances.yieldFraction ? OUTCOME_COLOR.flagged : COLOR.ink,
         },
         {
-          text: r.flags.length ? r.flags.join(', ') : '–',
+          text: r.flags.length ? r.flags.map((f) => FLAG_LABELS[f]).join(', ') : '–',
           color: r.flags.length ? OUTCOME_COLOR.flagged : COLOR.faint,
         },
       ];
@@ -477,7 +519,7 @@ function drawDispositions(flow: PageFlow, input: ReportRecord): void {
         const d = input.dispositions[g.id]!;
         return [
           { text: g.id, weight: 600 },
-          { text: d.outcome, weight: 600 },
+          { text: dispositionWords(d.outcome), weight: 600 },
           d.reason,
           d.by,
           formatDateTimeUtc(d.at).replace(' UTC', ''),
@@ -487,7 +529,15 @@ function drawDispositions(flow: PageFlow, input: ReportRecord): void {
     );
   if (undisposed.length > 0)
     flow.paragraph(
-      `Flagged without disposition: ${undisposed.map((g) => g.id).join(', ')}.`,
+      `Outside tolerance, awaiting a disposition: ${undisposed.map((g) => g.id).join(', ')}.`,
+      8.5,
+      OUTCOME_COLOR.flagged,
+      600,
+    );
+  const retest = retestIds(input);
+  if (retest.length > 0)
+    flow.paragraph(
+      `Marked for retest (the verdict stays flagged until they are tested again): ${retest.join(', ')}.`,
       8.5,
       OUTCOME_COLOR.flagged,
       600,
@@ -561,17 +611,26 @@ function drawFigures(flow: PageFlow, input: ReportRecord): void {
     gauges.slice(start, start + perPage).forEach((g, i) => {
       const col = i % columns;
       const row = Math.floor(i / columns);
-      drawStrainPressureFigure(
+      const alt =
+        `Strain against pressure for gauge ${g.id}: measured slope ${formatFixed(g.measuredSlope, p.slope) || 'none'}, ` +
+        `predicted ${formatFixed(g.predictedSlope, p.slope)} µε/${u.pressure}, ${OUTCOME_LABELS[outcomeOf(input, g.id)]}.`;
+      tagged(
         flow.doc,
-        { x: MARGIN.left + col * (width + gapX), y: top + row * (height + gapY), width, height },
-        g,
-        {
-          pressureUnit: u.pressure,
-          testPressure: input.testPressure,
-          slopeBand: input.tolerances.slopeBand,
-          outcome: outcomeOf(input, g.id),
-          slopeDecimals: p.slope,
-        },
+        'Figure',
+        () =>
+          drawStrainPressureFigure(
+            flow.doc,
+            { x: MARGIN.left + col * (width + gapX), y: top + row * (height + gapY), width, height },
+            g,
+            {
+              pressureUnit: u.pressure,
+              testPressure: input.testPressure,
+              slopeBand: input.tolerances.slopeBand,
+              outcome: outcomeOf(input, g.id),
+              slopeDecimals: p.slope,
+            },
+          ),
+        { alt },
       );
     });
   }
@@ -583,6 +642,34 @@ function finishPages(doc: Doc, input: ReportRecord): void {
   const total = range.count;
   for (let i = 0; i < total; i += 1) {
     doc.switchToPage(range.start + i);
+    asArtifact(doc, () => drawRunningHeader(doc, input, i));
+    const footerY = CONTENT_BOTTOM + 16;
+    const pageLabel = `Page ${i + 1} of ${total}`;
+    const labelWidth = measureText(doc, pageLabel, { size: 7.5, weight: 600 });
+    const caution = () =>
+      drawParagraph(doc, REPORT_CAUTION, MARGIN.left, footerY, CONTENT_WIDTH - labelWidth - 24, {
+        size: 6.8,
+        color: COLOR.muted,
+      });
+    // the caution is read once, on the first page; on the others it is page furniture
+    if (i === 0) tagged(doc, 'P', caution);
+    else asArtifact(doc, caution);
+    asArtifact(doc, () => {
+      drawTextLine(doc, pageLabel, MARGIN.left, footerY, {
+        size: 7.5,
+        weight: 600,
+        color: COLOR.ink,
+        align: 'right',
+        width: CONTENT_WIDTH,
+      });
+      if (input.draft) drawDraftMark(doc);
+    });
+  }
+}
+
+/** The running header of pages after the first, and the footer rule. */
+function drawRunningHeader(doc: Doc, input: ReportRecord, i: number): void {
+  {
     if (i > 0) {
       drawTextLine(doc, 'Hoopline · Hydrotest strain report', MARGIN.left, 26, { size: 7.5, color: COLOR.muted });
       drawTextLine(
@@ -615,20 +702,6 @@ function finishPages(doc: Doc, input: ReportRecord): void {
       .lineTo(MARGIN.left + CONTENT_WIDTH, footerY - 6)
       .stroke()
       .restore();
-    const pageLabel = `Page ${i + 1} of ${total}`;
-    const labelWidth = measureText(doc, pageLabel, { size: 7.5, weight: 600 });
-    drawParagraph(doc, REPORT_CAUTION, MARGIN.left, footerY, CONTENT_WIDTH - labelWidth - 24, {
-      size: 6.8,
-      color: COLOR.muted,
-    });
-    drawTextLine(doc, pageLabel, MARGIN.left, footerY, {
-      size: 7.5,
-      weight: 600,
-      color: COLOR.ink,
-      align: 'right',
-      width: CONTENT_WIDTH,
-    });
-    if (input.draft) drawDraftMark(doc);
   }
 }
 

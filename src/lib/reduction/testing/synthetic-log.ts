@@ -27,6 +27,15 @@ export interface GaugeBehaviour {
   creep?: { level: number; microstrainPerSecond: number };
   /** the reading drifts at this rate (µε/s) during the first hold, before any pressure, and keeps what it gained */
   zeroDrift?: number;
+  /** µε gained steadily through the hold at test pressure (and kept afterwards): creep */
+  creepMicrostrain?: number;
+  /** this channel's zero drift, µε per hour (temperature of the bridge and the shell) */
+  driftPerHour?: number;
+  /**
+   * µε the gauge lags on the way up, most at half test pressure and none at zero or at the peak
+   * (the shell seating on its saddles, air working out): a first loading that is not quite linear
+   */
+  seatingMicrostrain?: number;
 }
 
 export interface SyntheticFormat {
@@ -66,6 +75,11 @@ export interface SyntheticOptions {
   format?: SyntheticFormat;
   /** rows per yielded chunk */
   chunkRows?: number;
+  /**
+   * time constant, s, by which strain follows pressure (the shell, the water and the adhesive
+   * settling after each ramp); 0 or absent: strain follows pressure at once
+   */
+  settleSeconds?: number;
 }
 
 /** mulberry32: a small seeded PRNG */
@@ -231,9 +245,15 @@ export function* syntheticLogChunks(plan: Plan, opts: SyntheticOptions = {}): Ge
   const n = Math.floor(duration * rate) + 1;
   const chunkRows = opts.chunkRows ?? 2000;
   let buf: string[] = [];
+  const settle = opts.settleSeconds ?? 0;
+  const lagKeep = settle > 0 ? Math.exp(-1 / (rate * settle)) : 0;
+  let pFelt = profile.at(0) * tp;
+  const peakStart = peakHoldStart(opts, profile.peakEnd);
   for (let i = 0; i < n; i++) {
     const t = i / rate;
     const pTrue = profile.at(t) * tp;
+    // first-order lag: the strain sees a pressure that settles towards the gauge pressure
+    pFelt = settle > 0 ? lagKeep * pFelt + (1 - lagKeep) * pTrue : pTrue;
     const p = pTrue + gauss() * pNoise;
     const cells: string[] = [];
     if (timeFmt === 'seconds') cells.push(num(t, 4));
@@ -244,8 +264,8 @@ export function* syntheticLogChunks(plan: Plan, opts: SyntheticOptions = {}): Ge
       let e: number;
       if (b.dead) e = 0;
       else {
-        const along = c.along * pTrue * (b.scale ?? 1);
-        const across = c.across * pTrue * (b.scale ?? 1);
+        const along = c.along * pFelt * (b.scale ?? 1);
+        const across = c.across * pFelt * (b.scale ?? 1);
         e = c.kt !== 0 ? indicatedStrain(along, across, c.kt) : along;
         if (b.permanentSet && t > profile.peakEnd) e += b.permanentSet;
         if (b.creep) {
@@ -253,6 +273,11 @@ export function* syntheticLogChunks(plan: Plan, opts: SyntheticOptions = {}): Ge
           const h = profile.holds.find((x) => Math.abs(x.level - level) < 1e-9);
           if (h) e += b.creep.microstrainPerSecond * Math.max(0, Math.min(t, h.end) - h.start);
         }
+        if (b.creepMicrostrain && t > peakStart)
+          e += b.creepMicrostrain * Math.min(1, (t - peakStart) / Math.max(1e-9, profile.peakEnd - peakStart));
+        if (b.driftPerHour) e += (b.driftPerHour * t) / 3600;
+        if (b.seatingMicrostrain && t < peakStart)
+          e -= b.seatingMicrostrain * Math.sin(Math.PI * Math.min(1, Math.max(0, pFelt / tp)));
         if (b.reversed) e = -e;
         e *= c.gf; // the instrument's gauge factor setting
         if (b.saturateAt !== undefined) e = Math.max(-b.saturateAt, Math.min(b.saturateAt, e));
@@ -269,6 +294,12 @@ export function* syntheticLogChunks(plan: Plan, opts: SyntheticOptions = {}): Ge
     }
   }
   if (buf.length) yield buf.join(eol) + eol;
+}
+
+/** When the hold at the highest level starts (the peak hold ends at `peakEnd`). */
+function peakHoldStart(opts: SyntheticOptions, peakEnd: number): number {
+  if (opts.profile === 'ramp') return peakEnd;
+  return peakEnd - (opts.holdSeconds ?? 60);
 }
 
 /** The whole log as one string. */
