@@ -37,9 +37,10 @@ export default function FeatureList() {
       title="Discontinuities"
       intro={
         <>
-          Nozzles, supports, seams and thickness changes. Positions from the reference end ({len}); clock 0–360° around
-          the shell, blank for a feature that runs all round. The head seams at both ends of the shell are included
-          without listing them.
+          Nozzles, supports, seams and thickness changes. Axial positions from the reference end, the end where the
+          shell length is 0 ({len}); clock 0–360° around the shell, 0° at top dead centre and increasing clockwise as
+          seen looking from the reference end; blank for a feature that runs all round. The head seams at both ends of
+          the shell are included without listing them.
         </>
       }
       actions={

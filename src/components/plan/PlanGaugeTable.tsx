@@ -50,8 +50,9 @@ export default function PlanGaugeTable() {
         <>
           Angle from the vessel axis: 0° axial, 90° hoop; for a rosette, the direction of grid A. A gauge closer than
           the edge zone 2.5·√(r t) (r mean radius, t wall) = <strong className="num">{edge}</strong> to a discontinuity
-          is reported but not compared. Give the distance, or the axial position (and clock) to measure it from the
-          features.
+          is reported but not compared. Give the distance, or the axial position from the reference end (length 0) and
+          the clock (0° at top dead centre, clockwise looking from the reference end) to measure it from the features; a
+          gauge with neither is not checked against the edge zone, and the result warns so.
         </>
       }
       actions={
