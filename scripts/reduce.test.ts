@@ -41,7 +41,7 @@ describe('npm run reduce', () => {
         ),
         logPath,
       ],
-      /vessel\.wallThickness: must be greater than 0/,
+      /Vessel wall thickness: must be greater than 0/,
     ],
     ['a plan that is not JSON', () => [file('broken.json', '{ "units": '), logPath], /not valid JSON/],
     [
