@@ -1,21 +1,10 @@
 // What the live panel knows, built from the Server-Sent Events of a live test (DESIGN 8). Pure, so
 // a replay after a reconnect (the same events again) leaves the state as it was.
 
-export type LiveWarningCode = 'trend-outside-band' | 'hold-creep' | 'zero-drift' | 'near-yield';
+import type { LiveHoldEvent, LiveWarningCode, LiveWarningEvent } from '../../lib/reduction/live';
 
-export interface LiveHold {
-  index: number;
-  pressure: number;
-  branch: 'loading' | 'unloading';
-  gauges: { id: string; strain: number; provisionalRatio: number | null }[];
-}
-
-export interface LiveWarning {
-  gaugeId: string;
-  code: LiveWarningCode | string;
-  message: string;
-  pressure: number;
-}
+export type LiveHold = LiveHoldEvent;
+export type LiveWarning = LiveWarningEvent;
 
 export interface LiveState {
   /** the stream answers (an open EventSource); false while it reconnects */
