@@ -27,6 +27,29 @@ const server = http.createServer((req, res) => {
   inFlight.add(res);
   res.once('close', () => inFlight.delete(res));
   if (lifecycle.draining) res.setHeader('connection', 'close');
+  // An answer given before the request body was read to its end (a 413 past a limit) leaves the
+  // rest of the body on the socket, and such a kept-alive connection would never answer the
+  // client's next request. So it closes: our side ends once the answer is out, while what the
+  // client is still sending is read and dropped (closing outright would reset a client in the
+  // middle of an upload before it reads the 413), for at most 10 s.
+  const writeHead = res.writeHead;
+  res.writeHead = function (...args) {
+    const socket = res.socket;
+    if (!req.complete && !res.headersSent && socket) {
+      res.setHeader('connection', 'close');
+      socket.destroySoon = function () {
+        this.end();
+        this.resume();
+        const timer = setTimeout(() => this.destroy(), 10_000);
+        timer.unref();
+        this.once('end', () => {
+          clearTimeout(timer);
+          this.destroy();
+        });
+      };
+    }
+    return writeHead.apply(this, args);
+  };
   handler(req, res);
 });
 // longer than a load balancer's idle timeout (often 60 s), so the server never closes a

@@ -4,6 +4,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { inject } from 'vitest';
 import { createHash } from 'node:crypto';
+import http from 'node:http';
 import { Client, signedIn } from './support/http';
 import { startAppServer } from './support/processes';
 
@@ -123,6 +124,45 @@ describe('request bodies', () => {
       duplex: 'half',
     } as RequestInit);
     expect(res.status).toBe(413);
+  });
+
+  it('keeps a connection usable after refusing a streamed body it stopped reading', async () => {
+    // one kept-alive connection: the next request goes on the very socket the 413 answered on
+    const agent = new http.Agent({ keepAlive: true, maxSockets: 1 });
+    const url = new URL(inject('baseUrl'));
+    const send = (method: string, path: string, body?: Buffer[]) =>
+      new Promise<number>((resolve, reject) => {
+        const req = http.request(
+          {
+            host: url.hostname,
+            port: url.port,
+            method,
+            path,
+            agent,
+            headers: {
+              cookie: engineer.cookieHeader(),
+              origin: url.origin,
+              ...(body ? { 'content-type': 'application/json', 'transfer-encoding': 'chunked' } : {}),
+            },
+            timeout: 10_000,
+          },
+          (res) => {
+            res.resume();
+            res.on('end', () => resolve(res.statusCode ?? 0));
+          },
+        );
+        req.on('timeout', () => req.destroy(new Error(`${method} ${path}: no answer in 10 s`)));
+        req.on('error', reject);
+        for (const part of body ?? []) req.write(part);
+        req.end();
+      });
+    try {
+      const parts = [Buffer.from('{"name":"'), ...Array.from({ length: 40 }, () => Buffer.alloc(64 * 1024, 120))];
+      expect(await send('POST', '/api/vessels', parts)).toBe(413);
+      expect(await send('GET', '/api/health')).toBe(200);
+    } finally {
+      agent.destroy();
+    }
   });
 
   it('still takes a log upload larger than 1 MB (logs stream, with their own limit)', async () => {
