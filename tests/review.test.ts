@@ -16,6 +16,7 @@ const plan = {
   material: { name: 'review-test steel', elasticModulus: 200_000, poissonRatio: 0.3, yieldStrength: 260 },
   testPressure: 2,
   columns: { time: 'time_s', pressure: 'P [MPa]' },
+  procedure: { reference: 'RV-HT-2 rev C', testMedium: 'water', testTemperature: 18, witness: 'K. Demo, inspector' },
   gauges: [
     { id: 'H1', kind: 'uniaxial', channels: ['SG1'], angleDeg: 90, distanceToDiscontinuity: 1500 },
     { id: 'A1', kind: 'uniaxial', channels: ['SG2'], angleDeg: 0, distanceToDiscontinuity: 1500 },
@@ -200,6 +201,10 @@ describe('the whole journey', () => {
     // the stored signature says who, which reduction, and the statement signed
     expect(signed.body.statement).toContain('I, Imke Sorensen (demo), have reviewed reduction');
     expect(signed.body.statement).toContain('Remark: Bridge completion of H2 checked on site.');
+    // … and the test conduct the plan records, which the signer attests
+    expect(signed.body.statement).toContain(
+      'The test is recorded as conducted under: written test procedure RV-HT-2 rev C; test medium water; metal temperature 18 °C; witnessed by K. Demo, inspector.',
+    );
     const rec = await qa.json(`/api/tests/${testId}/record`);
     const sig = rec.body.signatures.find((x: { kind: string }) => x.kind === 'review');
     expect(sig.reductionId).toBe(signed.body.reductionId);
@@ -235,6 +240,7 @@ describe('the whole journey', () => {
     const rel = await sign(qa, 'release');
     expect(rel.status).toBe(201);
     expect(rel.body.snapshotSha256).toMatch(/^[0-9a-f]{64}$/);
+    expect(rel.body.statement).toContain('written test procedure RV-HT-2 rev C');
     expect((await qa.json(`/api/tests/${testId}`)).body.status).toBe('released');
     expect(
       (
@@ -260,6 +266,7 @@ describe('the whole journey', () => {
     const csv = await (await technician.fetch(`/api/tests/${testId}/export.csv`)).text();
     expect(csv).not.toContain('DRAFT');
     expect(csv).toContain('gauge sits on a locally thicker plate');
+    expect(csv).toContain('procedure_reference,RV-HT-2 rev C');
     const res = await qa.fetch(`/api/tests/${testId}/export.pdf`);
     expect(res.status).toBe(200);
     expect(res.headers.get('content-type')).toBe('application/pdf');
@@ -269,6 +276,7 @@ describe('the whole journey', () => {
     const { extractPdfText } = await import('./support/pdf-text');
     const text = await extractPdfText(bytes);
     expect(text).toContain('Review journey');
+    expect(text).toContain('RV-HT-2 rev C');
     expect(text).toContain('H2');
     expect(text).not.toContain('DRAFT');
   });

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { signatureStatement, signedText } from './signing';
+import { procedureFacts, signatureStatement, signedText } from './signing';
 
 const facts = {
   signerName: 'Imke Sorensen',
@@ -40,6 +40,27 @@ describe('the signed statement', () => {
     });
     expect(s).toContain('written test procedure HT-PRO-7 rev C; test medium water; witnessed by A. Inspector.');
     expect(s).toContain('verdict: Flagged.');
+  });
+
+  it('takes the facts from the plan, with the temperature in the plan\u2019s unit', () => {
+    const facts = procedureFacts({
+      units: 'US',
+      procedure: { reference: 'WP-12 rev 2', codeEdition: 'code X, 2025 edition', testTemperature: 61.5 },
+    });
+    expect(facts).toEqual({
+      procedureReference: 'WP-12 rev 2',
+      codeEdition: 'code X, 2025 edition',
+      testMedium: undefined,
+      testTemperature: '61.5 °F',
+      witness: undefined,
+    });
+    expect(procedureFacts({ units: 'SI', procedure: { testTemperature: 12 } }).testTemperature).toBe('12 °C');
+  });
+
+  it('says so when the plan records none of the conduct facts', () => {
+    const s = signatureStatement({ kind: 'release', ...facts, procedure: procedureFacts({ units: 'SI' }) });
+    expect(s).toContain('The plan does not record the written test procedure');
+    expect(signatureStatement({ kind: 'release', ...facts })).not.toContain('does not record');
   });
 
   it('keeps the signer\u2019s remark after the statement, and nothing when there is none', () => {

@@ -3,6 +3,7 @@
 // signer is named, not e-mailed: the statement travels with the record to the inspector, and
 // the signature row itself links the account.
 
+import type { Plan, PlanProcedure } from './reduction/plan';
 import { RELEASE_SCOPE, VERDICT_SCOPE, verdictLabel } from './verdict-words';
 
 /** How the test was conducted, from the plan (each optional). */
@@ -27,6 +28,26 @@ export interface StatementFacts {
   procedure?: ProcedureFacts;
 }
 
+/** A temperature as recorded: `15 °C`, `59 °F` (no float noise). */
+export function formatTemperature(value: number, units: Plan['units']): string {
+  return `${Number(value.toPrecision(6))} ${units === 'US' ? '°F' : '°C'}`;
+}
+
+/** The plan's test conduct (its `procedure` block) as the statements and the report name it. */
+export function procedureFacts(
+  plan: { units: Plan['units']; procedure?: Partial<PlanProcedure> } | null | undefined,
+): ProcedureFacts {
+  const p = plan?.procedure;
+  if (!p) return {};
+  return {
+    procedureReference: p.reference,
+    codeEdition: p.codeEdition,
+    testMedium: p.testMedium,
+    testTemperature: p.testTemperature === undefined ? undefined : formatTemperature(p.testTemperature, plan.units),
+    witness: p.witness,
+  };
+}
+
 /** The test's conduct facts the signer relies on, when the plan gives them. */
 function procedureSentence(p: ProcedureFacts | undefined): string {
   if (!p) return '';
@@ -34,10 +55,12 @@ function procedureSentence(p: ProcedureFacts | undefined): string {
     p.procedureReference && `written test procedure ${p.procedureReference}`,
     p.codeEdition && `governing code ${p.codeEdition}`,
     p.testMedium && `test medium ${p.testMedium}`,
-    p.testTemperature && `metal and medium temperature ${p.testTemperature}`,
+    p.testTemperature && `metal temperature ${p.testTemperature}`,
     p.witness && `witnessed by ${p.witness}`,
   ].filter(Boolean);
-  return parts.length ? ` The test is recorded as conducted under: ${parts.join('; ')}.` : '';
+  return parts.length
+    ? ` The test is recorded as conducted under: ${parts.join('; ')}.`
+    : ' The plan does not record the written test procedure, the governing code, the test medium, the temperature or the witness.';
 }
 
 /** The statement the signer attests, in full: what was checked, the verdict in words, and what it is not. */

@@ -99,6 +99,14 @@ export const demoPlan: PlanInput & { remarks?: string } = {
   model: 'lame',
   testPressure: 1.95,
   columns: { time: 'time_s', pressure: 'P [MPa]' },
+  // invented for the demo: no real procedure, code body or person
+  procedure: {
+    reference: 'DEMO-HT-07 rev A (demo procedure)',
+    codeEdition: 'demo: name the governing code and its edition here',
+    testMedium: 'water',
+    testTemperature: 16,
+    witness: 'demo witness (authorised inspector), invented',
+  },
   gauges: [
     { id: 'H1', kind: 'uniaxial', channels: ['CH01'], angleDeg: 90, axialPosition: 1500, clockDeg: 90 },
     { id: 'H2', kind: 'uniaxial', channels: ['CH02'], angleDeg: 90, axialPosition: 2800, clockDeg: 270 },

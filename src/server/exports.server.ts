@@ -6,6 +6,7 @@ import { AppError } from './errors';
 import { cachedReportPdf } from './report-cache.server';
 import { recordVersion } from './reports/record-version';
 import type { TestRecord } from './record.server';
+import { procedureFacts } from '../lib/signing';
 
 /**
  * The renderers' input for a record with a finished reduction (409 without one). Through a
@@ -46,6 +47,7 @@ export function buildReportInput(r: TestRecord, now = new Date(), forInspector =
     units: plan.units,
     model: r.result.model,
     testPressure: plan.testPressure,
+    procedure: procedureFacts(plan),
     tolerances: plan.tolerances,
     reductionId: r.reduction.id,
     engineVersion: r.result.engineVersion,
@@ -62,6 +64,7 @@ export function buildReportInput(r: TestRecord, now = new Date(), forInspector =
         email: forInspector ? '' : s.email,
         at: s.createdAt,
         reductionId: s.reductionId,
+        statement: s.statement,
       })),
   };
 }

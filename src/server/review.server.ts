@@ -10,7 +10,7 @@ import { updateTest } from '../db/queries/tests';
 import { listUsers } from '../db/queries/users';
 import type { DispositionOutcome } from '../db/schema';
 import { can } from '../lib/roles';
-import { signatureStatement, signedText } from '../lib/signing';
+import { procedureFacts, signatureStatement, signedText } from '../lib/signing';
 import { RELEASE_SCOPE, VERDICT_LABEL, VERDICT_MEANING } from '../lib/verdict-words';
 import { getConfig } from '../config.server';
 import { auditBy } from './audit.server';
@@ -95,6 +95,7 @@ function reviewStatement(user: RequestUser, r: TestRecord) {
     reductionId: r.reduction!.id,
     engineVersion: r.reduction!.engineVersion,
     verdict: r.verdict ?? 'unknown',
+    procedure: procedureFacts(r.plan),
   });
 }
 
@@ -205,6 +206,7 @@ export async function releaseTest(user: RequestUser, testId: number, body: Signa
         engineVersion: reduction.engineVersion,
         verdict: record.verdict ?? 'unknown',
         reviewerName: review.name,
+        procedure: procedureFacts(record.plan),
       }),
       body.statement,
     );

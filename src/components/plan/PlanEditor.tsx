@@ -8,6 +8,7 @@ import PlanIssueSummary from './PlanIssueSummary';
 import PlanToolbar from './PlanToolbar';
 import ShellPreviewTable from './ShellPreviewTable';
 import TestConditionsSection from './TestConditionsSection';
+import TestConductSection from './TestConductSection';
 import ToleranceSection from './ToleranceSection';
 import UncertaintySection from './UncertaintySection';
 import VesselSection from './VesselSection';
@@ -119,6 +120,7 @@ export default function PlanEditor({
               <MaterialSection />
             </div>
             <TestConditionsSection />
+            <TestConductSection />
             <FeatureList />
             <ToleranceSection />
             <UncertaintySection />

@@ -74,6 +74,17 @@ describe('convertPlanUnits', () => {
     expect(getIn(us, ['material', 'yieldStrength'])).toBeCloseTo(260e6 / 6894.757293168, 6);
   });
 
+  it('converts the test temperature °C ↔ °F and back to what was typed', () => {
+    const si = { ...siPlan(), procedure: { testTemperature: 15, testMedium: 'water' } };
+    const us = convertPlanUnits(si, 'US');
+    expect(getIn(us, ['procedure', 'testTemperature'])).toBe(59);
+    expect(getIn(us, ['procedure', 'testMedium'])).toBe('water');
+    expect(getIn(convertPlanUnits(us, 'SI'), ['procedure', 'testTemperature'])).toBe(15);
+    expect(
+      getIn(convertPlanUnits({ ...si, procedure: { testTemperature: 12.5 } }, 'US'), ['procedure', 'testTemperature']),
+    ).toBe(54.5);
+  });
+
   it('leaves fractions, angles, microstrain, gauge factors, clock positions and unknown fields alone', () => {
     const us = convertPlanUnits(siPlan(), 'US');
     expect(us.remarks).toBe('kept as imported');

@@ -110,6 +110,8 @@ export function formatNumberForInput(v: unknown): string {
 }
 
 type Convert = (x: number) => number;
+const celsiusToFahrenheit: Convert = (c) => (c * 9) / 5 + 32;
+const fahrenheitToCelsius: Convert = (f) => ((f - 32) * 5) / 9;
 const conversions = (to: PlanUnits) => ({
   length: to === 'US' ? mmToIn : inToMm,
   pressure: to === 'US' ? mpaToPsi : psiToMPa,
@@ -123,7 +125,8 @@ function convertAt(plan: PlanDraft, path: PlanPath, f: Convert): PlanDraft {
 
 /**
  * The same plan in the other unit system: lengths mm ↔ in, test pressure and stresses MPa ↔ psi,
- * with the exact factors of units.ts. Fractions, angles, microstrain and gauge factors do not change.
+ * with the exact factors of units.ts, and the test temperature °C ↔ °F. Fractions, angles, microstrain and
+ * gauge factors do not change.
  */
 export function convertPlanUnits(plan: PlanDraft, to: PlanUnits): PlanDraft {
   if ((plan.units ?? 'SI') === to) return plan;
@@ -148,6 +151,7 @@ export function convertPlanUnits(plan: PlanDraft, to: PlanUnits): PlanDraft {
       out = convertAt(out, ['gauges', i, 'axialPosition'], length);
     });
   out = convertAt(out, ['testPressure'], pressure);
+  out = convertAt(out, ['procedure', 'testTemperature'], to === 'US' ? celsiusToFahrenheit : fahrenheitToCelsius);
   out = convertAt(out, ['material', 'elasticModulus'], pressure);
   out = convertAt(out, ['material', 'yieldStrength'], pressure);
   return out;

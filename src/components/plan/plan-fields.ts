@@ -32,6 +32,7 @@ const SECTION_FIELDS: Record<string, string[]> = {
   vessel: ['name', 'shape', 'ends', 'insideDiameter', 'wallThickness', 'length'],
   material: ['name', 'elasticModulus', 'poissonRatio', 'yieldStrength'],
   columns: ['pressure', 'time'],
+  procedure: ['reference', 'codeEdition', 'testMedium', 'testTemperature', 'witness'],
   tolerances: [
     'slopeBand',
     'minRSquared',

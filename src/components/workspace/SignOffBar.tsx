@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { can } from '../../lib/roles';
-import { signatureStatement } from '../../lib/signing';
+import { procedureFacts, signatureStatement } from '../../lib/signing';
 import { announceTestChanged } from '../tests/TestStatusSteps';
 import SignatureForm from './SignatureForm';
 import type { RecordView } from './record-types';
@@ -39,6 +39,7 @@ export default function SignOffBar({ record, role, userEmail, userName, onChange
       engineVersion: record.reduction?.engineVersion ?? null,
       verdict: record.result?.verdict ?? 'unknown',
       reviewerName: review?.name,
+      procedure: procedureFacts(record.plan),
     });
 
   return (

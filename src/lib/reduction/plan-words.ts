@@ -62,6 +62,12 @@ const WORDS: Record<string, string> = {
   leadWiring: 'lead wiring',
   elevation: 'elevation',
   pairWith: 'paired gauge',
+  procedure: 'Test conduct',
+  reference: 'written test procedure',
+  codeEdition: 'governing code and edition',
+  testMedium: 'test medium',
+  testTemperature: 'metal temperature during the test',
+  witness: 'witness',
 };
 
 /**
@@ -85,6 +91,7 @@ export function labelForPath(path: readonly (string | number)[], plan: unknown):
   if (head === 'vessel' && rest[0] === 'features' && typeof rest[1] === 'number') {
     return `Feature ${rest[1] + 1}${rest[2] !== undefined ? ' ' + (WORDS[String(rest[2])] ?? rest[2]) : ''}`;
   }
+  if (head === 'procedure' && typeof rest[0] === 'string') return `Test conduct: ${WORDS[rest[0]] ?? rest[0]}`;
   if (head === 'uncertainty' && typeof rest[0] === 'string') return `Uncertainty of the ${WORDS[rest[0]] ?? rest[0]}`;
   const words = path.map((p) => (typeof p === 'number' ? String(p + 1) : (WORDS[p] ?? p)));
   if (head === 'columns' && rest.length > 0) words.shift();

@@ -39,6 +39,38 @@ describe('parsePlan: defaults', () => {
     expect(parsePlan({ ...demoPlanInput, tolerances: { slopeBand: 0.05 } }).tolerances.minRSquared).toBe(0.995));
 });
 
+describe('parsePlan: the test conduct block', () => {
+  it('keeps the procedure, code, medium, temperature and witness, trimmed, and drops empty text', () => {
+    const plan = parsePlan({
+      ...demoPlanInput,
+      procedure: { reference: ' WP-12 rev 2 ', codeEdition: '', testMedium: 'water', testTemperature: 15 },
+    });
+    expect(plan.procedure).toEqual({
+      reference: 'WP-12 rev 2',
+      codeEdition: undefined,
+      testMedium: 'water',
+      testTemperature: 15,
+      witness: undefined,
+    });
+    expect(parsePlan(JSON.stringify(plan)).procedure).toEqual(plan.procedure);
+  });
+  it('is optional, and not an input of the reduction', () =>
+    expect(parsePlan(demoPlanInput).procedure).toBeUndefined());
+  it.each([
+    ['SI', 250, 'Test conduct: metal temperature during the test: must be between -50 and 200 °C'],
+    ['US', 15, undefined],
+    ['US', 450, 'Test conduct: metal temperature during the test: must be between -58 and 392 °F'],
+  ] as const)('a %s temperature of %d: %s', (units, t, message) => {
+    const input = { ...demoPlanInput, units, procedure: { testTemperature: t } };
+    if (units === 'US')
+      Object.assign(input, {
+        material: { ...demoPlanInput.material, elasticModulus: 29e6, yieldStrength: 38000 },
+      });
+    if (!message) return expect(() => parsePlan(input)).not.toThrow();
+    expect(() => parsePlan(input)).toThrow(message);
+  });
+});
+
 describe('plan rules that trip real users', () => {
   const sphere = { ...demoPlanInput, vessel: { shape: 'sphere', insideDiameter: 3000, wallThickness: 20 } };
   it.each([

@@ -120,6 +120,32 @@ export const holdDetectionSchema = z.object({
   settleFraction: num().gte(0, 'must not be negative').lte(0.9, 'must be at most 0.9').default(0.3),
 });
 
+/** Free text of a plan's record fields: trimmed, empty means absent. */
+const recordText = () =>
+  z
+    .string(expect('a text'))
+    .trim()
+    .max(200, 'must be at most 200 characters')
+    .optional()
+    .transform((v) => (v === '' ? undefined : v));
+
+/**
+ * How the test is conducted, as the record states it: not an input of the reduction, printed on
+ * the report and in the signed statements (README, "Test conduct"). Every field is optional.
+ */
+export const procedureSchema = z.object({
+  /** the written test procedure the test follows, with its revision */
+  reference: recordText(),
+  /** the governing code and its edition */
+  codeEdition: recordText(),
+  /** water, or another liquid */
+  testMedium: recordText(),
+  /** metal temperature during the test: °C for SI plans, °F for US plans */
+  testTemperature: num().optional(),
+  /** the authorised inspector or other witness, by name and organisation */
+  witness: recordText(),
+});
+
 export const gaugeSchema = z.object({
   id: text(),
   label: z.string().optional(),
@@ -182,6 +208,8 @@ export const planSchema = z
     testFluidDensity: positive().default(1000),
     /** height of the pressure tap, plan length unit, same datum as the gauges' elevation */
     pressureTapElevation: num().optional(),
+    /** how the test is conducted (procedure, code, medium, temperature, witness) */
+    procedure: procedureSchema.optional(),
     gauges: z.array(gaugeSchema, expect('a list of gauges')).min(1, 'must list at least one gauge'),
   })
   .superRefine((plan, ctx) => {
@@ -246,6 +274,16 @@ export const planSchema = z
       if (g.leadResistance === undefined && (g.gaugeResistance !== undefined || g.leadWiring !== undefined))
         issue(['gauges', i, 'leadResistance'], 'is required with gaugeResistance or leadWiring');
     });
+    const temperature = plan.procedure?.testTemperature;
+    if (temperature !== undefined) {
+      // −50 to 200 °C covers any liquid test; outside it the value is almost always a unit slip
+      const [lo, hi] = plan.units === 'US' ? [-58, 392] : [-50, 200];
+      if (temperature < lo || temperature > hi)
+        issue(
+          ['procedure', 'testTemperature'],
+          `must be between ${lo} and ${hi} ${plan.units === 'US' ? '°F' : '°C'} (the metal temperature during the test)`,
+        );
+    }
     if (plan.pressureTapElevation === undefined && plan.gauges.some((g) => g.elevation !== undefined))
       issue(['pressureTapElevation'], 'is required when a gauge gives its elevation (water head)');
     checkPairs(plan.gauges, issue);
@@ -294,6 +332,7 @@ export type Plan = z.infer<typeof planSchema>;
 export type PlanInput = z.input<typeof planSchema>;
 export type PlanGauge = Plan['gauges'][number];
 export type PlanFeature = Plan['vessel']['features'][number];
+export type PlanProcedure = NonNullable<Plan['procedure']>;
 
 /** `['gauges', 1, 'channels']` → `gauges[1].channels` */
 export function formatPath(path: readonly PropertyKey[]): string {

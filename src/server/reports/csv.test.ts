@@ -164,6 +164,24 @@ describe.each([
     expect(h.get('caution')).toMatch(/Follow the written test procedure/);
   });
 
+  it('records the test conduct from the plan and the words each signer signed', () => {
+    const h = csv.header;
+    expect(h.get('procedure_reference')).toBe('WP-HT-031 rev B');
+    expect(h.get('code_edition')).toBe('the governing pressure vessel code, 2025 edition');
+    expect(h.get('test_medium')).toBe('demineralised water');
+    expect(h.get('test_temperature')).toBe(input.units === 'SI' ? '14 °C' : '57.2 °F');
+    expect(h.get('witness')).toBe('R. Adeyemi, authorised inspector');
+    expect(h.get('signature_1_statement')).toBe(input.signatures[0]!.statement);
+  });
+
+  it('leaves a conduct fact blank when the plan does not record it', () => {
+    const bare = buildSiReportInput();
+    bare.procedure = { procedureReference: '=HYPERLINK("x")' };
+    const h = parseSummary(renderSummaryCsv(bare)).header;
+    expect(h.get('procedure_reference')).toBe('\'=HYPERLINK("x")');
+    expect(h.get('witness')).toBe('');
+  });
+
   it('marks the unreleased record as DRAFT', () => {
     expect(csv.header.get('record')).toBe('DRAFT');
     expect(csv.header.has('DRAFT')).toBe(true);

@@ -7,6 +7,7 @@ import {
   REPORT_CAUTION,
   buildGaugeColumns,
   buildRosetteColumns,
+  conductRows,
   countOutcomes,
   formatFixed,
   formatIsoUtc,
@@ -102,6 +103,7 @@ function buildHeaderEntries(input: ReportRecord): HeaderEntry[] {
     [`material_elastic_modulus_${u.stress}`, formatPlain(input.material.elasticModulus)],
     ['material_poisson_ratio', formatPlain(input.material.poissonRatio)],
     [`material_yield_strength_${u.stress}`, formatPlain(input.material.yieldStrength)],
+    ...conductRows(input).map((r): HeaderEntry => [r.csv, text(r.value)]),
     ['units', input.units],
     ['model', input.model],
     ['model_description', MODEL_LABELS[input.model]],
@@ -165,6 +167,7 @@ function buildHeaderEntries(input: ReportRecord): HeaderEntry[] {
       [`${k}_email`, text(s.email)],
       [`${k}_at`, formatIsoUtc(s.at)],
       [`${k}_reduction_id`, String(s.reductionId)],
+      [`${k}_statement`, text(s.statement)],
     );
     if (isSignatureStale(input, s.reductionId))
       entries.push([`${k}_note`, `signed reduction ${s.reductionId}, not this reduction ${input.reductionId}`]);

@@ -96,6 +96,18 @@ export function dominantUncertainty(g: GaugeResult): string {
   return top && top.contribution > 0 ? top.input : '';
 }
 
+/** The test conduct facts in a fixed order: CSV key, PDF label, value ('' when the plan does not say). */
+export function conductRows(input: ReportRecord | ReportInput): { csv: string; label: string; value: string }[] {
+  const p = input.procedure;
+  return [
+    { csv: 'procedure_reference', label: 'Written procedure', value: p.procedureReference ?? '' },
+    { csv: 'code_edition', label: 'Governing code', value: p.codeEdition ?? '' },
+    { csv: 'test_medium', label: 'Test medium', value: p.testMedium ?? '' },
+    { csv: 'test_temperature', label: 'Metal temperature', value: p.testTemperature ?? '' },
+    { csv: 'witness', label: 'Witness', value: p.witness ?? '' },
+  ];
+}
+
 /** The caution every export carries (DESIGN: reports carry it on every page). */
 export const REPORT_CAUTION =
   'Caution: a hydrotest stores energy. Follow the written test procedure. This comparison of measured strain with ' +

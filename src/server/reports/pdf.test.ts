@@ -93,6 +93,15 @@ describe('renderReportPdf (SI, draft)', () => {
     expect(all).toContain('#34 (this report)');
   });
 
+  it('prints the test conduct and the statement each signer signed', () => {
+    const all = squash(pages.map((p) => p.text).join(' '));
+    expect(all).toContain(squash('Test conduct'));
+    expect(all).toContain(squash('WP-HT-031 rev B'));
+    expect(all).toContain(squash('R. Adeyemi, authorised inspector'));
+    expect(all).toContain(squash('14 °C'));
+    expect(all).toContain(squash(`Engineering review signed by Ines Okafor: ${input.signatures[0]!.statement}`));
+  });
+
   it('lists every disposition reason in full', () => {
     const all = squash(pages.map((p) => p.text).join(' '));
     for (const d of Object.values(input.dispositions)) expect(all).toContain(squash(d.reason));

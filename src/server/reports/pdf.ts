@@ -12,6 +12,7 @@ import {
   VERDICT_LABELS,
   buildGaugeColumns,
   buildRosetteColumns,
+  conductRows,
   countOutcomes,
   formatDateTimeUtc,
   formatFixed,
@@ -99,6 +100,7 @@ export async function renderReportPdf(raw: ReportInput, options: RenderPdfOption
   drawTitleBlock(flow, input);
   drawVerdictBox(flow, input);
   drawYieldCheck(flow, input);
+  drawConduct(flow, input);
   drawTestHeader(flow, input);
   drawGaugeTables(flow, input);
   drawRosettes(flow, input);
@@ -273,6 +275,16 @@ function drawDefinitionColumns(flow: PageFlow, blocks: { title: string; rows: [s
   flow.y = top + Math.max(...heights) + 6;
 }
 
+/** How the test was conducted, as the plan records it; a fact the plan leaves out says so. */
+function drawConduct(flow: PageFlow, input: ReportRecord): void {
+  const rows = conductRows(input).map((r): [string, string] => [r.label, r.value || 'not recorded in the plan']);
+  flow.heading('Test conduct', 60);
+  drawDefinitionColumns(flow, [
+    { title: 'Procedure and code', rows: rows.slice(0, 3) },
+    { title: 'Conditions and witness', rows: rows.slice(3) },
+  ]);
+}
+
 function drawTestHeader(flow: PageFlow, input: ReportRecord): void {
   const u = unitLabels(input.units);
   const p = precisionFor(input.units);
@@ -331,7 +343,7 @@ function drawTestHeader(flow: PageFlow, input: ReportRecord): void {
         ],
         [
           'Edge-zone distance',
-          `${formatFixed(predicted.edgeZoneDistance, p.length)} ${u.length} (2.5·(r·t)^½, r mean radius)`,
+          `${formatFixed(predicted.edgeZoneDistance, p.length)} ${u.length} (2.5·√(r t), r mean radius)`,
         ],
         ['Engine', `version ${input.engineVersion} · reduction #${input.reductionId}`],
       ],
@@ -577,6 +589,10 @@ function drawSignatures(flow: PageFlow, input: ReportRecord): void {
     }),
     { size: 7.8 },
   );
+  for (const s of input.signatures) {
+    const who = `${s.kind === 'review' ? 'Engineering review' : 'Release'} signed by ${s.name}: `;
+    flow.paragraph(who + s.statement.replace(/\n/g, ' '), 7.8, COLOR.muted);
+  }
 }
 
 function drawWarnings(flow: PageFlow, input: ReportRecord): void {

@@ -6,7 +6,7 @@ import { createHash } from 'node:crypto';
 import type { ReportInput } from './report-input';
 
 /** Bump when the PDF's layout changes, so stored reports of the old layout are not served. */
-export const REPORT_LAYOUT = 'pdf-1';
+export const REPORT_LAYOUT = 'pdf-2';
 
 export function recordVersion(input: ReportInput): string {
   const { generatedAt: _generatedAt, ...content } = input;

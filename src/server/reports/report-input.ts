@@ -2,6 +2,7 @@
 // caller assembles from the database. The renderers are pure: same input, same bytes (apart from
 // generatedAt, which the caller sets). Vessel and material values are in the plan's own units.
 import type { Plan } from '../../lib/reduction/plan';
+import type { ProcedureFacts } from '../../lib/signing';
 import { normalizeResult, type StoredResult } from '../../lib/reduction/compat';
 import type { GaugeOutcome, ReductionResult, ShellModel, TestVerdict } from '../../lib/reduction/types';
 
@@ -25,6 +26,8 @@ export interface ReportSignature {
   at: Date;
   /** the reduction the signer saw; a signature on another reduction is shown as such */
   reductionId: number;
+  /** the words signed, as stored with the signature */
+  statement: string;
 }
 
 export interface ReportLog {
@@ -54,6 +57,8 @@ export interface ReportInput {
   model: ShellModel;
   /** plan pressure unit (MPa or psi) */
   testPressure: number;
+  /** how the test was conducted, from the plan (each absent when the plan does not say) */
+  procedure: ProcedureFacts;
   tolerances: Tolerances;
   reductionId: number;
   engineVersion: string;

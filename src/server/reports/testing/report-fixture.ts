@@ -15,6 +15,7 @@ import type {
 import { parsePlan, reduceLog, type PlanInput } from '../../../lib/reduction';
 import { chunked, syntheticLog } from '../../../lib/reduction/testing/synthetic-log';
 import type { ReportInput, UnitSystem } from '../report-input';
+import { procedureFacts } from '../../../lib/signing';
 
 interface Scenario {
   units: UnitSystem;
@@ -351,6 +352,11 @@ function buildRosette(grids: GaugeResult[], s: Scenario, lame: ModelPrediction):
   };
 }
 
+/** What the fixture's reviewer signed (the words of src/lib/signing.ts, shortened). */
+export const FIXTURE_REVIEW_STATEMENT =
+  'I, Ines Okafor, have reviewed reduction 34 (engine 1.0.0) of test 12 "Hydrotest T-101, after nozzle repair". ' +
+  'The test is recorded as conducted under: written test procedure WP-HT-031 rev B.';
+
 function buildInput(s: Scenario): ReportInput {
   const lame = predictShell(s, 'lame');
   const membrane = predictShell(s, 'membrane');
@@ -413,6 +419,16 @@ function buildInput(s: Scenario): ReportInput {
     units: s.units,
     model: 'lame',
     testPressure: s.testPressure,
+    procedure: procedureFacts({
+      units: s.units,
+      procedure: {
+        reference: 'WP-HT-031 rev B',
+        codeEdition: 'the governing pressure vessel code, 2025 edition',
+        testMedium: 'demineralised water',
+        testTemperature: s.units === 'SI' ? 14 : 57.2,
+        witness: 'R. Adeyemi, authorised inspector',
+      },
+    }),
     tolerances: {
       slopeBand: 0.1,
       minRSquared: 0.995,
@@ -463,6 +479,7 @@ function buildInput(s: Scenario): ReportInput {
         email: 'engineer@example.com',
         at: at('2026-12-02T17:05:00Z'),
         reductionId: 34,
+        statement: FIXTURE_REVIEW_STATEMENT,
       },
     ],
   };
@@ -489,6 +506,8 @@ export function buildReleasedReportInput(): ReportInput {
     email: 'qa@example.com',
     at: new Date('2026-12-03T08:15:00Z'),
     reductionId: 34,
+    statement:
+      'I, Tomas Lindqvist, release the strain record of reduction 34 (engine 1.0.0) of test 12, reviewed by Ines Okafor.',
   });
   return input;
 }
