@@ -58,10 +58,13 @@ export function formatMicrostrain(v: number | null | undefined, digits = 1): str
   return isNumber(v) ? `${formatFixed(v, digits)} µε` : DASH;
 }
 
+/** Significant figures of every strain-per-pressure slope: screens, the PDF and the CSV. */
+export const SLOPE_FIGURES = 4;
+
 /** A strain-per-pressure slope with 4 significant figures and its unit: `237.0 µε/MPa`, `1.634 µε/psi`. */
 export function formatSlope(v: number | null | undefined, pressureUnit: PressureUnit, withUnit = true): string {
   if (!isNumber(v)) return DASH;
-  const s = formatSignificant(v, 4);
+  const s = formatSignificant(v, SLOPE_FIGURES);
   return withUnit ? `${s} ${formatSlopeUnit(pressureUnit)}` : s;
 }
 

@@ -7,6 +7,15 @@ import UncertaintyBudgetTable from '../review/UncertaintyBudgetTable';
 import DispositionForm from './DispositionForm';
 import type { RecordDisposition, RecordGauge } from './record-types';
 import { DISPOSITION_LABEL } from '../../lib/verdict-words';
+import {
+  formatFixed,
+  formatInterval,
+  formatMicrostrain,
+  formatPercent,
+  formatRatio,
+  formatRSquared,
+  formatSignificant,
+} from '../../lib/ui-format';
 
 interface Props {
   gauge: RecordGauge;
@@ -20,8 +29,7 @@ interface Props {
   canDisposition: boolean;
   onChanged: () => void;
 }
-const fmt = (v: number | null | undefined, d = 2) =>
-  v === null || v === undefined || !Number.isFinite(v) ? '—' : v.toFixed(d);
+const fmt = formatFixed;
 
 /** One gauge: its strain–pressure plot, numbers, flags explained, disposition. */
 export default function GaugeDetail({
@@ -36,6 +44,7 @@ export default function GaugeDetail({
   canDisposition,
   onChanged,
 }: Props) {
+  const slope = (v: number | null | undefined) => formatSignificant(v);
   return (
     <div className="space-y-4" id={`gauge-${g.id}`}>
       <div className="flex flex-wrap items-center gap-3">
@@ -49,36 +58,36 @@ export default function GaugeDetail({
       <dl className="grid grid-cols-2 gap-x-6 gap-y-1 text-sm sm:grid-cols-4">
         <div>
           <dt className="text-ink-700">Predicted µε/{pressureUnit}</dt>
-          <dd className="num font-semibold">{fmt(g.predictedSlope)}</dd>
+          <dd className="num font-semibold">{slope(g.predictedSlope)}</dd>
         </div>
         <div>
           <dt className="text-ink-700">Measured µε/{pressureUnit}</dt>
-          <dd className="num font-semibold">{fmt(g.measuredSlope)}</dd>
+          <dd className="num font-semibold">{slope(g.measuredSlope)}</dd>
         </div>
         <div>
           <dt className="text-ink-700">Ratio (band ±{Math.round(slopeBand * 100)} %)</dt>
-          <dd className="num font-semibold">{fmt(g.ratio, 3)}</dd>
+          <dd className="num font-semibold">{formatRatio(g.ratio)}</dd>
         </div>
         <div>
           <dt className="text-ink-700">95 % interval</dt>
-          <dd className="num">{g.slopeCI95 ? `${fmt(g.slopeCI95[0])} – ${fmt(g.slopeCI95[1])}` : '—'}</dd>
+          <dd className="num">{formatInterval(g.slopeCI95, slope)}</dd>
         </div>
         <div>
           <dt className="text-ink-700">R² loading</dt>
-          <dd className="num">{fmt(g.rSquared, 4)}</dd>
+          <dd className="num">{formatRSquared(g.rSquared)}</dd>
         </div>
         <div>
           <dt className="text-ink-700">Hysteresis</dt>
-          <dd className="num">{g.hysteresis === null ? '—' : `${(g.hysteresis * 100).toFixed(1)} %`}</dd>
+          <dd className="num">{formatPercent(g.hysteresis, 1)}</dd>
         </div>
         <div>
           <dt className="text-ink-700">Zero shift</dt>
-          <dd className="num">{g.zeroShift === null ? '—' : `${fmt(g.zeroShift, 1)} µε`}</dd>
+          <dd className="num">{formatMicrostrain(g.zeroShift)}</dd>
         </div>
         <div>
           <dt className="text-ink-700">Effective wall</dt>
           <dd className="num">
-            {g.effectiveThickness === null ? '—' : `${fmt(g.effectiveThickness)} ${lengthUnit}`}{' '}
+            {g.effectiveThickness === null ? '—' : `${fmt(g.effectiveThickness, 2)} ${lengthUnit}`}{' '}
             <span className="text-ink-700">
               (nominal {nominalThickness} {lengthUnit})
             </span>
@@ -86,11 +95,11 @@ export default function GaugeDetail({
         </div>
         <div>
           <dt className="text-ink-700">Band (in band between)</dt>
-          <dd className="num">{g.bandSlope ? `${fmt(g.bandSlope[0])} – ${fmt(g.bandSlope[1])}` : '—'}</dd>
+          <dd className="num">{formatInterval(g.bandSlope, slope)}</dd>
         </div>
         <div>
           <dt className="text-ink-700">Creep in the top hold</dt>
-          <dd className="num">{g.holdCreep === null ? '—' : `${fmt(g.holdCreep, 1)} µε`}</dd>
+          <dd className="num">{formatMicrostrain(g.holdCreep)}</dd>
         </div>
         <div className="col-span-2">
           <dt className="text-ink-700">Transverse sensitivity corrected</dt>

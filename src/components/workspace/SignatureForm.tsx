@@ -1,6 +1,6 @@
 import { useState, type SubmitEvent } from 'react';
 import { api } from '../api';
-import { RELEASE_SCOPE, VERDICT_LABEL, VERDICT_MEANING, type VerdictCode } from '../../lib/verdict-words';
+import { VERDICT_LABEL, VERDICT_MEANING, type VerdictCode } from '../../lib/verdict-words';
 
 interface Props {
   kind: 'review' | 'release';
@@ -68,7 +68,7 @@ export default function SignatureForm({ kind, testId, reductionId, statement, ve
           <p className="font-semibold">
             After this nothing about the strain record can change: every write answers “locked”.
           </p>
-          <p>{RELEASE_SCOPE} This release does not return the vessel to service.</p>
+          <p>It does not return the vessel to service: the statement above says whose decision that is.</p>
         </div>
       )}
       <div className="grid gap-3 md:grid-cols-[16rem_1fr]">

@@ -2,6 +2,7 @@
 // by flag. The notes say in plain words what each flag saw and what usually causes it.
 import type { Plan } from './plan';
 import type { FlagCode, GaugeOutcome, GaugeResult } from './types';
+import { fmt } from './number-words';
 
 export interface GaugeFlagInput {
   predictedSlope: number;
@@ -42,8 +43,6 @@ export interface GaugeFlagOutcome {
   bandSlope: GaugeResult['bandSlope'];
   bandBasis: GaugeResult['bandBasis'];
 }
-
-const fmt = (x: number, digits = 3) => (Number.isFinite(x) ? Number(x.toPrecision(digits)).toString() : String(x));
 
 /** Below this share of the largest predicted principal strain a relative band is meaningless. */
 export const NEAR_ZERO_SHARE = 0.2;

@@ -13,6 +13,7 @@ import { lineAngleBetween, PERPENDICULAR_TOLERANCE_DEG, type Plan, type PlanGaug
 import { strainAtAngle, type PlannedGrid } from './shell';
 import type { ModelPrediction, TransverseCorrection } from './types';
 import { MM_PER_IN, PA_PER_MPA, planPressureUnit, PSI_IN_PA } from './units';
+import { fmt } from './number-words';
 
 /** Standard gravity, m/s² (exact by definition; NIST SP 811). */
 export const STANDARD_GRAVITY = 9.80665;
@@ -31,8 +32,6 @@ export interface GridSetup {
   headPressure: number;
   notes: string[];
 }
-
-const fmt = (x: number, digits = 3) => (Number.isFinite(x) ? Number(x.toPrecision(digits)).toString() : String(x));
 
 /** ρ·g·Δh from the pressure tap down to the gauge, in the plan's pressure unit (0 without both elevations). */
 export function headPressureAt(plan: Plan, gauge: Pick<PlanGauge, 'elevation'>): number {
@@ -144,7 +143,7 @@ export function planGridSetups(plan: Plan, grids: readonly PlannedGrid[], model:
         scales = [scale];
         correction = 'model-ratio';
         notes.push(
-          `transverse sensitivity Kt ${fmt(kt * 100)} % corrected for transverse sensitivity (standard correction, calibration ν₀ = 0.285) with the ${plan.model === 'lame' ? 'Lamé' : 'membrane'} model's predicted transverse/along strain ratio ${fmt(ratio, 4)} (factor ${fmt(uniaxialTransverseFactor(kt, ratio), 5)}); no perpendicular gauge at the same place`,
+          `transverse sensitivity Kt ${fmt(kt * 100)} % corrected (standard correction, calibration ν₀ = 0.285) with the ${plan.model === 'lame' ? 'Lamé' : 'membrane'} model's predicted transverse/along strain ratio ${fmt(ratio, 4)} (factor ${fmt(uniaxialTransverseFactor(kt, ratio), 5)}); no perpendicular gauge at the same place`,
         );
       } else {
         terms = [{ ch: own, coef: scale }];

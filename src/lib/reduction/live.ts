@@ -16,6 +16,7 @@ import { fitLine } from './stats';
 import type { ReductionResult, Series, YieldCheck } from './types';
 import { gridBudget, resolveUncertainty } from './uncertainty';
 import { planPressureUnit } from './units';
+import { fmt } from './number-words';
 
 export type LiveWarningCode = 'trend-outside-band' | 'hold-creep' | 'zero-drift' | 'near-yield';
 
@@ -63,7 +64,6 @@ export interface LiveSnapshot {
   verdict: 'pending' | 'flagged';
 }
 
-const fmt = (x: number, digits = 3) => (Number.isFinite(x) ? Number(x.toPrecision(digits)).toString() : String(x));
 const ORDINALS = ['first', 'second', 'third', 'fourth', 'fifth', 'sixth', 'seventh', 'eighth', 'ninth', 'tenth'];
 const ordinal = (n: number) => ORDINALS[n - 1] ?? `${n}th`;
 

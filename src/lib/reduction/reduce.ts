@@ -18,14 +18,13 @@ import type { GaugeResult, Hold, ReductionResult, RosetteResult, Series } from '
 import { describeUncertainty, gridBudget, resolveUncertainty } from './uncertainty';
 import { planLengthUnit, planPressureUnit, unitThatFits } from './units';
 import { ENGINE_VERSION } from './version';
+import { fmt } from './number-words';
 
 export interface ReduceOptions {
   onProgress?: (bytesRead: number) => void;
   /** buckets of the stored time history (default 5000) */
   seriesBuckets?: number;
 }
-
-const fmt = (x: number, digits = 3) => (Number.isFinite(x) ? Number(x.toPrecision(digits)).toString() : String(x));
 
 /** Count pressure levels that are more than `band` apart. */
 function distinctLevels(pressures: number[], band: number): number {

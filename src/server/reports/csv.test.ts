@@ -83,9 +83,11 @@ const SI_GAUGE_COLUMNS = [
 ];
 
 describe.each([
-  { units: 'SI', build: buildSiReportInput, p: 'MPa', len: 'mm', slopeDecimals: 2, pressure: '3.4' },
-  { units: 'US', build: buildUsReportInput, p: 'psi', len: 'in', slopeDecimals: 4, pressure: '450' },
-])('renderSummaryCsv ($units)', ({ build, p, len, slopeDecimals, pressure }) => {
+  { units: 'SI', build: buildSiReportInput, p: 'MPa', len: 'mm', pressure: '3.4' },
+  { units: 'US', build: buildUsReportInput, p: 'psi', len: 'in', pressure: '450' },
+])('renderSummaryCsv ($units)', ({ build, p, len, pressure }) => {
+  // four significant figures, as on the screens
+  const sig4 = (v: number) => v.toPrecision(4);
   const input = build();
   const csv = parseSummary(renderSummaryCsv(input));
 
@@ -95,12 +97,12 @@ describe.each([
     for (const c of csv.gaugeColumns) expect(c).toMatch(/^[a-z0-9_]+(MPa|psi)?[a-z0-9_]*$/);
   });
 
-  it('carries the engine values at fixed precision, and blanks for absent ones', () => {
+  it("carries the engine values at the screens' precision, and blanks for absent ones", () => {
     input.result.gauges.forEach((g, i) => {
       const row = csv.gauges[i]!;
       expect(row.channel).toBe(g.channel);
-      expect(row[`measured_slope_ue_per_${p}`]).toBe(g.measuredSlope!.toFixed(slopeDecimals));
-      expect(row[`predicted_slope_ue_per_${p}`]).toBe(g.predictedSlope.toFixed(slopeDecimals));
+      expect(row[`measured_slope_ue_per_${p}`]).toBe(sig4(g.measuredSlope!));
+      expect(row[`predicted_slope_ue_per_${p}`]).toBe(sig4(g.predictedSlope));
       expect(row.ratio).toBe(formatFixed(g.ratio, 4));
       expect(row.deviation_pct).toBe(formatFixed(g.deviation! * 100, 2));
       expect(Number(row[`slope_ci95_low_ue_per_${p}`])).toBeLessThan(Number(row[`slope_ci95_high_ue_per_${p}`]));
@@ -193,8 +195,8 @@ describe.each([
     const result = input.result.rosettes[0]!;
     expect(r.rosette_id).toBe('R1');
     expect(r.kind).toBe('rosette-rectangular');
-    expect(r[`eps1_ue_per_${p}`]).toBe(result.principalStrains[0].toFixed(slopeDecimals));
-    expect(r[`eps2_ue_per_${p}`]).toBe(result.principalStrains[1].toFixed(slopeDecimals));
+    expect(r[`eps1_ue_per_${p}`]).toBe(sig4(result.principalStrains[0]));
+    expect(r[`eps2_ue_per_${p}`]).toBe(sig4(result.principalStrains[1]));
     expect(r.principal_angle_from_axis_deg).toBe(result.principalAngleDeg.toFixed(1));
     expect(Number(r[`sigma1_at_test_pressure_${p}`])).toBeGreaterThan(Number(r[`sigma2_at_test_pressure_${p}`]));
     expect(r[`von_mises_at_test_pressure_${p}`]).not.toBe('');

@@ -1,6 +1,15 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { buildExportFilename, formatFixed, formatPercent, formatPlain, neutraliseFormula } from './format';
+import {
+  buildExportFilename,
+  formatFixed,
+  formatPercent,
+  formatPlain,
+  formatSlopeNumber,
+  neutraliseFormula,
+  showNumber,
+} from './format';
+import { formatSlope } from '../../lib/ui-format';
 import { buildAxis, decimalsForStep, pickTickStep } from './pdf-figure';
 import { interFontPath } from './pdf-text';
 import { buildSiReportInput } from './testing/report-fixture';
@@ -43,6 +52,24 @@ describe('number formatting', () => {
     input.draft = false;
     input.test.name = 'Prüfung Behälter Nr. 7';
     expect(buildExportFilename(input, 'csv')).toBe('hoopline-test-12-prufung-behalter-nr-7-r34.csv');
+  });
+});
+
+describe('one slope formatter for the screens, the PDF and the CSV', () => {
+  it.each([237.04, -71.083, 1.63414, -0.49172, 0.0123456, 1234.5])(
+    '%d: the CSV cell is the screen text with an ASCII minus, the PDF the screen text',
+    (v) => {
+      const screen = formatSlope(v, 'MPa', false);
+      expect(formatSlopeNumber(v)).toBe(screen.replace('\u2212', '-'));
+      expect(showNumber(formatSlopeNumber(v))).toBe(screen);
+      expect(Number(formatSlopeNumber(v))).toBeCloseTo(v, Math.max(0, 3 - Math.floor(Math.log10(Math.abs(v)))) - 1);
+    },
+  );
+  it('writes four significant figures and nothing for an absent slope', () => {
+    expect(formatSlopeNumber(237.04)).toBe('237.0');
+    expect(formatSlopeNumber(-1.63414)).toBe('-1.634');
+    expect(formatSlopeNumber(null)).toBe('');
+    expect(formatSlopeNumber(Number.NaN)).toBe('');
   });
 });
 

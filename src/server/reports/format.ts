@@ -9,12 +9,17 @@ import type {
   ShellModel,
   TestVerdict,
 } from '../../lib/reduction/types';
+import { SLOPE_FIGURES, formatSignificant } from '../../lib/ui-format';
 import { MODEL_NAME, VERDICT_LABEL, VERDICT_MEANING, VERDICT_SCOPE } from '../../lib/verdict-words';
 import { outcomeOf, unitLabels, type ReportInput, type ReportRecord, type UnitSystem } from './report-input';
 
-/** Decimal places per quantity; US slopes (µε/psi) are ~145× smaller than SI ones (µε/MPa). */
+/**
+ * Decimal places per quantity in the plan's units. Slopes are not here: they take significant
+ * figures (formatSlopeNumber), as on every screen.
+ */
 export interface Precision {
-  slope: number;
+  /** the water head, a pressure (MPa or psi) */
+  head: number;
   stress: number;
   length: number;
   distance: number;
@@ -22,8 +27,8 @@ export interface Precision {
 
 export function precisionFor(units: UnitSystem): Precision {
   return units === 'SI'
-    ? { slope: 2, stress: 1, length: 2, distance: 0 }
-    : { slope: 4, stress: 0, length: 4, distance: 2 };
+    ? { head: 4, stress: 1, length: 2, distance: 0 }
+    : { head: 6, stress: 0, length: 4, distance: 2 };
 }
 
 /** Fixed decimals, '' for null or non-finite, and never "-0.00". */
@@ -31,6 +36,28 @@ export function formatFixed(value: number | null | undefined, decimals: number):
   if (value === null || value === undefined || !Number.isFinite(value)) return '';
   const text = value.toFixed(decimals);
   return /^-0(\.0+)?$/.test(text) ? text.slice(1) : text;
+}
+
+/**
+ * A strain-per-pressure slope with the significant figures every screen shows (ui-format's
+ * formatSlope: 237.0 µε/MPa, 1.634 µε/psi), written with an ASCII minus so a spreadsheet reads the
+ * CSV cell as a number; the PDF turns it into a true minus with showNumber. '' when absent.
+ */
+export function formatSlopeNumber(value: number | null | undefined): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return '';
+  return formatSignificant(value, SLOPE_FIGURES).replace('\u2212', '-');
+}
+
+/**
+ * A number as the PDF shows it: typographic minus, and digits grouped by spaces from five
+ * digits up (29 500 000 psi), as ISO 80000 writes them. The CSV keeps plain ASCII.
+ */
+export function showNumber(text: string): string {
+  const match = /^(-?)(\d+)(\.\d+)?$/.exec(text);
+  if (!match) return text;
+  const [, sign, whole, fraction = ''] = match;
+  const grouped = whole!.length >= 5 ? whole!.replace(/\B(?=(\d{3})+$)/g, ' ') : whole!;
+  return `${sign ? '\u2212' : ''}${grouped}${fraction}`;
 }
 
 /** A fraction (0.05) as a percentage number (5.00), fixed decimals. */
@@ -141,27 +168,27 @@ export function buildGaugeColumns(input: ReportRecord): GaugeColumn[] {
     { csv: 'gauge_id', value: (g) => g.id },
     { csv: 'channel', value: (g) => g.channel },
     { csv: 'angle_deg', value: (g) => formatFixed(g.angleDeg, 1) },
-    { csv: `predicted_slope_${slope}`, value: (g) => formatFixed(g.predictedSlope, p.slope) },
-    { csv: `measured_slope_${slope}`, value: (g) => formatFixed(g.measuredSlope, p.slope) },
+    { csv: `predicted_slope_${slope}`, value: (g) => formatSlopeNumber(g.predictedSlope) },
+    { csv: `measured_slope_${slope}`, value: (g) => formatSlopeNumber(g.measuredSlope) },
     { csv: 'ratio', value: (g) => formatFixed(g.ratio, 4) },
     { csv: 'deviation_pct', value: (g) => formatPercent(g.deviation, 2) },
-    { csv: `slope_ci95_low_${slope}`, value: (g) => formatFixed(g.slopeCI95?.[0], p.slope) },
-    { csv: `slope_ci95_high_${slope}`, value: (g) => formatFixed(g.slopeCI95?.[1], p.slope) },
-    { csv: `band_low_${slope}`, value: (g) => formatFixed(g.bandSlope?.[0], p.slope) },
-    { csv: `band_high_${slope}`, value: (g) => formatFixed(g.bandSlope?.[1], p.slope) },
+    { csv: `slope_ci95_low_${slope}`, value: (g) => formatSlopeNumber(g.slopeCI95?.[0]) },
+    { csv: `slope_ci95_high_${slope}`, value: (g) => formatSlopeNumber(g.slopeCI95?.[1]) },
+    { csv: `band_low_${slope}`, value: (g) => formatSlopeNumber(g.bandSlope?.[0]) },
+    { csv: `band_high_${slope}`, value: (g) => formatSlopeNumber(g.bandSlope?.[1]) },
     { csv: 'band_basis', value: (g) => g.bandBasis },
-    { csv: `predicted_u95_${slope}`, value: (g) => formatFixed(g.predictedU95, p.slope) },
+    { csv: `predicted_u95_${slope}`, value: (g) => formatSlopeNumber(g.predictedU95) },
     { csv: 'dominant_uncertainty_input', value: dominantUncertainty },
     { csv: 'dominant_uncertainty_share_pct', value: (g) => formatPercent(g.uncertaintyBudget[0]?.share, 1) },
     { csv: 'r_squared', value: (g) => formatFixed(g.rSquared, 5) },
-    { csv: `unloading_slope_${slope}`, value: (g) => formatFixed(g.unloadingSlope, p.slope) },
+    { csv: `unloading_slope_${slope}`, value: (g) => formatSlopeNumber(g.unloadingSlope) },
     { csv: 'hysteresis_pct', value: (g) => formatPercent(g.hysteresis, 2) },
     { csv: 'zero_shift_ue', value: (g) => formatFixed(g.zeroShift, 1) },
     { csv: 'peak_strain_ue', value: (g) => formatFixed(g.peakStrain, 1) },
     { csv: 'hold_creep_ue', value: (g) => formatFixed(g.holdCreep, 1) },
     { csv: 'transverse_correction', value: (g) => g.transverseCorrection },
     { csv: 'paired_with', value: (g) => g.pairedWith ?? '' },
-    { csv: `water_head_${u.pressure}`, value: (g) => formatFixed(g.headPressure, p.slope + 2) },
+    { csv: `water_head_${u.pressure}`, value: (g) => formatFixed(g.headPressure, p.head) },
     { csv: `effective_thickness_${u.length}`, value: (g) => formatFixed(g.effectiveThickness, p.length) },
     { csv: `distance_to_discontinuity_${u.length}`, value: (g) => formatFixed(g.distanceToDiscontinuity, p.distance) },
     { csv: 'flags', value: (g) => g.flags.join(';') },
@@ -187,10 +214,10 @@ export function buildRosetteColumns(input: ReportRecord): RosetteColumn[] {
     { csv: 'rosette_id', value: (r) => r.id },
     { csv: 'kind', value: (r) => r.kind },
     { csv: 'angle_deg', value: (r) => formatFixed(r.angleDeg, 1) },
-    { csv: `eps1_${slope}`, value: (r) => formatFixed(r.principalStrains[0], p.slope) },
-    { csv: `eps2_${slope}`, value: (r) => formatFixed(r.principalStrains[1], p.slope) },
-    { csv: `predicted_eps1_${slope}`, value: (r) => formatFixed(r.predictedPrincipalStrains[0], p.slope) },
-    { csv: `predicted_eps2_${slope}`, value: (r) => formatFixed(r.predictedPrincipalStrains[1], p.slope) },
+    { csv: `eps1_${slope}`, value: (r) => formatSlopeNumber(r.principalStrains[0]) },
+    { csv: `eps2_${slope}`, value: (r) => formatSlopeNumber(r.principalStrains[1]) },
+    { csv: `predicted_eps1_${slope}`, value: (r) => formatSlopeNumber(r.predictedPrincipalStrains[0]) },
+    { csv: `predicted_eps2_${slope}`, value: (r) => formatSlopeNumber(r.predictedPrincipalStrains[1]) },
     { csv: 'principal_angle_from_axis_deg', value: (r) => formatFixed(r.principalAngleDeg, 1) },
     { csv: 'expected_principal_angle_deg', value: (r) => formatFixed(r.expectedPrincipalAngleDeg, 1) },
     { csv: `sigma1_per_${u.pressure}`, value: (r) => formatFixed(r.stressesPerUnitPressure[0], 4) },

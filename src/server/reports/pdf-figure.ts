@@ -3,7 +3,7 @@
 // origin and the band around it (the engine's bandSlope: ± slope band, near-zero or from the
 // uncertainties; ± slope band × predicted when the result has none).
 import type { GaugeOutcome, GaugeResult } from '../../lib/reduction/types';
-import { OUTCOME_LABELS, formatFixed, formatPlain } from './format';
+import { OUTCOME_LABELS, formatFixed, formatPlain, formatSlopeNumber, showNumber } from './format';
 import { COLOR, OUTCOME_COLOR } from './pdf-style';
 import { drawTextLine, measureText } from './pdf-text';
 
@@ -21,7 +21,6 @@ export interface FigureContext {
   testPressure: number;
   slopeBand: number;
   outcome: GaugeOutcome;
-  slopeDecimals: number;
 }
 
 /** A round step (1, 2, 2.5 or 5 × 10^k) near range / target. */
@@ -201,12 +200,12 @@ export function drawStrainPressureFigure(doc: Doc, box: Box, gauge: GaugeResult,
 
   // Caption under the plot: the numbers the figure shows.
   const unit = `µε/${ctx.pressureUnit}`;
-  const measured = gauge.measuredSlope === null ? 'no fit' : formatFixed(gauge.measuredSlope, ctx.slopeDecimals);
+  const measured = gauge.measuredSlope === null ? 'no fit' : showNumber(formatSlopeNumber(gauge.measuredSlope));
   const ratio = gauge.ratio === null ? '' : ` · ratio ${formatFixed(gauge.ratio, 3)}`;
   const capY = plot.y + plot.height + 23;
   drawTextLine(
     doc,
-    `measured ${measured} · predicted ${formatFixed(k, ctx.slopeDecimals)} ${unit}${ratio}`,
+    `measured ${measured} · predicted ${showNumber(formatSlopeNumber(k))} ${unit}${ratio}`,
     box.x,
     capY,
     {

@@ -18,7 +18,9 @@ import {
   formatFixed,
   formatPercent,
   formatPlain,
+  formatSlopeNumber,
   isSignatureStale,
+  showNumber,
   precisionFor,
   YIELD_SURFACE_LABELS,
   dominantUncertainty,
@@ -122,18 +124,6 @@ function collectBytes(doc: Doc): Promise<Buffer> {
     doc.on('end', () => resolve(Buffer.concat(chunks)));
     doc.on('error', reject);
   });
-}
-
-/**
- * A number as the PDF shows it: typographic minus, and digits grouped by spaces from five
- * digits up (29 500 000 psi), as ISO 80000 writes them. The CSV keeps plain ASCII.
- */
-function showNumber(text: string): string {
-  const match = /^(-?)(\d+)(\.\d+)?$/.exec(text);
-  if (!match) return text;
-  const [, sign, whole, fraction = ''] = match;
-  const grouped = whole!.length >= 5 ? whole!.replace(/\B(?=(\d{3})+$)/g, ' ') : whole!;
-  return `${sign ? '\u2212' : ''}${grouped}${fraction}`;
 }
 
 function drawTitleBlock(flow: PageFlow, input: ReportRecord): void {
@@ -319,11 +309,11 @@ function drawTestHeader(flow: PageFlow, input: ReportRecord): void {
         ['Model', `${MODEL_LABELS[input.model]} (${input.units} units)`],
         [
           'Predicted hoop',
-          `${formatFixed(used.hoopStrainPerPressure, p.slope)} ${slopeUnit} (${other} ${formatFixed(predicted[other].hoopStrainPerPressure, p.slope)})`,
+          `${showNumber(formatSlopeNumber(used.hoopStrainPerPressure))} ${slopeUnit} (${other} ${showNumber(formatSlopeNumber(predicted[other].hoopStrainPerPressure))})`,
         ],
         [
           'Predicted axial',
-          `${formatFixed(used.axialStrainPerPressure, p.slope)} ${slopeUnit} (${other} ${formatFixed(predicted[other].axialStrainPerPressure, p.slope)})`,
+          `${showNumber(formatSlopeNumber(used.axialStrainPerPressure))} ${slopeUnit} (${other} ${showNumber(formatSlopeNumber(predicted[other].axialStrainPerPressure))})`,
         ],
         [
           'Membrane vs Lamé',
@@ -607,7 +597,6 @@ function drawFigures(flow: PageFlow, input: ReportRecord): void {
   const gauges = input.result.gauges;
   if (gauges.length === 0) return;
   const u = unitLabels(input.units);
-  const p = precisionFor(input.units);
   const columns = 2;
   const gapX = 22;
   const gapY = 16;
@@ -628,8 +617,8 @@ function drawFigures(flow: PageFlow, input: ReportRecord): void {
       const col = i % columns;
       const row = Math.floor(i / columns);
       const alt =
-        `Strain against pressure for gauge ${g.id}: measured slope ${formatFixed(g.measuredSlope, p.slope) || 'none'}, ` +
-        `predicted ${formatFixed(g.predictedSlope, p.slope)} µε/${u.pressure}, ${OUTCOME_LABELS[outcomeOf(input, g.id)]}.`;
+        `Strain against pressure for gauge ${g.id}: measured slope ${showNumber(formatSlopeNumber(g.measuredSlope)) || 'none'}, ` +
+        `predicted ${showNumber(formatSlopeNumber(g.predictedSlope))} µε/${u.pressure}, ${OUTCOME_LABELS[outcomeOf(input, g.id)]}.`;
       tagged(
         flow.doc,
         'Figure',
@@ -643,7 +632,6 @@ function drawFigures(flow: PageFlow, input: ReportRecord): void {
               testPressure: input.testPressure,
               slopeBand: input.tolerances.slopeBand,
               outcome: outcomeOf(input, g.id),
-              slopeDecimals: p.slope,
             },
           ),
         { alt },
