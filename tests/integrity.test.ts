@@ -251,3 +251,45 @@ describe('the audit hash chain', () => {
     }
   });
 });
+
+describe('a deadlock inside an audited change', () => {
+  it('is retried as a whole, never turned into a "SAVEPOINT does not exist" error', async () => {
+    // Two changes take the same two locks in opposite order: a material row, then the audit chain
+    // head (appending inside the change's transaction), and the chain head, then the material
+    // row. MariaDB rolls one of them back as a deadlock victim; that one must run again.
+    const s = await scratchDatabase('deadlock_retry');
+    try {
+      const { transaction } = await import('../src/db/queries/transaction');
+      const { appendAuditEvent } = await import('../src/db/queries/audit');
+      const { materials, auditEvents } = await import('../src/db/schema');
+      const { eq } = await import('drizzle-orm');
+      await s.db
+        .insert(materials)
+        .values({ name: 'deadlock steel', elasticModulusMPa: 200000, poissonRatio: 0.3, yieldStrengthMPa: 260 });
+      const [m] = await s.db.select().from(materials).where(eq(materials.name, 'deadlock steel'));
+      const pause = () => new Promise((r) => setTimeout(r, 150));
+      const runs = { a: 0, b: 0 };
+      const a = transaction(s.db, async (tx) => {
+        runs.a++;
+        await tx.select().from(materials).where(eq(materials.id, m!.id)).for('update');
+        await pause();
+        await appendAuditEvent(tx, { actor: 'a', action: 'deadlock-a' });
+      });
+      const b = transaction(s.db, async (tx) => {
+        runs.b++;
+        await appendAuditEvent(tx, { actor: 'b', action: 'deadlock-b' });
+        await pause();
+        await tx.select().from(materials).where(eq(materials.id, m!.id)).for('update');
+      });
+      await Promise.all([a, b]);
+      // one of them was the victim and ran twice; both committed, each audit row once, in one chain
+      expect(runs.a + runs.b).toBeGreaterThanOrEqual(3);
+      const rows = await s.db.select().from(auditEvents).orderBy(auditEvents.chainSeq);
+      expect(rows.map((r) => r.action).sort()).toEqual(['deadlock-a', 'deadlock-b']);
+      expect(rows.map((r) => r.chainSeq)).toEqual([1, 2]);
+      expect(rows[1]!.prevHash).toBe(rows[0]!.hash);
+    } finally {
+      await s.pool.end();
+    }
+  });
+});

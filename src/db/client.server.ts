@@ -9,6 +9,7 @@ import {
 import mysql from 'mysql2/promise';
 import { getConfig } from '../config.server';
 import { isDeadlock } from './errors';
+import { DEADLOCK_ATTEMPTS } from './queries/transaction';
 import { onShutdown } from '../lifecycle.server';
 import * as schema from './schema';
 
@@ -57,7 +58,7 @@ export async function inTransaction<T>(fn: (tx: Tx) => Promise<T>, db: Db = getD
     try {
       return await db.transaction(fn);
     } catch (err) {
-      if (attempt >= 3 || !isDeadlock(err)) throw err;
+      if (attempt >= DEADLOCK_ATTEMPTS || !isDeadlock(err)) throw err;
       await new Promise((r) => setTimeout(r, 20 * attempt + Math.random() * 30));
     }
   }

@@ -2,6 +2,7 @@ import { and, asc, desc, eq, gt, gte, isNull, like, lte, sql, type SQL } from 'd
 import type { Conn } from '../client.server';
 import { auditChainHeads, auditEvents, type AuditEvent } from '../schema';
 import { GENESIS_HASH, auditRowHash, type ChainedContent } from './audit-chain';
+import { transaction } from './transaction';
 
 export interface AuditInput {
   userId?: number | null;
@@ -38,11 +39,11 @@ async function lockChainHead(tx: Conn, chainKey: number): Promise<{ lastSeq: num
 
 /**
  * Append one event to its chain. Pass the transaction of the change it records, so both commit
- * together; given the pool, it runs in a transaction of its own. The table has no update or delete
+ * together (inside it, with no savepoint); given the pool, it runs in a transaction of its own. The table has no update or delete
  * path anywhere in the code, and triggers refuse both.
  */
 export async function appendAuditEvent(db: Conn, e: AuditInput): Promise<void> {
-  await db.transaction(async (tx) => {
+  await transaction(db, async (tx) => {
     const chainKey = e.testId ?? 0;
     const head = await lockChainHead(tx, chainKey);
     const row: ChainedContent = {
@@ -90,7 +91,7 @@ export async function sealUnchainedAuditRows(db: Conn): Promise<number> {
       .limit(200);
     if (!batch.length) return sealed;
     for (const r of batch) {
-      await db.transaction(async (tx) => {
+      await transaction(db, async (tx) => {
         const head = await lockChainHead(tx, r.chainKey);
         const seq = head.lastSeq + 1;
         const hash = auditRowHash(head.lastHash, chainedContent(r, seq));

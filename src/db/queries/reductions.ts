@@ -3,6 +3,7 @@ import type { Conn } from '../client.server';
 import { gaugeResults, logFiles, reductions, rosetteResults, tests, type Reduction } from '../schema';
 import { appendAuditEvent } from './audit';
 import { insertedId } from './inserted-id';
+import { transaction } from './transaction';
 
 export async function queueReduction(
   db: Conn,
@@ -46,7 +47,7 @@ export const listReductions = (db: Conn, testId: number) =>
  * with SELECT … FOR UPDATE SKIP LOCKED so concurrent workers never claim the same row.
  */
 export async function claimNextReduction(db: Conn, workerId: string, leaseSeconds: number): Promise<Reduction | null> {
-  return db.transaction(async (tx) => {
+  return transaction(db, async (tx) => {
     const now = new Date();
     const [job] = await tx
       .select()
@@ -195,7 +196,7 @@ export async function completeReduction(
     summary: { verdict: 'conforms' | 'flagged' | 'incomplete'; flaggedCount: number; logIds: number[] };
   },
 ): Promise<{ stored: boolean; current: boolean; refused?: 'lease' | 'released' }> {
-  return db.transaction(async (tx) => {
+  return transaction(db, async (tx) => {
     // Lock the test row first: completions of one test's reductions run one after another, so
     // marking older ones superseded never deadlocks with a second worker doing the same, and a
     // release (which takes the same lock) comes wholly before or wholly after.
@@ -311,7 +312,7 @@ export function failReduction(
     auditWhenFailed?: { actor: string; testId: number; details: Record<string, unknown> };
   },
 ): Promise<'failed' | 'requeued' | 'lost'> {
-  return db.transaction(async (tx) => {
+  return transaction(db, async (tx) => {
     const outcome = await failOrRequeue(tx, o);
     if (outcome === 'failed' && o.auditWhenFailed)
       await appendAuditEvent(tx, { action: 'reduction-failed', ...o.auditWhenFailed });
