@@ -118,6 +118,11 @@ describe('a hydrotest from plan to inspector link, in the browser', () => {
     await wall.fill('10');
     await wall.press('Tab');
     await expect.poll(async () => wall.getAttribute('aria-invalid')).not.toBe('true');
+    // the test conduct the signers attest
+    await page.getByLabel('Written test procedure (optional)').fill('E2E-HT-1 rev A');
+    await page.getByLabel('Witness (optional)').fill('O. Witness, authorised inspector');
+    await page.getByLabel(/^Metal temperature during the test/).fill('17');
+    await s.shoot('plan-test-conduct');
     await page.getByRole('button', { name: /save plan/i }).click();
     await expect
       .poll(async () =>
@@ -188,7 +193,7 @@ describe('a hydrotest from plan to inspector link, in the browser', () => {
       .fill('Bond of A2 inspected: edge lifted; axial strain taken from A1 and the rosette-free mirror gauge.');
     await page.getByRole('radio', { name: /Exclude/ }).check();
     await page.getByRole('button', { name: /Record disposition/ }).click();
-    await page.getByText('Strain comparison verdict: Conforms').waitFor();
+    await page.getByText('Strain comparison verdict: Conforms', { exact: true }).waitFor();
     await page
       .getByText(/^Conforms: the measured strain slopes agree with the elastic prediction/)
       .first()
@@ -197,6 +202,10 @@ describe('a hydrotest from plan to inspector link, in the browser', () => {
     await page.getByRole('button', { name: 'Sign engineering review' }).click();
     // the statement is shown before signing, and the password is asked again
     await page.getByText(/I, Imke Sorensen \(demo\), have reviewed reduction \d+/).waitFor();
+    await page
+      .getByTestId('signature-statement')
+      .getByText(/written test procedure E2E-HT-1 rev A; metal temperature 17 °C; witnessed by O\. Witness/)
+      .waitFor();
     await page.getByLabel('Your password').fill('not my password');
     await page.getByRole('button', { name: 'Sign now' }).click();
     await page.getByRole('alert').filter({ hasText: 'not your password' }).waitFor();
@@ -229,7 +238,7 @@ describe('a hydrotest from plan to inspector link, in the browser', () => {
       .getByTestId('draft-banner')
       .getByText(/DRAFT — NOT RELEASED/)
       .waitFor();
-    await early.page.getByText('Strain comparison verdict: Conforms').waitFor();
+    await early.page.getByText('Strain comparison verdict: Conforms', { exact: true }).waitFor();
     await early.shoot('shared-draft');
     noProblems(early);
     await page.goto(`/tests/${testId}/review`);
@@ -280,6 +289,13 @@ describe('a hydrotest from plan to inspector link, in the browser', () => {
     await page.goto(new URL(shareUrl).pathname);
     await page.getByRole('heading', { name: 'E2E hydrotest of vessel E2E-7' }).waitFor();
     await expect.poll(async () => page.locator('canvas').count()).toBeGreaterThanOrEqual(2);
+    // the inspector reads the test conduct and what each signer attested
+    await page.getByRole('heading', { name: 'Test conduct' }).waitFor();
+    await page.getByText('E2E-HT-1 rev A', { exact: true }).waitFor();
+    expect(await page.getByText(/^I, Quentin Abara \(demo\), release the strain record/).count()).toBe(1);
+    expect(
+      await page.getByText(/^I, Imke Sorensen \(demo\), have reviewed.*written test procedure E2E-HT-1 rev A/).count(),
+    ).toBe(1);
     await s.shoot('shared-record');
     for (const name of [/sign/i, /release/i, /record disposition/i, /create link/i, /reduce/i, /revoke/i, /save/i]) {
       expect(await page.getByRole('button', { name }).count(), String(name)).toBe(0);

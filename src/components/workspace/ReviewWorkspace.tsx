@@ -13,6 +13,7 @@ import YieldCheckCard from '../review/YieldCheckCard';
 import type { FlagCode } from '../../lib/reduction/types';
 import GaugeDetail from './GaugeDetail';
 import SignOffBar from './SignOffBar';
+import ConductAndSignatures from './ConductAndSignatures';
 import { normalizeRecordResult, type RecordView } from './record-types';
 import { can } from '../../lib/roles';
 import { DISPOSITION_LABEL } from '../../lib/verdict-words';
@@ -184,6 +185,7 @@ export default function ReviewWorkspace({
           pressureUnit={result.pressureUnit}
         />
       </section>
+      <ConductAndSignatures record={record} />
       {result.warnings.length > 0 && (
         <section className="card" aria-labelledby="warn-h">
           <h2 id="warn-h" className="mb-2 text-lg font-semibold">
