@@ -110,3 +110,9 @@ export function formatInterval(
   if (!range || !isNumber(range[0]) || !isNumber(range[1])) return DASH;
   return `${format(range[0])} – ${format(range[1])}`;
 }
+
+/** A moment as every screen shows it: `2026-12-03 14:04 UTC` (the PDF and the CSV write the same). */
+export function formatUtc(at: Date | string): string {
+  const d = typeof at === 'string' ? new Date(at) : at;
+  return Number.isNaN(d.getTime()) ? DASH : `${d.toISOString().slice(0, 16).replace('T', ' ')} UTC`;
+}

@@ -102,8 +102,14 @@ export function verdictStanding(verdict: VerdictCode, counts: VerdictCounts): st
 
 /** The one name of each shell model, everywhere (plan editor, review, PDF, CSV). */
 export const MODEL_NAME: Record<'lame' | 'membrane', string> = {
-  lame: 'Lamé thick wall, outer surface',
-  membrane: 'membrane thin wall, mean radius',
+  lame: 'Lamé thick wall',
+  membrane: 'membrane thin wall',
+};
+
+/** Where each model's predicted strain applies: said beside the model as the comparison's basis. */
+export const MODEL_BASIS: Record<'lame' | 'membrane', string> = {
+  lame: 'strain predicted at the outer surface, where the gauges are bonded',
+  membrane: 'strain from the mean radius (the hand calculation)',
 };
 
 /** The edge zone's size with r defined, wherever 2.5·√(r t) is shown. */

@@ -10,8 +10,8 @@ import { MODEL_NAME } from '../../lib/verdict-words';
 import { usePlanEditor } from './plan-editor-context';
 
 const MODELS = [
-  { value: 'lame', label: `${MODEL_NAME.lame} (default)` },
-  { value: 'membrane', label: `${MODEL_NAME.membrane} (hand calculation)` },
+  { value: 'lame', label: `${MODEL_NAME.lame}, outer surface (default)` },
+  { value: 'membrane', label: `${MODEL_NAME.membrane}, mean radius (hand calculation)` },
 ];
 
 /** Model, test pressure (with the code-rule helper beside it) and the log's pressure and time columns. */

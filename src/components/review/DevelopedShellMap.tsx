@@ -63,7 +63,7 @@ export default function DevelopedShellMap({
     ...layout.features
       .filter((f) => f.kind !== 'nozzle' || f.arc === null)
       .map((f) => ({
-        text: `${f.label} ${f.kind === 'thickness-change' ? 'thickness change' : f.kind}`,
+        text: `${f.kind === 'thickness-change' ? 'thickness change' : f.kind} ${f.label}`,
         x: sx(f.axialPosition),
         anchor: 'middle' as const,
       })),

@@ -179,5 +179,8 @@ describe('formatTicks', () => {
     expect(formatTicks([-50, 0, 50], 50)).toEqual(['\u221250', '0', '50']);
     expect(formatTicks([0, 0.5, 1], 0.5)).toEqual(['0.0', '0.5', '1.0']);
     expect(formatTicks([0.9, 0.95], 0.05)).toEqual(['0.90', '0.95']);
+    // a quarter step keeps both decimals (it read 0.3, 0.5, 0.8 on the pressure axis)
+    expect(formatTicks([0, 0.25, 0.5, 0.75], 0.25)).toEqual(['0.00', '0.25', '0.50', '0.75']);
+    expect(formatTicks([0, 2.5, 5], 2.5)).toEqual(['0.0', '2.5', '5.0']);
   });
 });

@@ -116,7 +116,8 @@ describe('overview, map, table', () => {
     const t = text(html);
     expect(t).toMatch(/No position in the plan: D1/);
     expect(t).toContain('nozzle N1');
-    expect(t).toContain('T1 thickness change');
+    expect(t).toContain('thickness change T1');
+    expect(t).not.toMatch(/nozzle nozzle/);
     expect(t).toContain('Edge zone');
   });
   it('DevelopedShellMap: a sphere gets a note instead', () => {

@@ -82,7 +82,8 @@ export function layoutShellMap(plan: ShellMapPlan, edgeZoneDistance: number): Sh
   const ringZones: RingZone[] = seams.map((s) => ({ x0: s.x - ez, x1: s.x + ez, label: 'edge zone' }));
   const pointZones: PointZone[] = [];
   const features = (v.features ?? []).map((f, i) => {
-    const label = f.id ?? f.name ?? `${f.kind} ${i + 1}`;
+    // the feature's own name, else its place in the plan's list; the map puts the kind before it
+    const label = f.name ?? f.id ?? String(i + 1);
     const ring = f.kind === 'head' || f.kind === 'thickness-change' || f.clockDeg === undefined;
     if (ring) ringZones.push({ x0: f.axialPosition - ez, x1: f.axialPosition + ez, label: 'edge zone' });
     else {

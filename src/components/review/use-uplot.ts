@@ -40,7 +40,10 @@ export function useUplot(
 
 /** Tick labels with as many decimals as the tick step needs and a true minus sign. */
 export function formatTicks(splits: number[], increment: number): string[] {
-  const digits = increment > 0 ? Math.max(0, Math.min(6, -Math.floor(Math.log10(increment) + 1e-9))) : 0;
+  // as many decimals as the step needs to be exact: a step of 0.25 shows 0.25, 0.50, 0.75
+  let digits = 0;
+  if (increment > 0)
+    while (digits < 6 && Math.abs(Math.round(increment * 10 ** digits) - increment * 10 ** digits) > 1e-6) digits++;
   return splits.map((v) => (v === null || v === undefined ? '' : formatFixed(v, digits)));
 }
 

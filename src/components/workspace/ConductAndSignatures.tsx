@@ -1,11 +1,10 @@
 import { procedureFacts } from '../../lib/signing';
+import { formatUtc } from '../../lib/ui-format';
 import type { RecordView } from './record-types';
 
 interface Props {
   record: RecordView;
 }
-
-const utc = (iso: string) => `${iso.slice(0, 16).replace('T', ' ')} UTC`;
 
 /** How the test was conducted, as the plan records it, and what each signer attested, word for word. */
 export default function ConductAndSignatures({ record }: Props) {
@@ -39,7 +38,7 @@ export default function ConductAndSignatures({ record }: Props) {
           {record.signatures.map((s, i) => (
             <li key={i}>
               <strong>{s.kind === 'review' ? 'Engineering review' : 'Release of the strain record'}</strong> by {s.name}
-              , {utc(s.at)}
+              , {formatUtc(s.at)}
               {s.reductionId !== current && (
                 <span className="font-semibold text-flag-ink"> (reduction {s.reductionId}, not the current one)</span>
               )}

@@ -1,5 +1,6 @@
 import { useState } from 'react';
 import { can } from '../../lib/roles';
+import { formatUtc } from '../../lib/ui-format';
 import { procedureFacts, signatureStatement } from '../../lib/signing';
 import { announceTestChanged } from '../tests/TestStatusSteps';
 import SignatureForm from './SignatureForm';
@@ -50,13 +51,13 @@ export default function SignOffBar({ record, role, userEmail, userName, onChange
       <div className="min-w-64 flex-1 text-sm">
         {release ? (
           <p>
-            <strong>Strain record released</strong> by {release.name}, {new Date(release.at).toUTCString()} — the record
-            is locked. Returning the vessel to service is the owner’s and the authorised inspector’s decision.
+            <strong>Strain record released</strong> by {release.name}, {formatUtc(release.at)} — the record is locked.
+            Returning the vessel to service is the owner’s and the authorised inspector’s decision.
           </p>
         ) : review ? (
           <p>
-            <strong>Reviewed</strong> by {review.name}, {new Date(review.at).toUTCString()} (reduction{' '}
-            {review.reductionId}). Waiting for QA to release the strain record.
+            <strong>Reviewed</strong> by {review.name}, {formatUtc(review.at)} (reduction {review.reductionId}). Waiting
+            for QA to release the strain record.
           </p>
         ) : blockers.length ? (
           <p>Not ready for review: {blockers.join('; ')}.</p>

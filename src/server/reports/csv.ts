@@ -1,7 +1,7 @@
 // The pass/flag summary as CSV: a header block of `# key,value` lines, then one row per gauge,
 // then the rosettes. Sections are separated by a blank line and a `# section,<name>` line, so a
 // reader that skips `#` comment lines gets two plain tables.
-import { RELEASE_SCOPE, VERDICT_MEANING, VERDICT_SCOPE } from '../../lib/verdict-words';
+import { MODEL_BASIS, RELEASE_SCOPE, VERDICT_MEANING, VERDICT_SCOPE } from '../../lib/verdict-words';
 import Papa from 'papaparse';
 import {
   REPORT_CAUTION,
@@ -107,7 +107,7 @@ function buildHeaderEntries(input: ReportRecord): HeaderEntry[] {
     ...conductRows(input).map((r): HeaderEntry => [r.csv, text(r.value)]),
     ['units', input.units],
     ['model', input.model],
-    ['model_description', MODEL_LABELS[input.model]],
+    ['model_description', `${MODEL_LABELS[input.model]}: ${MODEL_BASIS[input.model]}`],
     [`test_pressure_${u.pressure}`, formatPlain(input.testPressure)],
     [`predicted_hoop_${slope}_lame`, formatSlopeNumber(predicted.lame.hoopStrainPerPressure)],
     [`predicted_axial_${slope}_lame`, formatSlopeNumber(predicted.lame.axialStrainPerPressure)],

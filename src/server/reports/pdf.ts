@@ -29,6 +29,7 @@ import { drawFigureLegend, drawStrainPressureFigure } from './pdf-figure';
 import { PageFlow, drawTable, type TableCell } from './pdf-layout';
 import {
   DISPOSITION_LABEL,
+  MODEL_BASIS,
   NEAR_YIELD_ADVICE,
   VERDICT_SCOPE,
   verdictStanding,
@@ -306,7 +307,7 @@ function drawTestHeader(flow: PageFlow, input: ReportRecord): void {
       title: 'Test and prediction',
       rows: [
         ['Test pressure', `${formatPlain(input.testPressure)} ${u.pressure}`],
-        ['Model', `${MODEL_LABELS[input.model]} (${input.units} units)`],
+        ['Model', `${MODEL_LABELS[input.model]}: ${MODEL_BASIS[input.model]} (${input.units} units)`],
         [
           'Predicted hoop',
           `${showNumber(formatSlopeNumber(used.hoopStrainPerPressure))} ${slopeUnit} (${other} ${showNumber(formatSlopeNumber(predicted[other].hoopStrainPerPressure))})`,
