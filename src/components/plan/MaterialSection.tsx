@@ -64,7 +64,8 @@ export default function MaterialSection() {
             <option value="">{materials.length ? '— choose a material —' : 'No stored materials'}</option>
             {materials.map((m) => (
               <option key={m.id} value={m.id}>
-                {m.name} (E {m.elasticModulusMPa} MPa)
+                {m.name} (E{' '}
+                {units === 'US' ? `${Math.round(mpaToPsi(m.elasticModulusMPa))} psi` : `${m.elasticModulusMPa} MPa`})
               </option>
             ))}
           </select>

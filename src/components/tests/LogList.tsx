@@ -21,7 +21,7 @@ export interface LogRow {
 }
 interface Props {
   logs: LogRow[];
-  expected: { pressure: string; time?: string; channels: string[] };
+  expected: { pressure: string; time?: string; channels: string[]; channelGauge?: Record<string, string> };
 }
 
 const span = (a: number | null, b: number | null) =>
@@ -46,7 +46,7 @@ export default function LogList({ logs, expected }: Props) {
   const wanted = [
     { role: 'pressure', name: expected.pressure },
     ...(expected.time ? [{ role: 'time', name: expected.time }] : []),
-    ...expected.channels.map((c) => ({ role: 'gauge channel', name: c })),
+    ...expected.channels.map((c) => ({ role: expected.channelGauge?.[c] ?? 'gauge channel', name: c })),
   ];
   const missing = wanted.filter((w) => !cols.includes(w.name));
   return (

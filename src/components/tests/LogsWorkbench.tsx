@@ -10,7 +10,7 @@ interface Props {
   canUpload: boolean;
   locked: boolean;
   initialLogs: LogRow[];
-  expected: { pressure: string; time?: string; channels: string[] };
+  expected: { pressure: string; time?: string; channels: string[]; channelGauge?: Record<string, string> };
 }
 
 /** The Logs page: upload, the list with preview and mapping, and the reduction. */
