@@ -21,8 +21,10 @@ export default function FlagGlossary({ codes, heading = 'What the flags mean' }:
           return (
             <div key={code} id={`flag-${code}`} className="scroll-mt-20 py-3">
               <dt className="flex flex-wrap items-baseline gap-2">
-                <span className="font-mono text-sm font-semibold">{code}</span>
                 <span className="text-sm font-semibold text-ink-900">{f.title}</span>
+                <span className="text-xs text-ink-700">
+                  code <span className="font-mono">{code}</span> in the CSV and the API
+                </span>
                 {f.safety && <span className="rounded bg-flag px-1.5 text-xs font-bold text-white">⚠ safety</span>}
               </dt>
               <dd className="mt-1 text-sm text-ink-900">

@@ -48,7 +48,7 @@ export function formatLength(mm: number | null | undefined, u: PlanUnits): strin
   if (mm === null || mm === undefined) return '—';
   return `${formatFixed(showLength(mm, u), u === 'US' ? 3 : 1).replace(/\.0$/, '')} ${lengthUnit(u)}`;
 }
-/** A stress for a table cell: `203000 MPa`, `29442661 psi`. */
+/** A stress for a table cell: `200000 MPa`, `29442661 psi`. */
 export function formatStress(mpa: number, u: PlanUnits): string {
   return `${formatFixed(showStress(mpa, u), u === 'US' ? 0 : 1).replace(/\.0$/, '')} ${stressUnit(u)}`;
 }
