@@ -325,7 +325,7 @@ function drawTestHeader(flow: PageFlow, input: ReportRecord): void {
           `σh ${showNumber(formatFixed(used.hoopStress, p.stress))} ${u.stress}, σa ${showNumber(formatFixed(used.axialStress, p.stress))} ${u.stress}; ${formatPercent(used.yieldFraction, 1)} % of yield`,
         ],
         [
-          `Dimension changes (${u.length})`,
+          `Change (${u.length})`,
           (() => {
             const d = used.dimensionChanges;
             const f = (v: number | null) => showNumber(formatFixed(v, p.length + 1) || '–');
