@@ -196,8 +196,21 @@ describe('the whole journey', () => {
     expect((await sign(technician, 'review')).status).toBe(403);
     expect((await sign(admin, 'review')).status).toBe(403);
     expect((await sign(qa, 'release')).status).toBe(409);
-    const signed = await sign(engineer, 'review', { statement: 'Bridge completion of H2 checked on site.' });
+    // the words the dialog showed must be the words signed: an out-of-date text is refused, nothing signed
+    const stale = await sign(engineer, 'review', {
+      shownStatement: 'I, Imke Sorensen (demo), have reviewed an older plan.',
+    });
+    expect(stale.status).toBe(409);
+    expect(stale.body.error.code).toBe('statement-changed');
+    expect(stale.body.error.message).toMatch(/Read the statement again and sign/);
+    const current: string = stale.body.error.details.statement;
+    expect((await engineer.json(`/api/tests/${testId}`)).body.status).toBe('reduced');
+    const signed = await sign(engineer, 'review', {
+      shownStatement: current,
+      statement: 'Bridge completion of H2 checked on site.',
+    });
     expect(signed.status).toBe(201);
+    expect(signed.body.statement.startsWith(current)).toBe(true);
     // the stored signature says who, which reduction, and the statement signed
     expect(signed.body.statement).toContain('I, Imke Sorensen (demo), have reviewed reduction');
     expect(signed.body.statement).toContain('Remark: Bridge completion of H2 checked on site.');

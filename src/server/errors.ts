@@ -42,6 +42,11 @@ export const errorCatalogue = {
     status: 409,
     message: 'The record changed since you opened it. Reload the page, check the current reduction, then sign.',
   },
+  'statement-changed': {
+    status: 409,
+    message:
+      'The record changed while the statement was open: the words you read are no longer what would be signed. Read the statement again and sign.',
+  },
   'plan-changed': {
     status: 409,
     message: 'The test plan changed while the log was uploading; nothing was stored. Upload the log again.',

@@ -83,6 +83,14 @@ export interface SignatureRequest {
   password: string;
   /** the signer's own remark, stored after the statement */
   statement?: string;
+  /** the statement the dialog showed; refused (409) when the record now gives other words */
+  shownStatement?: string;
+}
+
+/** A signer attests the words they read: when the dialog's text is sent, it must be today's. */
+function requireShownStatement(current: string, shown: string | undefined) {
+  if (shown !== undefined && shown !== current)
+    throw new AppError('statement-changed', undefined, { statement: current });
 }
 
 /** The statement a reviewer signs for this record now (the sign-off dialog shows the same). */
@@ -127,7 +135,9 @@ export async function signReview(user: RequestUser, testId: number, body: Signat
           gaugeIds: record.openFlags,
         },
       );
-    const statement = signedText(reviewStatement(user, record), body.statement);
+    const attested = reviewStatement(user, record);
+    requireShownStatement(attested, body.shownStatement);
+    const statement = signedText(attested, body.statement);
     const id = await insertSignature(tx, {
       testId,
       reductionId: reduction.id,
@@ -196,20 +206,19 @@ export async function releaseTest(user: RequestUser, testId: number, body: Signa
         'own-review',
         'You signed the engineering review of this test; another person must release it.',
       );
-    const statement = signedText(
-      signatureStatement({
-        kind: 'release',
-        signerName: user.name,
-        testName: record.test.name,
-        testId,
-        reductionId: reduction.id,
-        engineVersion: reduction.engineVersion,
-        verdict: record.verdict ?? 'unknown',
-        reviewerName: review.name,
-        procedure: procedureFacts(record.plan),
-      }),
-      body.statement,
-    );
+    const attested = signatureStatement({
+      kind: 'release',
+      signerName: user.name,
+      testName: record.test.name,
+      testId,
+      reductionId: reduction.id,
+      engineVersion: reduction.engineVersion,
+      verdict: record.verdict ?? 'unknown',
+      reviewerName: review.name,
+      procedure: procedureFacts(record.plan),
+    });
+    requireShownStatement(attested, body.shownStatement);
+    const statement = signedText(attested, body.statement);
     const id = await insertSignature(tx, {
       testId,
       reductionId: reduction.id,

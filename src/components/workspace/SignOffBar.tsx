@@ -93,6 +93,7 @@ export default function SignOffBar({ record, role, userEmail, userName, onChange
           statement={statement(signing)}
           verdict={record.result?.verdict ?? null}
           onCancel={() => setSigning(null)}
+          onStale={onChanged}
           onSigned={() => {
             setSigning(null);
             onChanged();

@@ -1,5 +1,5 @@
 import { useState, type SubmitEvent } from 'react';
-import { api } from '../api';
+import { ApiError, api } from '../api';
 import { VERDICT_LABEL, VERDICT_MEANING, type VerdictCode } from '../../lib/verdict-words';
 
 interface Props {
@@ -12,13 +12,24 @@ interface Props {
   verdict: VerdictCode | null;
   onSigned: () => void;
   onCancel: () => void;
+  /** the record changed under the dialog: reload it, so the statement shown is the one to sign */
+  onStale?: () => void;
 }
 
 /**
  * The confirmation before a signature: the statement in full, the signer's password (asked
  * again, so a signature is a deliberate act of this person) and an optional remark.
  */
-export default function SignatureForm({ kind, testId, reductionId, statement, verdict, onSigned, onCancel }: Props) {
+export default function SignatureForm({
+  kind,
+  testId,
+  reductionId,
+  statement,
+  verdict,
+  onSigned,
+  onCancel,
+  onStale,
+}: Props) {
   const [error, setError] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
   const title = kind === 'review' ? 'Sign the engineering review' : 'Release the strain record and lock it';
@@ -35,12 +46,15 @@ export default function SignatureForm({ kind, testId, reductionId, statement, ve
         jsonBody: {
           reductionId,
           password: String(form.get('password') ?? ''),
+          // the words on screen: the server refuses if the record would now sign other ones
+          shownStatement: statement,
           ...(remark ? { statement: remark } : {}),
         },
       });
       onSigned();
     } catch (err) {
       setError((err as Error).message);
+      if (err instanceof ApiError && (err.code === 'statement-changed' || err.code === 'stale-reduction')) onStale?.();
       setBusy(false);
     }
   }

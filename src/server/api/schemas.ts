@@ -135,6 +135,8 @@ export const signatureBody = z.object({
   reductionId: z.number().int().positive('is the reduction you reviewed (its id)'),
   password: z.string().min(1, 'is required: signing asks for your password again').max(1024),
   statement: z.string().trim().max(2000, 'at most 2000 characters').optional(),
+  /** the statement as the sign-off dialog showed it; when given, it must be what would be signed now */
+  shownStatement: z.string().max(8000, 'at most 8000 characters').optional(),
 });
 
 export const shareLinkBody = z.object({

@@ -3,7 +3,7 @@ import { releaseTest } from '../../../../server/review.server';
 import { signatureBody } from '../../../../server/api/schemas';
 
 /**
- * POST /api/tests/{id}/release {reductionId, password, statement?} — QA releases a reviewed test
+ * POST /api/tests/{id}/release {reductionId, password, statement?, shownStatement?} — QA releases a reviewed test
  * in person (session and password, never a token); it is locked and its record frozen from then on.
  */
 export const POST = endpoint(async (ctx) => {

@@ -3,7 +3,7 @@ import { signReview } from '../../../../server/review.server';
 import { signatureBody } from '../../../../server/api/schemas';
 
 /**
- * POST /api/tests/{id}/review {reductionId, password, statement?} — the engineer signs the
+ * POST /api/tests/{id}/review {reductionId, password, statement?, shownStatement?} — the engineer signs the
  * engineering review in person: a browser session and their password; an API token never signs.
  */
 export const POST = endpoint(async (ctx) => {
