@@ -108,8 +108,25 @@ export async function openBrowser(journey: string, baseUrl: string): Promise<Ses
   };
 }
 
+/**
+ * Open a page and wait until every island has hydrated (Astro drops an island's `ssr` attribute
+ * once its component runs): a click on server-rendered HTML before then reaches no handler, which
+ * on a loaded machine made a journey wait for a dialog that never opened.
+ */
+export async function gotoHydrated(page: Page, url: string): Promise<void> {
+  await page.goto(url);
+  await islandsHydrated(page);
+}
+
+/** Wait until every island of the current page has hydrated (after a navigation by click). */
+export async function islandsHydrated(page: Page): Promise<void> {
+  await page.waitForFunction(() => document.querySelectorAll('astro-island[ssr]').length === 0, null, {
+    timeout: 30_000,
+  });
+}
+
 export async function signIn(page: Page, email: string, password: string): Promise<void> {
-  await page.goto('/signin');
+  await gotoHydrated(page, '/signin');
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password').fill(password);
   await page.getByRole('button', { name: 'Sign in' }).click();

@@ -9,7 +9,7 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import type { ChildProcess } from 'node:child_process';
-import { openBrowser, signIn, type Session } from './browser';
+import { gotoHydrated, islandsHydrated, openBrowser, signIn, type Session } from './browser';
 import { makeHydrotestCsv } from '../support/hydrotest-log';
 import { startWorker, stopProcess } from '../support/processes';
 
@@ -92,6 +92,7 @@ describe('a hydrotest from plan to inspector link, in the browser', () => {
     await s.shoot('dashboard');
     await page.getByRole('link', { name: 'New test' }).click();
     await page.waitForURL('**/tests/new');
+    await islandsHydrated(page);
     // a plan problem names the gauge by its id and says what is wrong, with no developer path
     await page.locator('#plan-import').setInputFiles(badPlanFile);
     await page.getByRole('link', { name: 'Gauge A1 is uniaxial and needs one channel; it lists two.' }).waitFor();
@@ -107,6 +108,7 @@ describe('a hydrotest from plan to inspector link, in the browser', () => {
     await s.shoot('test-overview');
     await page.getByRole('link', { name: 'Plan', exact: true }).click();
     await page.waitForURL(`**/tests/${testId}/plan`);
+    await islandsHydrated(page);
     await s.shoot('plan-editor');
 
     const wall = page.getByLabel(/^Wall thickness/);
@@ -140,7 +142,7 @@ describe('a hydrotest from plan to inspector link, in the browser', () => {
     const s = await session('2-technician-upload');
     const { page } = s;
     await signIn(page, 'technician@example.com', password());
-    await page.goto(`/tests/${testId}/logs`);
+    await gotoHydrated(page, `/tests/${testId}/logs`);
     await s.shoot('logs-empty');
     await page.evaluate(() => {
       const w = window as unknown as { sawUploadBar: boolean };
@@ -166,7 +168,7 @@ describe('a hydrotest from plan to inspector link, in the browser', () => {
     const s = await session('3-engineer-review');
     const { page } = s;
     await signIn(page, 'engineer@example.com', password());
-    await page.goto(`/tests/${testId}/review`);
+    await gotoHydrated(page, `/tests/${testId}/review`);
     await page.getByText('Measured over predicted slope').waitFor();
     await expect.poll(async () => page.locator('canvas').count()).toBeGreaterThanOrEqual(2);
     // the verdict says what it means and what it does not
@@ -228,12 +230,12 @@ describe('a hydrotest from plan to inspector link, in the browser', () => {
     await signIn(page, 'qa@example.com', password());
     await s.shoot('dashboard-needs-qa');
     // a link made before the release shows the inspector an unmistakable DRAFT banner
-    await page.goto(`/tests/${testId}/report`);
+    await gotoHydrated(page, `/tests/${testId}/report`);
     await page.getByRole('button', { name: 'Create link' }).click();
     await page.getByLabel('Share link').waitFor();
     const draftUrl = await page.getByLabel('Share link').inputValue();
     const early = await session('4b-inspector-before-release');
-    await early.page.goto(new URL(draftUrl).pathname);
+    await gotoHydrated(early.page, new URL(draftUrl).pathname);
     await early.page
       .getByTestId('draft-banner')
       .getByText(/DRAFT — NOT RELEASED/)
@@ -241,7 +243,7 @@ describe('a hydrotest from plan to inspector link, in the browser', () => {
     await early.page.getByText('Strain comparison verdict: Conforms', { exact: true }).waitFor();
     await early.shoot('shared-draft');
     noProblems(early);
-    await page.goto(`/tests/${testId}/review`);
+    await gotoHydrated(page, `/tests/${testId}/review`);
     await page.getByRole('button', { name: 'Release the strain record' }).click();
     await page.getByText(/I, Quentin Abara \(demo\), release the strain record of reduction \d+/).waitFor();
     // the confirmation restates the verdict and says who returns the vessel to service
@@ -264,7 +266,7 @@ describe('a hydrotest from plan to inspector link, in the browser', () => {
     await page.getByRole('button', { name: 'Release the record now' }).click();
     await page.getByText(/Strain record released.*the\s+record is locked/).waitFor();
     await s.shoot('released');
-    await page.goto(`/tests/${testId}/report`);
+    await gotoHydrated(page, `/tests/${testId}/report`);
     await s.shoot('report');
     const pdfHref = await page.getByRole('link', { name: 'Open PDF report' }).getAttribute('href');
     const pdf = await page.request.get(pdfHref!);
@@ -286,7 +288,7 @@ describe('a hydrotest from plan to inspector link, in the browser', () => {
   it('the inspector opens the link with no account, sees the plots and finds no control that writes', async () => {
     const s = await session('5-inspector');
     const { page } = s;
-    await page.goto(new URL(shareUrl).pathname);
+    await gotoHydrated(page, new URL(shareUrl).pathname);
     await page.getByRole('heading', { name: 'E2E hydrotest of vessel E2E-7' }).waitFor();
     await expect.poll(async () => page.locator('canvas').count()).toBeGreaterThanOrEqual(2);
     // the inspector reads the test conduct and what each signer attested
@@ -308,7 +310,7 @@ describe('a hydrotest from plan to inspector link, in the browser', () => {
     );
     expect(write).toBe(405);
     // the account pages stay closed to the link's holder
-    await page.goto(`/tests/${testId}`);
+    await gotoHydrated(page, `/tests/${testId}`);
     expect(new URL(page.url()).pathname).toBe('/signin');
     // (the 405 of the probe above is logged by the browser as a console error, on purpose)
   });

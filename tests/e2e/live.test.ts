@@ -9,7 +9,7 @@ import { createHash } from 'node:crypto';
 import { appendFileSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { openBrowser, signIn, type Session } from './browser';
+import { gotoHydrated, openBrowser, signIn, type Session } from './browser';
 import { makeHydrotestCsv } from '../support/hydrotest-log';
 import { signedIn } from '../support/http';
 
@@ -99,10 +99,10 @@ describe('a live hydrotest followed in the browser', () => {
     const eng = await openBrowser('6-live-engineer', base);
     sessions.push(eng);
     await signIn(eng.page, 'engineer@example.com', inject('testPassword'));
-    await eng.page.goto(`/tests/${testId}/review`);
+    await gotoHydrated(eng.page, `/tests/${testId}/review`);
     const insp = await openBrowser('7-live-inspector', base);
     sessions.push(insp);
-    await insp.page.goto(link.body.url);
+    await gotoHydrated(insp.page, link.body.url);
     // note, in the engineer's page, what it showed at the moment the warning for A2 arrived
     await eng.page.evaluate(() => {
       const w = window as unknown as { atWarning: { holds: string; pressure: string } | null };
