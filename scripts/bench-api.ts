@@ -7,7 +7,9 @@
 //     (GET /api/vessels/{id}), the time-history series for 2000 points as the review page asks
 //     for it (GET /api/tests/{id}/series?points=2000&reduction=R, Accept-Encoding: br, gzip,
 //     no If-None-Match: a first view) and the result read (GET /api/reductions/{id}). Phases run
-//     twice in turn (row, series, result, row, series, result) so drift hits all alike.
+//     twice in turn (row, series, result, row, series, result) so drift hits all alike;
+//   - the one-row read again while 200 live-event streams of the test are open (each polls MariaDB
+//     every LIVE_POLL_MS), against the same read without them.
 // Prints medians, p99s, bytes on the wire and the ratios the targets are stated in.
 import { spawnSync } from 'node:child_process';
 import { createReadStream, statSync } from 'node:fs';
@@ -19,6 +21,8 @@ import { startStack, type Stack } from './stack';
 
 const READERS = 50;
 const PER_READER = 20;
+/** open live-event streams (the review and inspector pages of a test bay) during the last read phase */
+const STREAMS = 200;
 
 interface Sample {
   ms: number;
@@ -46,6 +50,30 @@ interface Phase {
   errors: number;
   nonOk: number;
   seconds: number;
+}
+
+/** Open `n` Server-Sent-Event streams and keep them open; `stats` says how many answered and sent bytes. */
+function openStreams(url: string, headers: Record<string, string>, n: number) {
+  const own = new http.Agent({ keepAlive: false, maxSockets: Infinity });
+  const bytes = new Array<number>(n).fill(0);
+  let opened = 0;
+  let errors = 0;
+  const requests = Array.from({ length: n }, (_, i) => {
+    const req = http.get(url, { agent: own, headers: { ...headers, accept: 'text/event-stream' } }, (res) => {
+      if (res.statusCode === 200) opened++;
+      res.on('data', (c: Buffer) => (bytes[i]! += c.length));
+      res.on('error', () => undefined);
+    });
+    req.on('error', () => errors++);
+    return req;
+  });
+  return {
+    stats: () => ({ opened, errors, sending: bytes.filter((b) => b > 0).length }),
+    close: () => {
+      for (const r of requests) r.destroy();
+      own.destroy();
+    },
+  };
 }
 
 async function readers(url: string, headers: Record<string, string>): Promise<Phase> {
@@ -166,6 +194,17 @@ async function run(stack: Stack) {
   for (let round = 0; round < 2; round++)
     for (const kind of ['row', 'series', 'result'] as const) phases[kind].push(await readers(urls[kind], browser));
 
+  // the same one-row read while many pages follow the test's live events (each stream polls MariaDB)
+  const streams = openStreams(`${server.url}/api/tests/${testId}/live/events`, { cookie }, STREAMS);
+  await new Promise((r) => setTimeout(r, 3000));
+  const underStreams = await readers(urls.row, browser);
+  const streamStats = streams.stats();
+  streams.close();
+  const rowUnderStreams = quantile(
+    underStreams.samples.map((x) => x.ms),
+    0.5,
+  );
+
   const all = (k: keyof typeof urls) => phases[k].flatMap((p) => p.samples);
   const med = (k: keyof typeof urls) =>
     quantile(
@@ -197,6 +236,7 @@ async function run(stack: Stack) {
   const seriesRatio = med('series') / med('row');
   const resultRatio = med('result') / med('row');
   const workerRatio = workerSeconds / cliSeconds;
+  const streamRatio = rowUnderStreams / med('row');
   const lines = [
     `Hoopline API benchmark — node ${process.version}, one app server, ${READERS} concurrent readers × ${PER_READER} requests × 2 rounds`,
     '',
@@ -206,6 +246,7 @@ async function run(stack: Stack) {
         `${{ row: 'one-row read', series: 'series 2000 pts', result: 'result read' }[k].padEnd(18)}${f(med(k)).padStart(9)}${f(p99(k)).padStart(9)}${f(wire(k) / 1024).padStart(10)}${f(k === 'row' ? rowRps : k === 'series' ? seriesRps : all(k).length / phases[k].reduce((s, p) => s + p.seconds, 0), 0).padStart(8)}`,
     ),
     `series, first request (fetch + decode + encode): ${f(cold.ms)} ms; uncompressed answer ${f(identity.wireBytes / 1024)} KB`,
+    `one-row read with ${STREAMS} live-event streams open: median ${f(rowUnderStreams)} ms; streams answered ${streamStats.opened}, sending ${streamStats.sending}, failed ${streamStats.errors}`,
     `upload: ${f(sizeMB)} MB in ${f(up.seconds, 2)} s = ${f(uploadMBs)} MB/s`,
     `1 M-row log: CLI ${f(cliSeconds, 2)} s, worker ${f(workerSeconds, 2)} s (${f(1_000_000 / workerSeconds / 1000, 0)} k rows/s per worker)`,
     '',
@@ -214,6 +255,7 @@ async function run(stack: Stack) {
     `  series on the wire ≤ 300 KB .................. ${f(wire('series') / 1024)} KB  ${ok(wire('series') <= 300 * 1024)}`,
     `  result median / one-row median ≤ 2 ........... ${f(resultRatio, 2)}  ${ok(resultRatio <= 2)}`,
     `  no dropped connection ........................ ${dropped} dropped, ${nonOk} not 200  ${ok(dropped === 0 && nonOk === 0)}`,
+    `  one-row read, ${STREAMS} streams open / none ≤ 2 .... ${f(streamRatio, 2)}  ${ok(streamRatio <= 2 && streamStats.opened === STREAMS && underStreams.errors === 0)}`,
     `  upload ≥ 50 MB/s ............................. ${f(uploadMBs)} MB/s  ${ok(uploadMBs >= 50)}`,
     `  worker / CLI ≤ 1.5 on the 1 M-row log ........ ${f(workerRatio, 2)}  ${ok(workerRatio <= 1.5)}`,
   ];
