@@ -26,7 +26,7 @@ if [ -f .env ]; then set -a; . ./.env; set +a; fi
 export ASTRO_TELEMETRY_DISABLED=1
 export AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED=true
 export DEMO=${DEMO:-true}
-export DEMO_PASSWORD=${DEMO_PASSWORD:-hoopline-demo-receiver}
+export DEMO_PASSWORD=${DEMO_PASSWORD:-hoopline-demo}
 export PUBLIC_BASE_URL=${PUBLIC_BASE_URL:-http://$HOST:$PORT}
 export MAIL_DIR=${MAIL_DIR:-$ROOT/.data/mail}
 if [ -z "${AUTH_SECRET:-}" ]; then

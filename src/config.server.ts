@@ -37,7 +37,7 @@ export const configSchema = z.object({
     .or(z.literal('').transform(() => undefined)),
   PUBLIC_BASE_URL: z.url().default('http://127.0.0.1:4321'),
   DEMO: bool.default(false),
-  DEMO_PASSWORD: z.string().min(12, 'must be at least 12 characters').default('hoopline-demo-receiver'),
+  DEMO_PASSWORD: z.string().min(12, 'must be at least 12 characters').default('hoopline-demo'),
   DEMO_RESET: bool.default(false),
   TRUST_PROXY: bool.default(false),
   MAIL_DIR: z.string().default('.data/mail'),

@@ -48,7 +48,11 @@ describe('the demo seed', () => {
       const after = (await db.select().from(users).where(eq(users.email, 'admin@example.com')))[0]!;
       expect(await verifyPassword('second-demo-password-42', after.passwordHash)).toBe(true);
       expect((await db.select().from(users).where(eq(users.email, 'engineer@example.com')))[0]!.disabled).toBe(false);
-      await expect(seedDemoAccounts(db, 'hoopline-demo', { reset: true })).rejects.toThrow(/DEMO_PASSWORD/);
+      // a chosen demo password must be a real one; the contract's published default is taken as it is
+      await expect(seedDemoAccounts(db, 'password1234', { reset: true })).rejects.toThrow(/DEMO_PASSWORD/);
+      await seedDemoAccounts(db, 'hoopline-demo', { reset: true });
+      const demo = (await db.select().from(users).where(eq(users.email, 'qa@example.com')))[0]!;
+      expect(await verifyPassword('hoopline-demo', demo.passwordHash)).toBe(true);
     } finally {
       await pool.end();
     }

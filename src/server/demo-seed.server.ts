@@ -47,6 +47,9 @@ export const demoVessel = {
   features: [{ kind: 'nozzle', axialPosition: 2100, clockDeg: 0, size: 150 }],
 };
 
+/** The demo password DESIGN 6 names as the default of DEMO_PASSWORD. */
+export const CONTRACT_DEMO_PASSWORD = 'hoopline-demo';
+
 /**
  * The demo accounts (with `password`), the generic materials and the demo vessel. Existing
  * accounts keep their password, role and state unless `reset` is true (DEMO_RESET=true).
@@ -56,7 +59,9 @@ export async function seedDemoAccounts(
   password: string,
   opts: { reset: boolean },
 ): Promise<{ users: number; created: number; reset: number; materials: number }> {
-  const problem = passwordProblem(password);
+  // the contract's default is published with the product, so its strength is moot: demo mode serves
+  // loopback only and prints a warning; a DEMO_PASSWORD someone chooses must be a real password
+  const problem = password === CONTRACT_DEMO_PASSWORD ? null : passwordProblem(password);
   if (problem) throw new Error(`DEMO_PASSWORD: ${problem}`);
   const passwordHash = await hashPassword(password);
   let created = 0;
