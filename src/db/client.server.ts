@@ -8,8 +8,7 @@ import {
 } from 'drizzle-orm/mysql2';
 import mysql from 'mysql2/promise';
 import { getConfig } from '../config.server';
-import { isDeadlock } from './errors';
-import { DEADLOCK_ATTEMPTS } from './queries/transaction';
+import { transaction } from './queries/transaction';
 import { onShutdown } from '../lifecycle.server';
 import * as schema from './schema';
 
@@ -50,18 +49,12 @@ export function getDb(): Db {
 
 /**
  * Run `fn` in one transaction (REPEATABLE READ): it commits when `fn` resolves and rolls back
- * when it throws. When MariaDB picks it as a deadlock victim it runs again, at most three times,
+ * when it throws. When MariaDB picks it as a deadlock victim it runs again (queries/transaction.ts),
  * so `fn` must only touch the database.
  */
 export async function inTransaction<T>(fn: (tx: Tx) => Promise<T>, db: Db = getDb()): Promise<T> {
-  for (let attempt = 1; ; attempt++) {
-    try {
-      return await db.transaction(fn);
-    } catch (err) {
-      if (attempt >= DEADLOCK_ATTEMPTS || !isDeadlock(err)) throw err;
-      await new Promise((r) => setTimeout(r, 20 * attempt + Math.random() * 30));
-    }
-  }
+  // given the pool, `transaction` hands `fn` the transaction it opened
+  return transaction(db, (tx) => fn(tx as Tx));
 }
 
 /** The raw pool (health checks, FOR UPDATE SKIP LOCKED claims). */

@@ -28,6 +28,28 @@ export interface StatementFacts {
   procedure?: ProcedureFacts;
 }
 
+/**
+ * The conduct facts in their fixed order, as every output names them: the pages' label, the PDF's
+ * short one (a narrow column) and the CSV key.
+ */
+export const CONDUCT_FIELDS: readonly { key: keyof ProcedureFacts; label: string; short: string; csv: string }[] = [
+  {
+    key: 'procedureReference',
+    label: 'Written test procedure',
+    short: 'Written procedure',
+    csv: 'procedure_reference',
+  },
+  { key: 'codeEdition', label: 'Governing code and edition', short: 'Governing code', csv: 'code_edition' },
+  { key: 'testMedium', label: 'Test medium', short: 'Test medium', csv: 'test_medium' },
+  {
+    key: 'testTemperature',
+    label: 'Metal temperature during the test',
+    short: 'Metal temperature',
+    csv: 'test_temperature',
+  },
+  { key: 'witness', label: 'Witness', short: 'Witness', csv: 'witness' },
+];
+
 /** A temperature as recorded: `15 °C`, `59 °F` (no float noise). */
 export function formatTemperature(value: number, units: Plan['units']): string {
   return `${Number(value.toPrecision(6))} ${units === 'US' ? '°F' : '°C'}`;

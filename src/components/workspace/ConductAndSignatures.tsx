@@ -1,4 +1,4 @@
-import { procedureFacts } from '../../lib/signing';
+import { CONDUCT_FIELDS, procedureFacts } from '../../lib/signing';
 import { formatUtc } from '../../lib/ui-format';
 import type { RecordView } from './record-types';
 
@@ -9,13 +9,7 @@ interface Props {
 /** How the test was conducted, as the plan records it, and what each signer attested, word for word. */
 export default function ConductAndSignatures({ record }: Props) {
   const facts = procedureFacts(record.plan);
-  const rows: [string, string | undefined][] = [
-    ['Written test procedure', facts.procedureReference],
-    ['Governing code and edition', facts.codeEdition],
-    ['Test medium', facts.testMedium],
-    ['Metal temperature during the test', facts.testTemperature],
-    ['Witness', facts.witness],
-  ];
+  const rows = CONDUCT_FIELDS.map((c): [string, string | undefined] => [c.label, facts[c.key]]);
   const current = record.reduction?.id;
   return (
     <section className="card" aria-labelledby="conduct-h">

@@ -9,6 +9,7 @@ import type {
   ShellModel,
   TestVerdict,
 } from '../../lib/reduction/types';
+import { CONDUCT_FIELDS } from '../../lib/signing';
 import { SLOPE_FIGURES, formatSignificant } from '../../lib/ui-format';
 import { MODEL_NAME, VERDICT_LABEL, VERDICT_MEANING, VERDICT_SCOPE } from '../../lib/verdict-words';
 import { outcomeOf, unitLabels, type ReportInput, type ReportRecord, type UnitSystem } from './report-input';
@@ -123,16 +124,9 @@ export function dominantUncertainty(g: GaugeResult): string {
   return top && top.contribution > 0 ? top.input : '';
 }
 
-/** The test conduct facts in a fixed order: CSV key, PDF label, value ('' when the plan does not say). */
+/** The test conduct facts in their fixed order: CSV key, PDF label, value ('' when the plan does not say). */
 export function conductRows(input: ReportRecord | ReportInput): { csv: string; label: string; value: string }[] {
-  const p = input.procedure;
-  return [
-    { csv: 'procedure_reference', label: 'Written procedure', value: p.procedureReference ?? '' },
-    { csv: 'code_edition', label: 'Governing code', value: p.codeEdition ?? '' },
-    { csv: 'test_medium', label: 'Test medium', value: p.testMedium ?? '' },
-    { csv: 'test_temperature', label: 'Metal temperature', value: p.testTemperature ?? '' },
-    { csv: 'witness', label: 'Witness', value: p.witness ?? '' },
-  ];
+  return CONDUCT_FIELDS.map((f) => ({ csv: f.csv, label: f.short, value: input.procedure[f.key] ?? '' }));
 }
 
 /** The caution every export carries (DESIGN: reports carry it on every page). */
